@@ -1,0 +1,86 @@
+#!/usr/bin/env bash
+# Shared pieces of the start and test bootstraps: dependencies, Debian packages, and a
+# project-local PostgreSQL cluster run as the `postgres` user on loopback.
+set -euo pipefail
+
+ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
+log() { printf '\033[1;34m[fluxwright]\033[0m %s\n' "$*"; }
+
+apt_updated=0
+apt_install() {
+  command -v apt-get >/dev/null || { log "apt-get not found: install $* by hand"; return 1; }
+  if [ $apt_updated = 0 ]; then apt-get update -qq >/dev/null; apt_updated=1; fi
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >/dev/null
+}
+
+# npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
+    log "installing npm dependencies (npm ci)"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+pg_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1; }
+
+ensure_postgres_binaries() {
+  if [ -z "$(pg_bin)" ] || [ ! -x "$(pg_bin)/initdb" ]; then
+    log "installing PostgreSQL from Debian"
+    apt_install postgresql
+    # Debian's package starts its own cluster on 5432; ours is separate, so stop that one.
+    command -v pg_ctlcluster >/dev/null && pg_lsclusters -h 2>/dev/null | while read -r ver name _; do pg_ctlcluster "$ver" "$name" stop || true; done
+  fi
+  id postgres >/dev/null 2>&1 || useradd --system --home-dir /var/lib/postgresql --shell /usr/sbin/nologin postgres
+}
+
+ensure_chromium() {
+  if [ ! -x /usr/bin/chromium ]; then
+    log "installing Chromium from Debian (browser tests)"
+    apt_install chromium
+  fi
+}
+
+# The cluster lives in .data/ of the checkout when the postgres user can reach it, else in a
+# folder of its own under the temporary folder, named after a hash of the checkout path.
+pg_root_for() { # $1 = name (start|test)
+  local name=$1 candidate="$ROOT/.data/pg-$1"
+  mkdir -p "$ROOT/.data"
+  if runuser -u postgres -- test -x "$ROOT/.data" 2>/dev/null; then
+    echo "$candidate"
+  else
+    echo "${TMPDIR:-/tmp}/fluxwright-$(printf '%s' "$ROOT" | sha1sum | cut -c1-12)-pg-$name"
+  fi
+}
+
+# pg_start ROOTDIR PORT [fast]  — "fast" turns fsync off (test clusters only).
+pg_start() {
+  local dir=$1 port=$2 mode=${3:-safe} bin
+  bin=$(pg_bin)
+  install -d -o postgres -g postgres -m 700 "$dir"
+  install -d -o postgres -g postgres -m 700 "$dir/sock"
+  if [ ! -s "$dir/data/PG_VERSION" ]; then
+    log "creating PostgreSQL cluster in $dir"
+    runuser -u postgres -- "$bin/initdb" -D "$dir/data" -U postgres --auth=trust -E UTF8 --locale=C.UTF-8 >/dev/null
+  fi
+  if runuser -u postgres -- "$bin/pg_ctl" -D "$dir/data" status >/dev/null 2>&1; then
+    log "PostgreSQL already running in $dir"
+    return 0
+  fi
+  local opts="-c listen_addresses=127.0.0.1 -p $port -k $dir/sock"
+  [ "$mode" = fast ] && opts="$opts -c fsync=off -c synchronous_commit=off -c full_page_writes=off"
+  runuser -u postgres -- "$bin/pg_ctl" -D "$dir/data" -l "$dir/server.log" -w -t 30 -o "$opts" start >/dev/null
+  log "PostgreSQL listening on 127.0.0.1:$port (data in $dir/data)"
+}
+
+pg_stop() {
+  local dir=$1
+  runuser -u postgres -- "$(pg_bin)/pg_ctl" -D "$dir/data" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+# pg_createdb PORT NAME — idempotent.
+pg_createdb() {
+  local port=$1 name=$2
+  if ! psql -h 127.0.0.1 -p "$port" -U postgres -tAc "select 1 from pg_database where datname='$name'" | grep -q 1; then
+    psql -h 127.0.0.1 -p "$port" -U postgres -qc "create database \"$name\"" >/dev/null
+  fi
+}

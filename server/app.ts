@@ -1,0 +1,113 @@
+import connectPgSimple from "connect-pg-simple";
+import cookieParser from "cookie-parser";
+import express, { type Express } from "express";
+import session from "express-session";
+import helmet from "helmet";
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import pg from "pg";
+import pino, { type Logger } from "pino";
+import { pinoHttp } from "pino-http";
+import type { Sequelize } from "sequelize";
+import { createPassport } from "./auth/passport";
+import { loadConfig, type Config } from "./config";
+import { getSequelize } from "./db/sequelize";
+import type { AppDeps } from "./deps";
+import { createMailer, type Mailer } from "./jobs/mailer";
+import { apiNotFound, onError } from "./middleware/on-error";
+import { createCsrf } from "./middleware/security";
+import { initModels } from "./models";
+import { authRouter } from "./routes/auth";
+import { healthRouter } from "./routes/health";
+import { usersRouter } from "./routes/users";
+
+const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../dist");
+
+export interface CreateAppOptions {
+  config?: Config;
+  sequelize?: Sequelize;
+  mailer?: Mailer;
+  logger?: Logger;
+  /** serve the built client from dist/ (default: when it exists) */
+  serveClient?: boolean;
+}
+
+export interface FluxwrightApp extends Express {
+  locals: Express["locals"] & { deps: AppDeps; close(): Promise<void> };
+}
+
+/** Builds the Express app without listening: server/index.ts listens, supertest drives it directly. */
+export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
+  const config = options.config ?? loadConfig();
+  const logger = options.logger ?? pino({ level: config.LOG_LEVEL ?? (config.NODE_ENV === "test" ? "silent" : "info") });
+  const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
+  initModels(sequelize);
+  const mailer = options.mailer ?? createMailer({ host: config.SMTP_HOST, port: config.SMTP_PORT, from: config.MAIL_FROM, logger });
+  const deps: AppDeps = { config, sequelize, mailer, logger };
+  const secure = config.appUrl.startsWith("https://");
+
+  const app = express() as FluxwrightApp;
+  app.disable("x-powered-by");
+  app.set("trust proxy", "loopback");
+  app.set("query parser", "simple");
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          "default-src": ["'self'"],
+          "img-src": ["'self'", "data:", "blob:"],
+          "style-src": ["'self'", "'unsafe-inline'"], // charts set inline style attributes
+          "font-src": ["'self'", "data:"],
+          "connect-src": ["'self'"],
+          "upgrade-insecure-requests": secure ? [] : null,
+        },
+      },
+      strictTransportSecurity: secure,
+    }),
+  );
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith("/api") || req.url === "/api/health" } }));
+
+  // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
+  // (a CSRF token, a sign-in), so public read-only routes create no session rows.
+  const PgStore = connectPgSimple(session);
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
+  sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
+  const store = new PgStore({ pool: sessionPool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const sessionMiddleware = session({
+    name: "fw.sid",
+    secret: config.SESSION_SECRET,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: { httpOnly: true, sameSite: "lax", secure, maxAge: 8 * 3600_000 },
+  });
+  const passport = createPassport();
+  const csrf = createCsrf({ secret: config.SESSION_SECRET, secure });
+
+  const api = express.Router();
+  api.use(express.json({ limit: "200kb" }));
+  api.use(healthRouter(deps));
+  api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
+  api.use("/auth", authRouter({ ...deps, passport, generateCsrfToken: csrf.generateCsrfToken }));
+  api.use(usersRouter(deps));
+  api.use(apiNotFound);
+  app.use("/api", api);
+
+  const serveClient = options.serveClient ?? existsSync(path.join(distDir, "index.html"));
+  if (serveClient) {
+    app.use(express.static(distDir, { index: false, maxAge: "1h", setHeaders: (res, file) => { if (file.includes(`${path.sep}assets${path.sep}`)) res.set("Cache-Control", "public, max-age=31536000, immutable"); } }));
+    app.get("/*splat", (_req, res) => res.sendFile(path.join(distDir, "index.html")));
+  }
+  app.use(onError);
+
+  app.locals.deps = deps;
+  app.locals.close = async () => {
+    store.close();
+    await sessionPool.end().catch(() => {});
+    await mailer.idle();
+  };
+  return app;
+}

@@ -1,0 +1,8 @@
+// Applies pending migrations: `node --import tsx server/cli/migrate.ts [down]`.
+import { createMigrator } from "../db/migrator";
+import { closeSequelize, getSequelize } from "../db/sequelize";
+
+const migrator = createMigrator(getSequelize());
+const done = process.argv[2] === "down" ? await migrator.down() : await migrator.up();
+console.log(done.length ? `migrations applied: ${done.map((m) => m.name).join(", ")}` : "database schema is up to date");
+await closeSequelize();

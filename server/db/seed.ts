@@ -1,0 +1,48 @@
+import type { Sequelize } from "sequelize";
+import type { Role } from "../../shared/schemas/auth";
+import { hashPassword } from "../auth/passwords";
+import { Organization, User, initModels, recordEvent } from "../models";
+
+// The demo scenario: an invented shield shop and two invented customer organisations.
+// Any resemblance to a real company is accidental.
+export const DEMO = {
+  shop: "Wrenfield Shield Works (demo)",
+  customers: ["Fernhollow Instruments (demo)", "Quillbrook Beam Lab (demo)"],
+  users: [
+    { email: "customer@demo.test", name: "Ilse Marwick", role: "customer", org: 0 },
+    { email: "customer2@demo.test", name: "Teodor Vance", role: "customer", org: 1 },
+    { email: "operator@demo.test", name: "Rui Okafor", role: "operator", org: "shop" },
+    { email: "qa@demo.test", name: "Mina Sølvberg", role: "qa", org: "shop" },
+    { email: "admin@demo.test", name: "Cas Lindqvist", role: "admin", org: "shop" },
+  ] as { email: string; name: string; role: Role; org: number | "shop" }[],
+};
+
+/** Idempotent: creates what is missing and leaves what exists (a changed demo password is kept). */
+export async function seedDemo(sequelize: Sequelize, opts: { password: string }): Promise<{ created: string[] }> {
+  initModels(sequelize);
+  const created: string[] = [];
+  await sequelize.transaction(async (transaction) => {
+    const [shop, shopNew] = await Organization.findOrCreate({ where: { name: DEMO.shop }, defaults: { name: DEMO.shop, kind: "shop" }, transaction });
+    if (shopNew) created.push(shop.name);
+    const customers: Organization[] = [];
+    for (const name of DEMO.customers) {
+      const [org, isNew] = await Organization.findOrCreate({ where: { name }, defaults: { name, kind: "customer" }, transaction });
+      if (isNew) created.push(name);
+      customers.push(org);
+    }
+    const passwordHash = await hashPassword(opts.password);
+    for (const u of DEMO.users) {
+      const organizationId = u.org === "shop" ? shop.id : customers[u.org].id;
+      const [user, isNew] = await User.findOrCreate({
+        where: { email: u.email },
+        defaults: { email: u.email, name: u.name, role: u.role, organizationId, passwordHash },
+        transaction,
+      });
+      if (isNew) {
+        created.push(u.email);
+        await recordEvent({ actor: null, organizationId, action: "user.seeded", subject: { type: "user", id: user.id } }, transaction);
+      }
+    }
+  });
+  return { created };
+}

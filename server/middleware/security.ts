@@ -1,0 +1,65 @@
+import type { RequestHandler } from "express";
+import { doubleCsrf } from "csrf-csrf";
+import rateLimit from "express-rate-limit";
+import { AppError, AuthenticationError } from "../errors";
+
+const MUTATING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+export function createCsrf(opts: { secret: string; secure: boolean }) {
+  const { generateCsrfToken, doubleCsrfProtection } = doubleCsrf({
+    getSecret: () => opts.secret,
+    getSessionIdentifier: (req) => req.session?.id ?? "",
+    // The __Host- prefix needs https; on plain loopback http the browser would never send it back.
+    cookieName: opts.secure ? "__Host-fw.csrf" : "fw.csrf",
+    cookieOptions: { sameSite: "lax", secure: opts.secure, httpOnly: true, path: "/" },
+    getCsrfTokenFromRequest: (req) => req.get("x-csrf-token"),
+  });
+
+  /**
+   * Signed-in users' state changes need the token (contract). Anonymous posts (sign-in, registration,
+   * public computations) carry no session worth forging; for those a cross-site Origin is refused.
+   */
+  const protect: RequestHandler = (req, res, next) => {
+    if (!MUTATING.has(req.method)) return next();
+    if (req.user) return doubleCsrfProtection(req, res, next);
+    const origin = req.get("origin");
+    if (origin && origin !== `${req.protocol}://${req.get("host")}`) {
+      return next(new AppError(403, "CSRF_INVALID", "Cross-site requests are refused."));
+    }
+    next();
+  };
+  return { generateCsrfToken, protect };
+}
+
+const limitHandler = (code: string, message: string): RequestHandler => (_req, _res, next) => next(new AppError(429, code, message));
+
+/** Per-address limit for public routes; `perMinute` 0 turns it off (benchmarks). */
+export function publicRateLimit(perMinute: number): RequestHandler {
+  if (perMinute === 0) return (_req, _res, next) => next();
+  return rateLimit({ windowMs: 60_000, limit: perMinute, standardHeaders: "draft-7", legacyHeaders: false, handler: limitHandler("RATE_LIMITED", "Too many requests; wait a minute and try again.") });
+}
+
+/** Sign-in: per address and per account, whatever the public limit says. Successful sign-ins do not count. */
+export function signInRateLimits(perQuarterHour: number): RequestHandler[] {
+  const common = { windowMs: 15 * 60_000, standardHeaders: "draft-7" as const, legacyHeaders: false, skipSuccessfulRequests: true };
+  const message = "Too many sign-in attempts; wait a few minutes and try again.";
+  return [
+    rateLimit({ ...common, limit: perQuarterHour * 3, handler: limitHandler("RATE_LIMITED", message) }),
+    rateLimit({
+      ...common,
+      limit: perQuarterHour,
+      keyGenerator: (req) => `account:${String((req.body as { email?: unknown })?.email ?? "").trim().toLowerCase()}`,
+      handler: limitHandler("RATE_LIMITED", message),
+    }),
+  ];
+}
+
+/** Mail-sending routes (reset, invitation) are limited per address so the inbox cannot be flooded. */
+export function mailRateLimit(perHour: number): RequestHandler {
+  return rateLimit({ windowMs: 60 * 60_000, limit: perHour, standardHeaders: "draft-7", legacyHeaders: false, handler: limitHandler("RATE_LIMITED", "Too many requests; try again later.") });
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.user) return next(AuthenticationError());
+  next();
+};

@@ -1,0 +1,123 @@
+import { Router, type Request } from "express";
+import type { PassportStatic } from "passport";
+import {
+  invitationAcceptSchema, loginSchema, passwordChangeSchema, passwordResetConfirmSchema, passwordResetRequestSchema,
+  profileSchema, registerSchema,
+} from "../../shared/schemas/auth";
+import { checkPassword, hashPassword } from "../auth/passwords";
+import type { AppDeps } from "../deps";
+import { AppError, AuthenticationError } from "../errors";
+import { parseInput } from "../middleware/validate";
+import { mailRateLimit, requireUser, signInRateLimits } from "../middleware/security";
+import { Organization, User, recordEvent } from "../models";
+import { presentUser } from "../presenters/user";
+import { authTokenFinder } from "../services/authTokenFinder";
+import { invitationAccepter } from "../services/invitationAccepter";
+import { passwordResetMail, welcomeMail } from "../services/mail-texts";
+import { passwordResetRequester, passwordResetter } from "../services/passwordResetter";
+import { userRegisterer } from "../services/userRegisterer";
+
+// Passport 0.7 regenerates the session on login and logout, so the client fetches a new CSRF token after either.
+const logIn = (req: Request, user: User) => new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())));
+
+export function authRouter(deps: AppDeps & { passport: PassportStatic; generateCsrfToken: (req: Request, res: import("express").Response) => string }): Router {
+  const { sequelize, mailer, config, passport } = deps;
+  const router = Router();
+
+  router.get("/csrf", (req, res) => {
+    req.session.csrfIssued = true; // the token is bound to this session, so the session must be stored
+    res.set("Cache-Control", "no-store").json({ csrfToken: deps.generateCsrfToken(req, res) });
+  });
+
+  router.get("/me", requireUser, (req, res) => {
+    res.json({ user: presentUser(req.user!) });
+  });
+
+  router.post("/login", ...signInRateLimits(config.RATE_LIMIT_SIGN_IN), async (req, res) => {
+    const input = parseInput(loginSchema, req.body);
+    const user = await new Promise<User | false>((resolve, reject) => {
+      req.body = input;
+      passport.authenticate("local", { session: false }, (err: unknown, u: User | false) => (err ? reject(err) : resolve(u)))(req, res, reject);
+    });
+    if (!user) throw new AppError(401, "INVALID_CREDENTIALS", "That e-mail and password do not match an account.");
+    await logIn(req, user);
+    await sequelize.transaction(async (transaction) => {
+      await User.update({ lastSignInAt: new Date() }, { where: { id: user.id }, transaction });
+      await recordEvent({ actor: user, action: "user.signed_in", subject: { type: "user", id: user.id }, ip: req.ip ?? null }, transaction);
+    });
+    res.json({ user: presentUser(user) });
+  });
+
+  router.post("/logout", async (req, res) => {
+    if (req.user) {
+      await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
+    }
+    await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+    res.clearCookie("fw.sid").status(204).end();
+  });
+
+  router.post("/register", mailRateLimit(30), async (req, res) => {
+    const input = parseInput(registerSchema, req.body);
+    const user = await sequelize.transaction((transaction) => userRegisterer({ input, ip: req.ip ?? null, transaction }));
+    await logIn(req, user);
+    mailer.send(welcomeMail({ to: user.email, name: user.name, organizationName: user.organization!.name, appUrl: config.appUrl }));
+    res.status(201).json({ user: presentUser(user) });
+  });
+
+  // Public and read-only: tells the invited person what they were invited as.
+  router.get("/invitations/:token", async (req, res) => {
+    const invitation = await authTokenFinder({ token: req.params.token, kind: "invitation" });
+    if (!invitation) throw new AppError(404, "INVITATION_INVALID", "This invitation link has expired or was already used.");
+    const org = invitation.organizationId ? await Organization.findByPk(invitation.organizationId) : null;
+    res.json({ email: invitation.email, role: invitation.role, organizationName: org?.kind === "customer" ? org.name : null, expiresAt: invitation.expiresAt });
+  });
+
+  router.post("/invitations/accept", async (req, res) => {
+    const input = parseInput(invitationAcceptSchema, req.body);
+    const user = await sequelize.transaction((transaction) => invitationAccepter({ input, ip: req.ip ?? null, transaction }));
+    await logIn(req, user);
+    res.json({ user: presentUser(user) });
+  });
+
+  router.post("/password-reset/request", mailRateLimit(20), async (req, res) => {
+    const { email } = parseInput(passwordResetRequestSchema, req.body);
+    const reset = await sequelize.transaction((transaction) => passwordResetRequester({ email, ip: req.ip ?? null, transaction }));
+    if (reset) mailer.send(passwordResetMail({ to: email, link: `${config.appUrl}/reset-password/${reset.token}`, expiresAt: reset.expiresAt }));
+    // The same answer whether or not the account exists.
+    res.status(202).json({ message: "If an account exists for that address, a reset link is on its way." });
+  });
+
+  router.post("/password-reset/confirm", async (req, res) => {
+    const input = parseInput(passwordResetConfirmSchema, req.body);
+    await sequelize.transaction((transaction) => passwordResetter({ token: input.token, password: input.password, ip: req.ip ?? null, transaction }));
+    res.status(204).end();
+  });
+
+  router.patch("/me", requireUser, async (req, res) => {
+    const input = parseInput(profileSchema, req.body);
+    const user = req.user!;
+    await sequelize.transaction(async (transaction) => {
+      await User.update({ name: input.name }, { where: { id: user.id }, transaction });
+      await recordEvent({ actor: user, action: "user.profile_updated", subject: { type: "user", id: user.id }, data: { name: input.name }, ip: req.ip ?? null }, transaction);
+    });
+    user.name = input.name;
+    res.json({ user: presentUser(user) });
+  });
+
+  router.post("/password", requireUser, ...signInRateLimits(config.RATE_LIMIT_SIGN_IN), async (req, res) => {
+    const input = parseInput(passwordChangeSchema, req.body);
+    await sequelize.transaction(async (transaction) => {
+      const user = await User.findByPk(req.user!.id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!user?.passwordHash) throw AuthenticationError();
+      if (!(await checkPassword(input.currentPassword, user.passwordHash))) {
+        throw new AppError(400, "VALIDATION_FAILED", "The current password is not right.", { currentPassword: "is not right" });
+      }
+      user.passwordHash = await hashPassword(input.newPassword);
+      await user.save({ transaction });
+      await recordEvent({ actor: user, action: "password.changed", subject: { type: "user", id: user.id }, ip: req.ip ?? null }, transaction);
+    });
+    res.status(204).end();
+  });
+
+  return router;
+}
