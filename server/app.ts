@@ -16,7 +16,7 @@ import { getSequelize } from "./db/sequelize";
 import type { AppDeps } from "./deps";
 import { createMailer, type Mailer } from "./jobs/mailer";
 import { apiNotFound, onError } from "./middleware/on-error";
-import { createCsrf } from "./middleware/security";
+import { createCsrf, publicRateLimit } from "./middleware/security";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { healthRouter } from "./routes/health";
@@ -44,7 +44,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
   initModels(sequelize);
   const mailer = options.mailer ?? createMailer({ host: config.SMTP_HOST, port: config.SMTP_PORT, from: config.MAIL_FROM, logger });
-  const deps: AppDeps = { config, sequelize, mailer, logger };
+  const deps: AppDeps = { config, sequelize, mailer, logger, publicLimit: publicRateLimit(config.RATE_LIMIT_PUBLIC) };
   const secure = config.appUrl.startsWith("https://");
 
   const app = express() as FluxwrightApp;
@@ -90,6 +90,11 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const api = express.Router();
   api.use(express.json({ limit: "200kb" }));
   api.use(healthRouter(deps));
+
+  // Public computations and reference data: they change nothing, so they run before the session
+  // (no session row, no CSRF token); each of their routes takes `deps.publicLimit`. Add public routers here.
+
+  // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
   api.use("/auth", authRouter({ ...deps, passport, generateCsrfToken: csrf.generateCsrfToken }));
   api.use(usersRouter(deps));

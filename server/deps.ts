@@ -1,3 +1,4 @@
+import type { RequestHandler } from "express";
 import type { Logger } from "pino";
 import type { Sequelize } from "sequelize";
 import type { Config } from "./config";
@@ -9,4 +10,6 @@ export interface AppDeps {
   sequelize: Sequelize;
   mailer: Mailer;
   logger: Logger;
+  /** the per-address limit every public route takes (RATE_LIMIT_PUBLIC; 0 turns it off) */
+  publicLimit: RequestHandler;
 }

@@ -29,6 +29,11 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     res.set("Cache-Control", "no-store").json({ csrfToken: deps.generateCsrfToken(req, res) });
   });
 
+  // What the client asks on every load: 200 with user null when signed out, so the console stays clean.
+  router.get("/session", (req, res) => {
+    res.set("Cache-Control", "no-store").json({ user: req.user ? presentUser(req.user) : null });
+  });
+
   router.get("/me", requireUser, (req, res) => {
     res.json({ user: presentUser(req.user!) });
   });

@@ -1,0 +1,82 @@
+import { describe, expect, it } from "vitest";
+import { DEMO_PASSWORD, useBrowser } from "../support/browser";
+import { inbox } from "../support/app";
+
+const h = useBrowser();
+
+const demo = [
+  { email: "customer@demo.test", role: "customer", heading: /welcome/i },
+  { email: "operator@demo.test", role: "operator", heading: /welcome/i },
+  { email: "qa@demo.test", role: "qa", heading: /welcome/i },
+  { email: "admin@demo.test", role: "admin", heading: /welcome/i },
+];
+
+describe("demo users sign in through the form", () => {
+  for (const d of demo) {
+    it(`${d.role} lands on their home with no console errors and nothing leaving the machine`, async () => {
+      const { page, consoleErrors, offMachine } = await h.newPage();
+      await page.goto(`${h.baseUrl}/sign-in`);
+      await page.getByLabel(/e-?mail/i).fill(d.email);
+      await page.getByLabel(/^password/i).fill(DEMO_PASSWORD);
+      await page.getByRole("button", { name: /^sign in$/i }).click();
+      await page.getByRole("heading", { level: 1, name: d.heading }).waitFor();
+      expect(new URL(page.url()).pathname).toBe("/");
+      await h.shot(page, `home-${d.role}`);
+      expect(consoleErrors).toEqual([]);
+      expect(offMachine).toEqual([]);
+      await page.getByRole("button", { name: /sign out/i }).click();
+      await page.getByRole("link", { name: /^sign in$/i }).first().waitFor();
+      await page.close();
+    });
+  }
+
+  it("a wrong password shows a message and stays on the form", async () => {
+    const { page } = await h.newPage();
+    await page.goto(`${h.baseUrl}/sign-in`);
+    await page.getByLabel(/e-?mail/i).fill("customer@demo.test");
+    await page.getByLabel(/^password/i).fill("not-the-password");
+    await page.getByRole("button", { name: /^sign in$/i }).click();
+    await page.getByText(/do not match/i).waitFor();
+    await h.shot(page, "sign-in-wrong-password");
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    await page.close();
+  });
+});
+
+describe("a new user, as they would", () => {
+  it("registers, signs out, resets the password from the mailed link and signs in again", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    const email = `browser-${Date.now()}@example.test`;
+    await page.goto(`${h.baseUrl}/register`);
+    await page.getByLabel(/your name/i).fill("Noor Ellery");
+    await page.getByLabel(/e-?mail/i).fill(email);
+    await page.getByLabel(/organi[sz]ation/i).fill(`Ellery Magnetics ${Date.now()}`);
+    await page.getByLabel(/^password/i).fill("a-long-password-1");
+    await page.getByLabel(/confirm|repeat/i).fill("a-long-password-1");
+    await h.shot(page, "register-filled");
+    await page.getByRole("button", { name: /create account|register/i }).click();
+    await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+    await page.getByRole("button", { name: /sign out/i }).click();
+
+    await page.goto(`${h.baseUrl}/forgot-password`);
+    await page.getByLabel(/e-?mail/i).fill(email);
+    await page.getByRole("button", { name: /send|reset/i }).click();
+    await page.getByText(/on its way/i).waitFor();
+    const mails = await inbox(h.app, email);
+    const link = mails.map((m) => m.text.match(/https?:\/\/\S+\/reset-password\/[\w-]+/)?.[0]).find(Boolean)!;
+    expect(link).toBeTruthy();
+    await page.goto(`${h.baseUrl}${new URL(link).pathname}`);
+    await page.getByLabel(/new password/i).first().fill("another-long-password");
+    const confirm = page.getByLabel(/confirm|repeat/i);
+    if (await confirm.count()) await confirm.fill("another-long-password");
+    await page.getByRole("button", { name: /set|save|reset/i }).click();
+    await page.waitForURL(/sign-in/);
+    await page.getByLabel(/e-?mail/i).fill(email);
+    await page.getByLabel(/^password/i).fill("another-long-password");
+    await page.getByRole("button", { name: /^sign in$/i }).click();
+    await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+    await h.shot(page, "after-reset-home");
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
+});

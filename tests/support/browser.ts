@@ -1,0 +1,66 @@
+// Chromium from Debian driven by playwright-core, against the built client served by the real server.
+import { mkdirSync, mkdtempSync, rmSync } from "node:fs";
+import type { AddressInfo } from "node:net";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { chromium, type BrowserContext, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
+import { createApp, type FluxwrightApp } from "../../server/app";
+import { seedDemo } from "../../server/db/seed";
+import { closeSequelize } from "../../server/db/sequelize";
+import { testConfig } from "./app";
+
+export const SCREENSHOTS = path.resolve(".test-results/screenshots");
+export const DEMO_PASSWORD = "fluxwright-demo";
+
+export interface BrowserHarness {
+  baseUrl: string;
+  app: FluxwrightApp;
+  context: BrowserContext;
+  /** a new page that records console errors and any request leaving the machine */
+  newPage(): Promise<{ page: Page; consoleErrors: string[]; offMachine: string[] }>;
+  shot(page: Page, name: string): Promise<void>;
+}
+
+export function useBrowser(): BrowserHarness {
+  const h = {} as BrowserHarness;
+  let server: import("node:http").Server;
+  let profile: string;
+  beforeAll(async () => {
+    const config = testConfig({ RATE_LIMIT_PUBLIC: "0" });
+    h.app = createApp({ config, serveClient: true });
+    await seedDemo(h.app.locals.deps.sequelize, { password: DEMO_PASSWORD });
+    server = h.app.listen(0, "127.0.0.1");
+    await new Promise((r) => server.once("listening", r));
+    h.baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    profile = mkdtempSync(path.join(tmpdir(), "fw-chromium-"));
+    mkdirSync(SCREENSHOTS, { recursive: true });
+    h.context = await chromium.launchPersistentContext(profile, {
+      executablePath: "/usr/bin/chromium",
+      headless: true,
+      viewport: { width: 1280, height: 860 },
+      args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    });
+    h.newPage = async () => {
+      const page = await h.context.newPage();
+      const consoleErrors: string[] = [];
+      const offMachine: string[] = [];
+      page.on("console", (m) => { if (m.type() === "error") consoleErrors.push(m.text()); });
+      page.on("pageerror", (e) => consoleErrors.push(String(e)));
+      page.on("request", (r) => {
+        const u = new URL(r.url());
+        if (!["127.0.0.1", "localhost"].includes(u.hostname) && !["data:", "blob:"].includes(u.protocol)) offMachine.push(r.url());
+      });
+      return { page, consoleErrors, offMachine };
+    };
+    h.shot = async (page, name) => { await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true }); };
+  });
+  afterAll(async () => {
+    await h.context?.close();
+    await new Promise((r) => server?.close(r));
+    await h.app?.locals.close();
+    await closeSequelize();
+    if (profile) rmSync(profile, { recursive: true, force: true });
+  });
+  return h;
+}
