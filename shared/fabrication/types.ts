@@ -1,0 +1,62 @@
+/** Shared shapes of the fabrication engine. Lengths mm, areas mm², masses kg. */
+
+export type Point = [number, number];
+export type Segment = [Point, Point];
+
+export interface Warning {
+  code: string;
+  message: string;
+}
+
+/** Square corner relief: lower-left corner (x, y) and side. */
+export interface Relief {
+  x: number;
+  y: number;
+  size: number;
+}
+
+export interface CircleShape {
+  cx: number;
+  cy: number;
+  diameter: number;
+}
+
+/** Flat pattern for drawings and DXF: cut outline (closed), bend lines, reliefs, disc blanks. */
+export interface FlatPatternGeometry {
+  outline: Point[];
+  bendLines: Segment[];
+  reliefs: Relief[];
+  circles: CircleShape[];
+}
+
+/** Raised when an input passed the schema but cannot be built; `field` names the request field. */
+export class FabricationInputError extends Error {
+  constructor(
+    public readonly field: string,
+    message: string,
+  ) {
+    super(message);
+    this.name = "FabricationInputError";
+  }
+}
+
+export function requirePositive(value: number, field: string): void {
+  if (!Number.isFinite(value) || value <= 0) throw new FabricationInputError(field, `${field} must be a positive number of millimetres`);
+}
+
+export function requireNonNegative(value: number, field: string): void {
+  if (!Number.isFinite(value) || value < 0) throw new FabricationInputError(field, `${field} must be zero or positive`);
+}
+
+/** Shoelace area of a simple polygon (absolute value). */
+export function polygonArea(points: readonly Point[]): number {
+  let s = 0;
+  for (let i = 0, n = points.length; i < n; i++) {
+    const [x1, y1] = points[i];
+    const [x2, y2] = points[(i + 1) % n];
+    s += x1 * y2 - x2 * y1;
+  }
+  return Math.abs(s) / 2;
+}
+
+export const discArea = (diameter: number): number => (Math.PI * diameter * diameter) / 4;

@@ -1,0 +1,64 @@
+/**
+ * Price list, stock sheets and forming limits as zod schemas, so the planner's edits are
+ * validated before they reach a quote. Money is integer cents in the list's ISO 4217 currency.
+ */
+import { z } from "zod";
+
+const cents = z.number().int().nonnegative();
+const percent = z.number().min(0).max(100);
+
+export const stockSheetSchema = z.object({
+  materialId: z.string().min(1),
+  thickness_mm: z.number().positive(),
+  width_mm: z.number().positive(),
+  length_mm: z.number().positive(),
+});
+export type StockSheet = z.infer<typeof stockSheetSchema>;
+
+/** Limiting draw ratios (mean blank diameter / mean cup diameter) per material [practice]. */
+export const formingLimitsSchema = z.object({
+  materialId: z.string().min(1),
+  firstDrawRatio: z.number().min(1.05).max(2.5),
+  redrawRatio: z.number().min(1.02).max(2),
+  processAnnealBetweenDraws: z.boolean(),
+});
+export type FormingLimits = z.infer<typeof formingLimitsSchema>;
+
+export const materialPriceSchema = z.object({
+  materialId: z.string().min(1),
+  pricePerKg_cents: cents,
+  /** what the scrap dealer pays back per kg of offcut */
+  scrapCreditPerKg_cents: cents,
+});
+export type MaterialPrice = z.infer<typeof materialPriceSchema>;
+
+export const quantityBreakSchema = z.object({
+  minQuantity: z.number().int().positive(),
+  discountPercent: percent,
+});
+export type QuantityBreak = z.infer<typeof quantityBreakSchema>;
+
+export const priceListSchema = z.object({
+  currency: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code, e.g. EUR"),
+  materials: z.array(materialPriceSchema).min(1),
+  /** credit offcuts at the material's scrap price */
+  scrapCredit: z.boolean(),
+  blankingPerPart_cents: cents,
+  formingPerDrawStage_cents: cents,
+  formingPerBend_cents: cents,
+  processAnnealPerAnneal_cents: cents,
+  weldingPerMetre_cents: cents,
+  cleaningPerPart_cents: cents,
+  hydrogenAnnealPerLoad_cents: cents,
+  partsPerFurnaceLoad: z.number().int().positive(),
+  verificationPerSampledPart_cents: cents,
+  packingPerPart_cents: cents,
+  setupPerJob_cents: cents,
+  marginPercent: percent,
+  quantityBreaks: z.array(quantityBreakSchema),
+  /** material utilisation assumed when no stock sheet fits a part's alloy and gauge */
+  fallbackUtilisation: z.number().gt(0).max(1),
+  stockSheets: z.array(stockSheetSchema),
+  formingLimits: z.array(formingLimitsSchema),
+});
+export type PriceList = z.infer<typeof priceListSchema>;
