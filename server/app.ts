@@ -19,7 +19,10 @@ import { apiNotFound, onError } from "./middleware/on-error";
 import { createCsrf, publicRateLimit } from "./middleware/security";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
+import { blanksRouter } from "./routes/blanks";
 import { healthRouter } from "./routes/health";
+import { priceEstimatesRouter } from "./routes/price-estimates";
+import { shopRatesRouter } from "./routes/shop-rates";
 import { usersRouter } from "./routes/users";
 
 const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../dist");
@@ -93,11 +96,14 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
 
   // Public computations and reference data: they change nothing, so they run before the session
   // (no session row, no CSRF token); each of their routes takes `deps.publicLimit`. Add public routers here.
+  api.use(blanksRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
   api.use("/auth", authRouter({ ...deps, passport, generateCsrfToken: csrf.generateCsrfToken }));
   api.use(usersRouter(deps));
+  api.use(priceEstimatesRouter(deps));
+  api.use(shopRatesRouter(deps));
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -11,8 +11,8 @@ const section = (title: string) => rows.push({ name: `— ${title}`, value: NaN,
 
 // Sections contributed by the engines, loaded when present.
 for (const [file, fn, title] of [
-  ["./physics.ts", "benchPhysics", "prediction engine (in-process)"],
-  ["./fabrication.ts", "benchFabrication", "fabrication engine (in-process)"],
+  ["./physics", "benchPhysics", "prediction engine (in-process)"],
+  ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
 ] as const) {
   try {
     const mod = (await import(file)) as Record<string, () => BenchRow[]>;
@@ -26,7 +26,7 @@ for (const [file, fn, title] of [
 section("HTTP, 10 connections, RATE_LIMIT_PUBLIC=0");
 const cases: HttpCase[] = [{ name: "health", path: "/api/health", minRatio: 0.8 }];
 try {
-  const { httpCases } = (await import("./http-cases.ts")) as { httpCases: HttpCase[] };
+  const { httpCases } = (await import("./http-cases")) as { httpCases: HttpCase[] };
   cases.push(...httpCases);
 } catch (err) {
   if ((err as NodeJS.ErrnoException).code !== "ERR_MODULE_NOT_FOUND") throw err;

@@ -1,7 +1,10 @@
 import type { Sequelize } from "sequelize";
 import type { Role } from "../../shared/schemas/auth";
 import { hashPassword } from "../auth/passwords";
-import { Organization, User, initModels, recordEvent } from "../models";
+import type { Transaction } from "sequelize";
+import { defaultPriceList } from "../../shared/fabrication";
+import { priceListSchema } from "../../shared/schemas/pricing";
+import { Organization, PriceListVersion, User, initModels, recordEvent } from "../models";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -43,6 +46,21 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string })
         await recordEvent({ actor: null, organizationId, action: "user.seeded", subject: { type: "user", id: user.id } }, transaction);
       }
     }
+    if (await seedShopRates(transaction)) created.push("price list version 1");
   });
   return { created };
+}
+
+/**
+ * Version 1 of the shop rates: the engine's demo price list, stock sheets and forming limits
+ * (invented demo values, not quotations). Only when no version exists; safe to race
+ * (ON CONFLICT DO NOTHING on the version), so parallel test files may all call it.
+ */
+export async function seedShopRates(transaction?: Transaction): Promise<boolean> {
+  if (await PriceListVersion.count({ transaction })) return false;
+  await PriceListVersion.bulkCreate(
+    [{ version: 1, part: "seed", data: priceListSchema.parse(defaultPriceList), createdById: null }],
+    { transaction, ignoreDuplicates: true },
+  );
+  return true;
 }

@@ -2,10 +2,12 @@ import type { Sequelize } from "sequelize";
 import { AuthToken } from "./AuthToken";
 import { Event } from "./Event";
 import { Organization } from "./Organization";
+import { PriceListVersion } from "./PriceListVersion";
 import { StoredFile } from "./StoredFile";
 import { User } from "./User";
 
 export { AuthToken, Event, Organization, StoredFile, User };
+export { PriceListVersion };
 export { recordEvent } from "./Event";
 
 let bound: Sequelize | undefined;
@@ -17,4 +19,6 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [Organization, User, AuthToken, Event, StoredFile]) model.initModel(sequelize);
   Organization.hasMany(User, { foreignKey: "organizationId", as: "users" });
   User.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
+  PriceListVersion.initModel(sequelize);
+  PriceListVersion.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
 }

@@ -20,6 +20,7 @@ export * from "./parts";
 export * from "./nesting";
 export * from "./pricing";
 export * from "./dxf";
+export * from "./filenames";
 
 /** Shown where blanks are sheared, punched and formed [practice]. */
 export const PRESS_WORK_CAUTION =

@@ -69,7 +69,9 @@ describe("a new user, as they would", () => {
     await page.getByLabel(/new password/i).first().fill("another-long-password");
     const confirm = page.getByLabel(/confirm|repeat/i);
     if (await confirm.count()) await confirm.fill("another-long-password");
-    await page.getByRole("button", { name: /set|save|reset/i }).click();
+    await page.getByRole("button", { name: /set the new password/i }).click();
+    await page.getByText(/password changed/i).waitFor();
+    await page.getByRole("main").getByRole("link", { name: /^sign in$/i }).click();
     await page.waitForURL(/sign-in/);
     await page.getByLabel(/e-?mail/i).fill(email);
     await page.getByLabel(/^password/i).fill("another-long-password");

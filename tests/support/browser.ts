@@ -4,7 +4,7 @@ import type { AddressInfo } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { chromium, type BrowserContext, type Page } from "playwright-core";
-import { afterAll, beforeAll } from "vitest";
+import { afterAll, afterEach, beforeAll } from "vitest";
 import { createApp, type FluxwrightApp } from "../../server/app";
 import { seedDemo } from "../../server/db/seed";
 import { closeSequelize } from "../../server/db/sequelize";
@@ -26,6 +26,13 @@ export function useBrowser(): BrowserHarness {
   const h = {} as BrowserHarness;
   let server: import("node:http").Server;
   let profile: string;
+  let lastPage: Page | undefined;
+  // A failing test leaves a picture of where it stood.
+  afterEach(async (ctx) => {
+    if (ctx.task.result?.state === "fail" && lastPage && !lastPage.isClosed()) {
+      await lastPage.screenshot({ path: path.join(SCREENSHOTS, `FAILED-${ctx.task.name.replace(/\W+/g, "-").slice(0, 80)}.png`), fullPage: true }).catch(() => {});
+    }
+  });
   beforeAll(async () => {
     const config = testConfig({ RATE_LIMIT_PUBLIC: "0" });
     h.app = createApp({ config, serveClient: true });
@@ -43,6 +50,7 @@ export function useBrowser(): BrowserHarness {
     });
     h.newPage = async () => {
       const page = await h.context.newPage();
+      lastPage = page;
       const consoleErrors: string[] = [];
       const offMachine: string[] = [];
       page.on("console", (m) => { if (m.type() === "error") consoleErrors.push(m.text()); });

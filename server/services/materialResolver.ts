@@ -1,0 +1,28 @@
+import { DEFAULT_DRAW_LIMITS, formingLimitsFor, type BlankMaterial } from "../../shared/fabrication";
+import type { PriceList } from "../../shared/schemas/pricing";
+import { findMaterial } from "../../shared/physics/materials";
+import { ValidationError } from "../errors";
+
+export interface ResolvedMaterial extends Required<Pick<BlankMaterial, "density_kg_m3" | "formingLimits">> {
+  id: string;
+  name: string;
+}
+
+/**
+ * A material id → density (from the material library) and forming limits (from the shop's
+ * current price list, else the engine's defaults). Unknown ids are a 400 naming `field`.
+ * The library is the shared seed data until the materials table serves it.
+ */
+export function materialResolver(props: { id: string; field: string; priceList?: PriceList | null }): ResolvedMaterial {
+  const m = findMaterial(props.id);
+  if (!m) throw ValidationError({ [props.field]: `unknown material "${props.id}"` });
+  const limits = props.priceList ? formingLimitsFor(m.id, props.priceList) : undefined;
+  return {
+    id: m.id,
+    name: m.name,
+    density_kg_m3: m.density_kg_m3,
+    formingLimits: limits
+      ? { firstDrawRatio: limits.firstDrawRatio, redrawRatio: limits.redrawRatio, processAnnealBetweenDraws: limits.processAnnealBetweenDraws }
+      : DEFAULT_DRAW_LIMITS,
+  };
+}

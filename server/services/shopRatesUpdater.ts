@@ -1,0 +1,76 @@
+import type { Transaction } from "sequelize";
+import { priceListSchema, type PriceList } from "../../shared/schemas/pricing";
+import type { FormingLimitsUpdate, PriceRates, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import { AppError, ValidationError } from "../errors";
+import { fieldErrors } from "../middleware/validate";
+import { PriceListVersion, recordEvent } from "../models";
+import type { Actor } from "../policies/utils";
+
+export type ShopRatesChange =
+  | { part: "price-list"; input: PriceRates }
+  | { part: "stock-sheets"; input: StockSheetsUpdate }
+  | { part: "forming-limits"; input: FormingLimitsUpdate };
+
+export interface DiffEntry {
+  path: string;
+  before: unknown;
+  after: unknown;
+}
+
+const MAX_DIFF_ENTRIES = 200;
+
+/** Leaf-by-leaf difference of two JSON values, paths dotted like the API's field names. */
+export function jsonDiff(before: unknown, after: unknown, path = "", out: DiffEntry[] = []): DiffEntry[] {
+  if (out.length >= MAX_DIFF_ENTRIES) return out;
+  const isObj = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null;
+  if (isObj(before) && isObj(after) && Array.isArray(before) === Array.isArray(after)) {
+    const keys = new Set([...Object.keys(before), ...Object.keys(after)]);
+    for (const k of keys) jsonDiff(before[k], after[k], path ? `${path}.${k}` : k, out);
+    return out;
+  }
+  if (JSON.stringify(before) !== JSON.stringify(after)) out.push({ path: path || "body", before: before ?? null, after: after ?? null });
+  return out;
+}
+
+/** The list that is current now, or a 503 when nobody has set one up (the seed does). */
+export async function currentShopRates(transaction?: Transaction, lock = false): Promise<PriceListVersion> {
+  const current = await PriceListVersion.current({ transaction, lock });
+  if (!current) throw new AppError(503, "SHOP_RATES_MISSING", "No price list has been set up yet; run the demo seed or ask the planner.");
+  return current;
+}
+
+/**
+ * Replaces one part of the current price list by inserting the next version, and records the
+ * before/after difference as an event in the same transaction. The current row is locked so two
+ * planners saving at once get consecutive versions, never the same one.
+ */
+export async function shopRatesUpdater(props: { actor: Actor; change: ShopRatesChange; ip: string | null; transaction: Transaction }): Promise<{ version: PriceListVersion; diff: DiffEntry[] }> {
+  const { actor, change, transaction } = props;
+  const current = await currentShopRates(transaction, true);
+  const before = current.data;
+  const next: PriceList =
+    change.part === "price-list"
+      ? { ...change.input, stockSheets: before.stockSheets, formingLimits: before.formingLimits }
+      : change.part === "stock-sheets"
+        ? { ...before, stockSheets: change.input.stockSheets }
+        : { ...before, formingLimits: change.input.formingLimits };
+  // the merged document is what quotes read, so it is checked whole
+  const parsed = priceListSchema.safeParse(next);
+  if (!parsed.success) throw ValidationError(fieldErrors(parsed.error));
+  const diff = jsonDiff(before, parsed.data);
+  const version = await PriceListVersion.create(
+    { version: current.version + 1, part: change.part as ShopRatePart, data: parsed.data, createdById: actor.id },
+    { transaction },
+  );
+  await recordEvent(
+    {
+      actor,
+      action: `shop-rates.${change.part}.updated`,
+      subject: { type: "price_list", id: String(version.version) },
+      data: { fromVersion: current.version, toVersion: version.version, changes: diff },
+      ip: props.ip,
+    },
+    transaction,
+  );
+  return { version, diff };
+}

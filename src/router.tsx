@@ -1,0 +1,81 @@
+import type { ComponentType } from "react";
+import type { QueryClient } from "@tanstack/react-query";
+import { createBrowserRouter, type LoaderFunction, type RouteObject } from "react-router-dom";
+import { authKeys, meQueryOptions } from "./api/auth";
+import { setUnauthorizedHandler } from "./api/client";
+import { queryClient } from "./api/query-client";
+import { paths } from "./config/paths";
+import { AppLayout, BootScreen } from "./components/layout/app-layout";
+import { RootErrorPage, RouteErrorContent } from "./pages/error";
+// Eager: the error page shows it for a 404 thrown by a loader, so it is in the entry anyway.
+import { NotFoundContent } from "./pages/not-found";
+
+/**
+ * A lazy page module exports `Component` and, when it needs data before rendering,
+ * `makeLoader(queryClient)`: the loader warms the cache with the same query options the
+ * component then reads, so the page renders with its data instead of a spinner.
+ */
+interface PageModule {
+  Component: ComponentType;
+  makeLoader?: (queryClient: QueryClient) => LoaderFunction;
+}
+
+function page(load: () => Promise<PageModule>): RouteObject["lazy"] {
+  return async () => {
+    const { Component, makeLoader } = await load();
+    return makeLoader ? { Component, loader: makeLoader(queryClient) } : { Component };
+  };
+}
+
+// Who is signed in decides the navigation on every page, so the root resolves it first.
+// A failure here (server down) is left to the layout's query, not turned into an error page.
+const rootLoader: LoaderFunction = async () => {
+  await queryClient.ensureQueryData(meQueryOptions).catch(() => undefined);
+  return null;
+};
+
+export const routes: RouteObject[] = [
+  {
+    id: "root",
+    path: paths.home.path,
+    element: <AppLayout />,
+    loader: rootLoader,
+    errorElement: <RootErrorPage />,
+    hydrateFallbackElement: <BootScreen />,
+    children: [
+      {
+        // Errors from a page render inside the layout, so the header stays usable.
+        errorElement: <RouteErrorContent />,
+        children: [
+          { index: true, lazy: page(() => import("./pages/home")) },
+          { path: paths.signIn.path, lazy: page(() => import("./pages/sign-in")) },
+          { path: paths.register.path, lazy: page(() => import("./pages/register")) },
+          { path: paths.forgotPassword.path, lazy: page(() => import("./pages/forgot-password")) },
+          { path: paths.resetPassword.path, lazy: page(() => import("./pages/reset-password")) },
+          { path: paths.invitation.path, lazy: page(() => import("./pages/invitation")) },
+          { path: paths.account.path, lazy: page(() => import("./pages/account")) },
+          { path: paths.designCheck.path, lazy: page(() => import("./pages/design-check")) },
+          { path: paths.flatBlank.path, lazy: page(() => import("./pages/flat-blank")) },
+          { path: paths.adminShopRates.path, lazy: page(() => import("./pages/admin-shop-rates")) },
+          { path: paths.adminUsers.path, lazy: page(() => import("./pages/admin-users")) },
+          { path: paths.notFound.path, element: <NotFoundContent /> },
+        ],
+      },
+    ],
+  },
+];
+
+/** Called once from main.tsx; kept out of module scope so the route table can be imported without a browser. */
+export function createAppRouter() {
+  const router = createBrowserRouter(routes);
+  // A 401 on a protected call means the session ended: forget the user and go to sign-in,
+  // keeping the page they were on so sign-in can bring them back.
+  setUnauthorizedHandler(() => {
+    queryClient.setQueryData(authKeys.me, null);
+    const { pathname, search } = router.state.location;
+    if (pathname !== paths.signIn.path) {
+      void router.navigate(paths.signIn.href(pathname + search), { replace: true });
+    }
+  });
+  return router;
+}

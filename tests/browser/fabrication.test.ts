@@ -1,0 +1,119 @@
+import { readFileSync } from "node:fs";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { DEMO_PASSWORD, useBrowser } from "../support/browser";
+
+const h = useBrowser();
+const box = { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, thickness_mm: 1.0, bendRadius_mm: 1.5, kFactor: 0.44 };
+
+async function signInAs(page: Page, email: string) {
+  await page.goto(`${h.baseUrl}/sign-in`);
+  await page.getByLabel(/e-?mail/i).fill(email);
+  await page.getByLabel(/^password/i).fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: /^sign in$/i }).click();
+  await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+}
+
+const fill = async (page: Page, label: RegExp, value: string) => page.getByLabel(label).fill(value);
+
+describe("flat blank, as a new visitor would", () => {
+  it("enters the box example, sees the API's numbers and a drawing to scale, downloads the DXF", async () => {
+    const { page, consoleErrors, offMachine } = await h.newPage();
+    await page.goto(`${h.baseUrl}/`);
+    await page.getByRole("link", { name: /^flat blank$/i }).first().click();
+    await page.getByRole("heading", { level: 1, name: /flat blank/i }).waitFor();
+    await page.getByLabel(/shape and method/i).selectOption("box-bent");
+    await fill(page, /^width/i, "80");
+    await fill(page, /^depth/i, "60");
+    await fill(page, /^height/i, "40");
+    await fill(page, /sheet thickness/i, "1");
+    await fill(page, /inside bend radius/i, "1.5");
+    await fill(page, /^k-factor/i, "0.44");
+
+    const api = await (await page.request.post(`${h.baseUrl}/api/blanks`, { data: { ...box, material: "ni80" } })).json();
+    const expected = `${+api.blank.length_mm.toFixed(2)} × ${+api.blank.width_mm.toFixed(2)} mm`;
+    expect(expected).toBe("160.09 × 140.09 mm".replace("160.09", String(+(160.0946897).toFixed(2))).replace("140.09", String(+(140.0946897).toFixed(2))));
+    await page.getByTestId("blank-size").filter({ hasText: expected }).waitFor();
+    await page.getByTestId("bend-allowance").filter({ hasText: `${+api.bendAllowance_mm.toFixed(3)} mm` }).waitFor();
+
+    // the drawing is to scale: the outline's width in the SVG's millimetre units is the blank length
+    const svg = page.getByRole("img", { name: /cross-shaped blank 160\.09 by 140\.09 mm/i });
+    await svg.waitFor();
+    const measured = await svg.locator('polygon[data-role="outline"]').evaluate((el) => {
+      const b = (el as SVGGraphicsElement).getBBox();
+      return { w: b.width, h: b.height };
+    });
+    expect(measured.w).toBeCloseTo(api.blank.length_mm, 6);
+    expect(measured.h).toBeCloseTo(api.blank.width_mm, 6);
+    const viewBox = (await svg.getAttribute("viewBox"))!.split(" ").map(Number);
+    expect(viewBox[2]).toBeGreaterThan(api.blank.length_mm);
+    expect(await svg.locator('[data-role="bend-line"]').count()).toBe(4);
+    expect(await svg.locator('[data-role="bend-line"]').first().getAttribute("stroke-dasharray")).toBeTruthy();
+    await expect(svg.getByText(`${+api.blank.length_mm.toFixed(2)} mm`).count()).resolves.toBeGreaterThan(0);
+    await page.getByText(/cut-resistant gloves/i).waitFor();
+    await h.shot(page, "flat-blank-box");
+
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: /download dxf/i }).click()]);
+    expect(download.suggestedFilename()).toBe("flat-pattern-box-80x60x40.dxf");
+    const dxf = readFileSync((await download.path())!, "utf8");
+    expect(dxf).toMatch(/DASHED/);
+    expect(dxf.trimEnd().endsWith("EOF")).toBe(true);
+
+    // a bad value: the server's message beside the field, the last drawing kept
+    await fill(page, /^k-factor/i, "0.7");
+    await page.getByText(/between 0 and 0\.5/i).first().waitFor();
+    await expect(page.getByLabel(/^k-factor/i).getAttribute("aria-invalid")).resolves.toBe("true");
+    await page.getByTestId("blank-size").waitFor();
+    await h.shot(page, "flat-blank-bad-k");
+
+    await page.getByLabel(/shape and method/i).selectOption("cylinder-drawn");
+    await fill(page, /inside diameter/i, "50");
+    await fill(page, /inside height/i, "60");
+    await fill(page, /inside corner radius/i, "3");
+    await page.getByTestId("blank-size").filter({ hasText: /Ø 120\.9/ }).waitFor();
+    await page.getByRole("heading", { name: /draw stages/i }).waitFor();
+    await h.shot(page, "flat-blank-drawn");
+
+    expect(consoleErrors.join("\n")).toBe("");
+    expect(offMachine).toEqual([]);
+    await page.close();
+  });
+
+  it("a signed-in customer sees the price build-up and the nesting on the sheet", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await signInAs(page, "customer@demo.test");
+    await page.goto(`${h.baseUrl}/flat-blank`);
+    await fill(page, /^k-factor/i, "0.44");
+    await fill(page, /quantity/i, "25");
+    const table = page.getByTestId("price-table");
+    await table.waitFor();
+    await table.getByText(/Total for 25/).waitFor();
+    await page.getByRole("img", { name: /stock sheet/i }).waitFor();
+    expect(await table.locator("tbody tr").count()).toBeGreaterThanOrEqual(10);
+    await h.shot(page, "flat-blank-price");
+    expect(consoleErrors.join("\n")).toBe("");
+    await page.getByRole("button", { name: /sign out/i }).click();
+    await page.close();
+  });
+});
+
+describe("shop rates, as the planner", () => {
+  it("changes a rate, confirms, and sees the new version", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await signInAs(page, "admin@demo.test");
+    await page.getByRole("link", { name: /shop rates/i }).first().click();
+    await page.getByRole("heading", { level: 1, name: /shop rates/i }).waitFor();
+    const before = Number(await page.getByTestId("current-version").textContent());
+    await h.shot(page, "shop-rates");
+    const margin = page.getByLabel(/^margin/i);
+    await margin.fill(String(Number(await margin.inputValue()) + 1));
+    await page.getByRole("button", { name: /save prices/i }).click();
+    await page.getByRole("button", { name: new RegExp(`save as version ${before + 1}`, "i") }).click();
+    await page.getByText(new RegExp(`saved as version ${before + 1}`, "i")).waitFor();
+    await page.getByTestId("current-version").filter({ hasText: String(before + 1) }).waitFor();
+    await page.getByRole("list", { name: /versions/i }).getByText(/Cas Lindqvist/).first().waitFor();
+    await h.shot(page, "shop-rates-saved");
+    expect(consoleErrors.join("\n")).toBe("");
+    await page.close();
+  });
+});
