@@ -21,6 +21,8 @@ import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { blanksRouter } from "./routes/blanks";
 import { healthRouter } from "./routes/health";
+import { materialsAdminRouter, materialsPublicRouter } from "./routes/materials";
+import { predictionsRouter } from "./routes/predictions";
 import { priceEstimatesRouter } from "./routes/price-estimates";
 import { shopRatesRouter } from "./routes/shop-rates";
 import { usersRouter } from "./routes/users";
@@ -70,7 +72,25 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       strictTransportSecurity: secure,
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith("/api") || req.url === "/api/health" } }));
+  // Health first: probes poll it hard, and its answer needs no request log, body or session.
+  app.use("/api", healthRouter(deps));
+  const requestLog = pinoHttp({
+    logger,
+    autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },
+    // A request line, not its headers: cookies and CSRF tokens never reach the log.
+    serializers: {
+      req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({ id: req.id, method: req.method, url: req.url, remoteAddress: req.remoteAddress }),
+      res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+    },
+  });
+  // The prediction is asked for at every pause in typing: like health, no request line (pino-http's
+  // per-request child logger costs more than the prediction itself); on-error still logs its failures.
+  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep"]);
+  app.use((req, res, next) => {
+    if (!unlogged.has(req.path)) return requestLog(req, res, next);
+    req.log = logger;
+    next();
+  });
 
   // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
   // (a CSRF token, a sign-in), so public read-only routes create no session rows.
@@ -92,16 +112,18 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
 
   const api = express.Router();
   api.use(express.json({ limit: "200kb" }));
-  api.use(healthRouter(deps));
 
   // Public computations and reference data: they change nothing, so they run before the session
   // (no session row, no CSRF token); each of their routes takes `deps.publicLimit`. Add public routers here.
   api.use(blanksRouter(deps));
+  api.use(materialsPublicRouter(deps));
+  api.use(predictionsRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
   api.use("/auth", authRouter({ ...deps, passport, generateCsrfToken: csrf.generateCsrfToken }));
   api.use(usersRouter(deps));
+  api.use(materialsAdminRouter(deps));
   api.use(priceEstimatesRouter(deps));
   api.use(shopRatesRouter(deps));
   api.use(apiNotFound);
@@ -110,7 +132,8 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const serveClient = options.serveClient ?? existsSync(path.join(distDir, "index.html"));
   if (serveClient) {
     app.use(express.static(distDir, { index: false, maxAge: "1h", setHeaders: (res, file) => { if (file.includes(`${path.sep}assets${path.sep}`)) res.set("Cache-Control", "public, max-age=31536000, immutable"); } }));
-    app.get("/*splat", (_req, res) => res.sendFile(path.join(distDir, "index.html")));
+    // "/{*splat}" also matches "/" itself ("/*splat" needs at least one segment)
+    app.get("/{*splat}", (_req, res) => res.sendFile(path.join(distDir, "index.html")));
   }
   app.use(onError);
 

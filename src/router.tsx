@@ -57,6 +57,7 @@ export const routes: RouteObject[] = [
           { path: paths.designCheck.path, lazy: page(() => import("./pages/design-check")) },
           { path: paths.flatBlank.path, lazy: page(() => import("./pages/flat-blank")) },
           { path: paths.adminShopRates.path, lazy: page(() => import("./pages/admin-shop-rates")) },
+          { path: paths.adminMaterials.path, lazy: page(() => import("./pages/admin-materials")) },
           { path: paths.adminUsers.path, lazy: page(() => import("./pages/admin-users")) },
           { path: paths.notFound.path, element: <NotFoundContent /> },
         ],

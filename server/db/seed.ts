@@ -4,7 +4,8 @@ import { hashPassword } from "../auth/passwords";
 import type { Transaction } from "sequelize";
 import { defaultPriceList } from "../../shared/fabrication";
 import { priceListSchema } from "../../shared/schemas/pricing";
-import { Organization, PriceListVersion, User, initModels, recordEvent } from "../models";
+import { Material, Organization, PriceListVersion, User, initModels, recordEvent } from "../models";
+import { materialSeedRows } from "./material-rows";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -47,6 +48,8 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string })
       }
     }
     if (await seedShopRates(transaction)) created.push("price list version 1");
+    const materials = await seedMaterials(transaction);
+    if (materials.length) created.push(`materials ${materials.join(", ")}`);
   });
   return { created };
 }
@@ -63,4 +66,23 @@ export async function seedShopRates(transaction?: Transaction): Promise<boolean>
     { transaction, ignoreDuplicates: true },
   );
   return true;
+}
+
+/**
+ * The materials library from the engine's list with its source tags: adds the ids that are
+ * missing and leaves edited rows alone. Safe to race (ON CONFLICT DO NOTHING), so test files may call it.
+ */
+export async function seedMaterials(transaction?: Transaction): Promise<string[]> {
+  const have = new Set((await Material.findAll({ attributes: ["id"], transaction })).map((m) => m.id));
+  const missing = materialSeedRows().filter((r) => !have.has(r.id));
+  if (!missing.length) return [];
+  await Material.bulkCreate(
+    missing.map((r) => ({
+      id: r.id, name: r.name, muInitial: r.mu_initial, muMaximum: r.mu_maximum, saturationT: r.saturation_t,
+      resistivityOhmM: r.resistivity_ohm_m, densityKgM3: r.density_kg_m3, muCurve: JSON.parse(r.mu_curve),
+      asFormedFactor: r.as_formed_factor, source: r.source, sourceTags: JSON.parse(r.source_tags), active: true,
+    })),
+    { transaction, ignoreDuplicates: true },
+  );
+  return missing.map((r) => r.id);
 }

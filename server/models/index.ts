@@ -1,6 +1,7 @@
 import type { Sequelize } from "sequelize";
 import { AuthToken } from "./AuthToken";
 import { Event } from "./Event";
+import { Material } from "./Material";
 import { Organization } from "./Organization";
 import { PriceListVersion } from "./PriceListVersion";
 import { StoredFile } from "./StoredFile";
@@ -8,6 +9,7 @@ import { User } from "./User";
 
 export { AuthToken, Event, Organization, StoredFile, User };
 export { PriceListVersion };
+export { Material };
 export { recordEvent } from "./Event";
 
 let bound: Sequelize | undefined;
@@ -21,4 +23,5 @@ export function initModels(sequelize: Sequelize): void {
   User.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
   PriceListVersion.initModel(sequelize);
   PriceListVersion.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  Material.initModel(sequelize);
 }

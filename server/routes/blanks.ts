@@ -5,6 +5,7 @@ import type { AppDeps } from "../deps";
 import { ValidationError } from "../errors";
 import { parseInput } from "../middleware/validate";
 import { PriceListVersion } from "../models";
+import { materialCatalog } from "../services/materialCatalog";
 import { materialResolver, type ResolvedMaterial } from "../services/materialResolver";
 
 /** Flat blanks and their DXF: public computations, nothing stored. */
@@ -17,7 +18,7 @@ export function blanksRouter({ publicLimit }: AppDeps): Router {
     if (request.material) {
       // forming limits only matter for a draw; the other methods need no database round trip
       const list = request.method === "drawn" ? ((await PriceListVersion.current())?.data ?? null) : null;
-      material = materialResolver({ id: request.material, field: "material", priceList: list });
+      material = materialResolver({ id: request.material, field: "material", priceList: list, materials: (await materialCatalog()).list });
     }
     try {
       return { request, result: computeBlank(request, material), material };

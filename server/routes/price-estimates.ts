@@ -3,6 +3,7 @@ import { priceEstimateRequestSchema } from "../../shared/schemas/price-estimate"
 import type { AppDeps } from "../deps";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
+import { materialCatalog } from "../services/materialCatalog";
 import { priceEstimator } from "../services/priceEstimator";
 import { currentShopRates } from "../services/shopRatesUpdater";
 
@@ -15,6 +16,7 @@ export function priceEstimatesRouter(_deps: AppDeps): Router {
   router.post("/price-estimates", requireUser, async (req, res) => {
     const input = parseInput(priceEstimateRequestSchema, req.body);
     const current = await currentShopRates();
+    await materialCatalog(); // loaded, so the resolver reads the materials table
     const estimate = priceEstimator({ configuration: input.configuration, quantity: input.quantity, priceList: current.data });
     res.json({ ...estimate, priceListVersion: current.version });
   });

@@ -108,3 +108,15 @@ export function predictionIssueFields(error: z.ZodError): Record<string, string>
   }
   return fields;
 }
+
+// POST /api/predictions/sweep: the prediction body plus how many log-spaced frequencies.
+export const SWEEP_FROM_HZ = 1;
+export const SWEEP_TO_HZ = 10_000;
+export const sweepOptionsSchema = z.object({
+  points: z
+    .number({ error: "Points must be a whole number." })
+    .int({ error: "Points must be a whole number." })
+    .min(2, { error: "Ask for at least 2 points." })
+    .max(400, { error: "Ask for at most 400 points." })
+    .default(100),
+});

@@ -99,6 +99,11 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** A 401 is an expected answer here (sign-in, "who am I"), not a lost session. */
   anonymousOk?: boolean;
+  /**
+   * A public computation (prediction, blank): it changes nothing, so it goes without a CSRF token
+   * and a visitor who only computes never gets a session row.
+   */
+  computation?: boolean;
   /** "text": the answer is a file (a DXF drawing), returned as its text instead of parsed JSON. */
   responseType?: "json" | "text";
 }
@@ -126,7 +131,7 @@ async function readJson(response: Response): Promise<unknown> {
 async function request<T>(method: Method, path: string, options: RequestOptions = {}, isRetry = false): Promise<T> {
   const headers: Record<string, string> = { Accept: "application/json" };
   if (options.body !== undefined) headers["Content-Type"] = "application/json";
-  if (mutating.has(method)) headers["X-CSRF-Token"] = await getCsrfToken();
+  if (mutating.has(method) && !options.computation) headers["X-CSRF-Token"] = await getCsrfToken();
 
   let response: Response;
   try {

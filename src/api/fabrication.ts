@@ -24,14 +24,14 @@ export const blankKeys = {
 export const blankQueryOptions = (request: BlankRequestDraft) =>
   queryOptions({
     queryKey: blankKeys.detail(request),
-    queryFn: ({ signal }) => api.post<BlankResponse>("/api/blanks", request, { signal }),
+    queryFn: ({ signal }) => api.post<BlankResponse>("/api/blanks", request, { signal, computation: true }),
     // the drawing stays on screen while the next one is computed
     placeholderData: keepPreviousData,
     staleTime: Infinity,
   });
 
 /** The flat pattern as DXF text, for a Blob download. */
-export const fetchFlatPatternDxf = (request: BlankRequestDraft) => api.post<string>("/api/blanks/dxf", request, { responseType: "text" });
+export const fetchFlatPatternDxf = (request: BlankRequestDraft) => api.post<string>("/api/blanks/dxf", request, { responseType: "text", computation: true });
 
 // --- price estimate for a configuration and quantity (signed-in) ---
 

@@ -19,6 +19,7 @@ export const paths = {
   designCheck: { path: "/design-check", href: () => "/design-check" },
   flatBlank: { path: "/flat-blank", href: () => "/flat-blank" },
   adminShopRates: { path: "/admin/shop-rates", href: () => "/admin/shop-rates" },
+  adminMaterials: { path: "/admin/materials", href: () => "/admin/materials" },
   adminUsers: {
     path: "/admin/users",
     href: (filters?: { page?: number; q?: string }) => {

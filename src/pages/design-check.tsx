@@ -1,21 +1,27 @@
-import { PageHeader, Panel } from "../components/ui/panel";
-import { StatusNote } from "../components/ui/status-note";
+import type { QueryClient } from "@tanstack/react-query";
+import { materialsQueryOptions } from "../api/materials";
+import { PanelBoundary } from "../components/error-boundary";
+import { PageHeader } from "../components/ui/panel";
+import { DesignCheck } from "../features/design-check/design-check";
+import { warm } from "../lib/guards";
 
-// Placeholder route module: the design-check feature replaces this page's body. A page module
-// exports `Component` and, if it needs data, `makeLoader(queryClient)` (see src/router.tsx).
+// Public: anonymous visitors and signed-in customers use the same page.
+export const makeLoader = (queryClient: QueryClient) => async () => {
+  await warm(queryClient.ensureQueryData(materialsQueryOptions));
+  return null;
+};
+
 export function Component() {
   return (
     <>
       <PageHeader
         eyebrow="Public · no sign-in needed"
         title="Design check"
-        lead="Enter a shield's shape, layers and the field it must block, and see the predicted attenuation and saturation margin of each layer."
+        lead="Describe a shield's shape, layers and the field it must block. The predicted attenuation, each layer's saturation margin, the curve against frequency and a drawing to scale update as you type."
       />
-      <Panel>
-        <StatusNote tone="info" word="Coming soon">
-          The design check is being built. It will be open to everyone, signed in or not.
-        </StatusNote>
-      </Panel>
+      <PanelBoundary name="the design check">
+        <DesignCheck />
+      </PanelBoundary>
     </>
   );
 }

@@ -20,7 +20,9 @@ describe("flat blank, as a new visitor would", () => {
   it("enters the box example, sees the API's numbers and a drawing to scale, downloads the DXF", async () => {
     const { page, consoleErrors, offMachine } = await h.newPage();
     await page.goto(`${h.baseUrl}/`);
-    await page.getByRole("link", { name: /^flat blank$/i }).first().click();
+    await page.waitForTimeout(3000);
+    await h.shot(page, "home-anonymous");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^flat blank$/i }).click();
     await page.getByRole("heading", { level: 1, name: /flat blank/i }).waitFor();
     await page.getByLabel(/shape and method/i).selectOption("box-bent");
     await fill(page, /^width/i, "80");
@@ -43,8 +45,8 @@ describe("flat blank, as a new visitor would", () => {
       const b = (el as SVGGraphicsElement).getBBox();
       return { w: b.width, h: b.height };
     });
-    expect(measured.w).toBeCloseTo(api.blank.length_mm, 6);
-    expect(measured.h).toBeCloseTo(api.blank.width_mm, 6);
+    expect(measured.w).toBeCloseTo(api.blank.length_mm, 3); // getBBox is single precision
+    expect(measured.h).toBeCloseTo(api.blank.width_mm, 3);
     const viewBox = (await svg.getAttribute("viewBox"))!.split(" ").map(Number);
     expect(viewBox[2]).toBeGreaterThan(api.blank.length_mm);
     expect(await svg.locator('[data-role="bend-line"]').count()).toBe(4);
@@ -74,7 +76,8 @@ describe("flat blank, as a new visitor would", () => {
     await page.getByRole("heading", { name: /draw stages/i }).waitFor();
     await h.shot(page, "flat-blank-drawn");
 
-    expect(consoleErrors.join("\n")).toBe("");
+    // the 400 for K = 0.7 is the answer the page is built to show; Chromium logs it anyway
+    expect(consoleErrors.filter((e) => !/status of 400/.test(e)).join("\n")).toBe("");
     expect(offMachine).toEqual([]);
     await page.close();
   });

@@ -25,7 +25,7 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     case "customer":
       return [home, { label: "Design check", to: paths.designCheck.href() }, { label: "Flat blank", to: paths.flatBlank.href() }, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, account];
+      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
     case "operator":
     case "qa":
       return [home, account];

@@ -1,0 +1,36 @@
+import type { MuPoint } from "../../shared/physics/materials";
+import type { Material } from "../models";
+
+/** GET /api/materials: the contract's fields, then what the design-check page also needs. */
+export interface MaterialJson {
+  id: string;
+  name: string;
+  relativePermeability: { initial: number; maximum: number };
+  saturation_T: number | null;
+  resistivity_ohm_m: number;
+  density_kg_m3: number;
+  source: string;
+  muCurve: MuPoint[];
+  asFormedFactor: number;
+  sourceTags: Record<string, string>;
+}
+
+export function presentMaterial(m: Material): MaterialJson {
+  return {
+    id: m.id,
+    name: m.name,
+    relativePermeability: { initial: m.muInitial, maximum: m.muMaximum },
+    saturation_T: m.saturationT,
+    resistivity_ohm_m: m.resistivityOhmM,
+    density_kg_m3: m.densityKgM3,
+    source: m.source,
+    muCurve: m.muCurve,
+    asFormedFactor: m.asFormedFactor,
+    sourceTags: m.sourceTags,
+  };
+}
+
+/** The admin's view adds the flag and the dates. */
+export function presentMaterialForAdmin(m: Material) {
+  return { ...presentMaterial(m), active: m.active, createdAt: m.createdAt.toISOString(), updatedAt: m.updatedAt.toISOString() };
+}

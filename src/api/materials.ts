@@ -1,0 +1,71 @@
+import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import type { MuPoint } from "../../shared/physics/materials";
+import type { MaterialCreate, MaterialUpdate } from "../../shared/schemas/material";
+import { api } from "./client";
+import { predictionKeys } from "./predictions";
+
+/** GET /api/materials: one row of the library. */
+export interface MaterialSummary {
+  id: string;
+  name: string;
+  relativePermeability: { initial: number; maximum: number };
+  saturation_T: number | null;
+  resistivity_ohm_m: number;
+  density_kg_m3: number;
+  source: string;
+  muCurve: MuPoint[];
+  asFormedFactor: number;
+  sourceTags: Record<string, string>;
+}
+
+/** The admin's view of a row. */
+export interface MaterialRecord extends MaterialSummary {
+  active: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface MaterialChange {
+  id: string;
+  action: string;
+  at: string;
+  actor: { id: string; name: string } | null;
+  changes: Array<{ path: string; before: unknown; after: unknown }>;
+}
+
+export const materialKeys = {
+  all: ["materials"] as const,
+  list: () => [...materialKeys.all, "list"] as const,
+  admin: () => [...materialKeys.all, "admin"] as const,
+  history: (id: string) => [...materialKeys.all, "history", id] as const,
+};
+
+export const materialsQueryOptions = queryOptions({
+  queryKey: materialKeys.list(),
+  queryFn: ({ signal }) => api.get<MaterialSummary[]>("/api/materials", { signal }),
+  staleTime: 5 * 60_000,
+});
+
+export const adminMaterialsQueryOptions = queryOptions({
+  queryKey: materialKeys.admin(),
+  queryFn: ({ signal }) => api.get<{ items: MaterialRecord[] }>("/api/materials/all", { signal }),
+});
+
+export const materialHistoryQueryOptions = (id: string) =>
+  queryOptions({
+    queryKey: materialKeys.history(id),
+    queryFn: ({ signal }) => api.get<{ items: MaterialChange[] }>(`/api/materials/${encodeURIComponent(id)}/history`, { signal }),
+  });
+
+/** Save an edit or a new material; every prediction computed with the old values is stale after it. */
+export function useSaveMaterial() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (save: { id: string; body: MaterialUpdate } | { id: null; body: MaterialCreate }) =>
+      save.id === null ? api.post<MaterialRecord>("/api/materials", save.body) : api.put<MaterialRecord>(`/api/materials/${encodeURIComponent(save.id)}`, save.body),
+    onSuccess: () => {
+      void queryClient.invalidateQueries({ queryKey: materialKeys.all });
+      void queryClient.invalidateQueries({ queryKey: predictionKeys.all });
+    },
+  });
+}

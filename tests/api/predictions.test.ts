@@ -1,0 +1,192 @@
+import request from "supertest";
+import { beforeAll, describe, expect, it } from "vitest";
+import { seedMaterials } from "../../server/db/seed";
+import { buildTestApp, buildUser, signIn } from "../support/app";
+
+const app = buildTestApp({ RATE_LIMIT_PUBLIC: "0" });
+beforeAll(async () => {
+  await seedMaterials();
+});
+
+// The contract's example body.
+const example = {
+  shape: "cylinder",
+  dimensions_mm: { diameter: 50, length: 120 },
+  ends: "closed",
+  layers: [
+    { material: "ni80", thickness_mm: 1.0, gap_mm: 10 },
+    { mu_r: 20000, resistivity_ohm_m: 5.8e-7, saturation_T: 0.75, thickness_mm: 1.0 },
+  ],
+  field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
+  state: "annealed",
+};
+type Body = typeof example & Record<string, unknown>;
+const withBody = (change: (b: Body) => void) => {
+  const b = structuredClone(example) as Body;
+  change(b);
+  return b;
+};
+const post = (body: unknown) => request(app).post("/api/predictions").send(body as object);
+
+describe("POST /api/predictions", () => {
+  it("answers the contract example with its fields", async () => {
+    const res = await post(example);
+    expect(res.status).toBe(200);
+    const b = res.body;
+    expect(b.shieldingFactor).toBeGreaterThanOrEqual(1);
+    expect(b.attenuation_db).toBeCloseTo(20 * Math.log10(b.shieldingFactor), 6);
+    expect(b.layers).toHaveLength(2);
+    for (const l of b.layers) {
+      expect(l).toHaveProperty("wallFluxDensity_T");
+      expect(l).toHaveProperty("saturation_T");
+      expect(l).toHaveProperty("saturationMargin");
+      expect(l.mu_r).toBeGreaterThanOrEqual(1);
+    }
+    expect(b.layers[0].material).toBe("ni80");
+    expect(b.layers[0].muSource).toBe("material-curve");
+    expect(Array.isArray(b.warnings)).toBe(true);
+    expect(typeof b.method).toBe("string");
+    expect(b.band.low_db).toBeLessThan(b.band.high_db);
+    expect(b.estimate).toBe(true);
+  });
+
+  it("an explicit mu_r is used as given, in either state", async () => {
+    for (const state of ["annealed", "as-formed"]) {
+      const res = await post(withBody((b) => (b.state = state)));
+      expect(res.status).toBe(200);
+      expect(res.body.layers[1].mu_r).toBe(20000);
+      expect(res.body.layers[1].muSource).toBe("explicit");
+    }
+    // a much stronger field changes the library layer's μ, not the explicit one
+    const strong = await post(withBody((b) => (b.field.amplitude_uT = 20000)));
+    expect(strong.body.layers[1].mu_r).toBe(20000);
+  });
+
+  it("frequency 0 is a static field", async () => {
+    const res = await post(withBody((b) => (b.field.frequency_hz = 0)));
+    expect(res.status).toBe(200);
+    expect(res.body.attenuation_db).toBeGreaterThan(0);
+    expect(res.body.layers[0].skinDepth_mm).toBeNull();
+    const ac = await post(example);
+    expect(ac.body.attenuation_db).toBeGreaterThan(res.body.attenuation_db);
+  });
+
+  it("the other shapes and directions answer too", async () => {
+    const box = await post({ ...example, shape: "box", dimensions_mm: { width: 80, depth: 60, height: 40 } });
+    expect(box.status).toBe(200);
+    expect(box.body.warnings.map((w: { code: string }) => w.code)).toContain("BOX_ESTIMATE");
+    const sphere = await post({ ...example, shape: "sphere", dimensions_mm: { diameter: 80 } });
+    expect(sphere.status).toBe(200);
+    const axial = await post(withBody((b) => (b.field.orientation = "axial")));
+    expect(axial.status).toBe(200);
+    expect(axial.body.method).toMatch(/axial/);
+  });
+
+  const bad: Array<[string, unknown, string]> = [
+    ["zero diameter", withBody((b) => (b.dimensions_mm.diameter = 0)), "dimensions_mm.diameter"],
+    ["negative length", withBody((b) => (b.dimensions_mm.length = -5)), "dimensions_mm.length"],
+    ["zero thickness", withBody((b) => (b.layers[0].thickness_mm = 0)), "layers.0.thickness_mm"],
+    ["negative thickness", withBody((b) => (b.layers[1].thickness_mm = -1)), "layers.1.thickness_mm"],
+    ["thickness not smaller than the radius", withBody((b) => (b.layers[0].thickness_mm = 25)), "layers.0.thickness_mm"],
+    ["empty layers", withBody((b) => (b.layers = [])), "layers"],
+    ["unknown material", withBody((b) => (b.layers[0].material = "unobtainium")), "layers.0.material"],
+    ["negative frequency", withBody((b) => (b.field.frequency_hz = -60)), "field.frequency_hz"],
+    ["absurd frequency", withBody((b) => (b.field.frequency_hz = 1e9)), "field.frequency_hz"],
+    ["NaN (JSON null)", JSON.parse(JSON.stringify(withBody((b) => (b.layers[0].thickness_mm = Number.NaN)))), "layers.0.thickness_mm"],
+    ["a string for a number", withBody((b) => ((b.layers[0] as Record<string, unknown>).thickness_mm = "1 mm")), "layers.0.thickness_mm"],
+    ["a numeric string", withBody((b) => ((b.field as Record<string, unknown>).amplitude_uT = "100")), "field.amplitude_uT"],
+    ["zero amplitude", withBody((b) => (b.field.amplitude_uT = 0)), "field.amplitude_uT"],
+    ["unknown shape", withBody((b) => (b.shape = "torus")), "shape"],
+  ];
+  it.each(bad)("400 naming the field: %s", async (_name, body, field) => {
+    const res = await post(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe("VALIDATION_FAILED");
+    expect(res.body.error.fields).toHaveProperty([field]);
+    expect(typeof res.body.error.fields[field]).toBe("string");
+  });
+
+  it("states the model's frequency range when refusing one", async () => {
+    const res = await post(withBody((b) => (b.field.frequency_hz = 200_000)));
+    expect(res.body.error.fields["field.frequency_hz"]).toMatch(/100000 Hz/);
+  });
+
+  it("a bare NaN token is malformed JSON: 400, never a 500", async () => {
+    const res = await request(app).post("/api/predictions").set("Content-Type", "application/json").send(JSON.stringify(example).replace('"thickness_mm":1', '"thickness_mm":NaN'));
+    expect(res.status).toBe(400);
+  });
+
+  it("a signed-in customer posts without a CSRF token (public computation)", async () => {
+    const { agent } = await signIn(app, await buildUser({ role: "customer" }));
+    const res = await agent.post("/api/predictions").send(example);
+    expect(res.status).toBe(200);
+    expect(res.body.attenuation_db).toBeGreaterThan(0);
+  });
+
+  it("creates no session for an anonymous visitor", async () => {
+    const res = await post(example);
+    expect(res.headers["set-cookie"]).toBeUndefined();
+  });
+});
+
+describe("POST /api/predictions/sweep", () => {
+  it("gives attenuation at log-spaced frequencies from 1 Hz to 10 kHz", async () => {
+    const res = await request(app).post("/api/predictions/sweep").send({ ...example, points: 50 });
+    expect(res.status).toBe(200);
+    expect(res.body).toHaveLength(50);
+    expect(res.body[0].frequency_hz).toBeCloseTo(1, 9);
+    expect(res.body[49].frequency_hz).toBeCloseTo(10_000, 6);
+    expect(res.body[49].attenuation_db).toBeGreaterThan(res.body[0].attenuation_db);
+  });
+
+  it("400 for bad points and bad designs", async () => {
+    let res = await request(app).post("/api/predictions/sweep").send({ ...example, points: 1000 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty("points");
+    res = await request(app).post("/api/predictions/sweep").send(withBody((b) => (b.layers = [])));
+    expect(res.body.error.fields).toHaveProperty("layers");
+  });
+});
+
+describe("GET /api/materials", () => {
+  it("lists the library with the contract's fields and the source of each value", async () => {
+    const res = await request(app).get("/api/materials");
+    expect(res.status).toBe(200);
+    const ids = res.body.map((m: { id: string }) => m.id);
+    for (const id of ["ni80", "ni50", "steel-lc", "copper", "aluminium"]) expect(ids).toContain(id);
+    const ni80 = res.body.find((m: { id: string }) => m.id === "ni80");
+    expect(Object.keys(ni80)).toEqual(expect.arrayContaining(["id", "name", "relativePermeability", "saturation_T", "resistivity_ohm_m", "density_kg_m3", "source"]));
+    expect(ni80.relativePermeability.initial).toBeLessThan(ni80.relativePermeability.maximum);
+    expect(ni80.density_kg_m3).toBe(8740);
+    expect(ni80.sourceTags.density_kg_m3).toMatch(/\[pub\] ASTM A753/);
+    expect(ni80.sourceTags.relativePermeability).toMatch(/\[practice\]\/\[memory\]/);
+    const copper = res.body.find((m: { id: string }) => m.id === "copper");
+    expect(copper.saturation_T).toBeNull();
+    expect(copper.relativePermeability).toEqual({ initial: 1, maximum: 1 });
+  });
+});
+
+describe("public computation routes keep no state", () => {
+  it("answer without setting a cookie or storing a session row", async () => {
+    const { sequelize } = app.locals.deps;
+    const count = async () => ((await sequelize.query(`select count(*)::int as n from "session"`)) as [[{ n: number }], unknown])[0][0].n;
+    const before = await count();
+    const res = await post(example);
+    expect(res.status).toBe(200);
+    expect(res.headers["set-cookie"]).toBeUndefined();
+    const blank = await request(app).post("/api/blanks").send({ shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, thickness_mm: 1, bendRadius_mm: 1.5, kFactor: 0.44 });
+    expect(blank.status).toBe(200);
+    expect(blank.headers["set-cookie"]).toBeUndefined();
+    expect(await count()).toBeLessThanOrEqual(before);
+  });
+
+  it("are rate limited per address (429 in the error shape)", async () => {
+    const limited = buildTestApp({ RATE_LIMIT_PUBLIC: "3" });
+    const codes: number[] = [];
+    for (let i = 0; i < 4; i++) codes.push((await request(limited).post("/api/predictions").send(example)).status);
+    expect(codes).toEqual([200, 200, 200, 429]);
+    const res = await request(limited).get("/api/materials");
+    expect(res.status).toBe(429);
+    expect(res.body.error.code).toBe("RATE_LIMITED");
+  });
+});

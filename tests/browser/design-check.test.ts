@@ -1,0 +1,153 @@
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
+import { DEMO_PASSWORD, useBrowser } from "../support/browser";
+
+const h = useBrowser();
+
+const headline = (page: Page) => page.getByTestId("attenuation-db");
+async function signInAs(page: Page, email: string) {
+  await h.context.clearCookies(); // whoever an earlier test left signed in
+  await page.goto(`${h.baseUrl}/sign-in`);
+  await page.getByLabel(/e-?mail/i).fill(email);
+  await page.getByLabel(/^password/i).fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: /^sign in$/i }).click();
+  await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+}
+
+const layer = (page: Page, n: number) => page.getByRole("group", { name: `Layer ${n}`, exact: true });
+
+/** Waits until the headline differs from `before` and no request is running. */
+async function changedFrom(page: Page, before: string): Promise<string> {
+  await expect.poll(async () => (await headline(page).textContent()) ?? "", { timeout: 10_000 }).not.toBe(before);
+  await page.getByTestId("prediction").and(page.locator(":not([aria-busy])")).waitFor();
+  return (await headline(page).textContent())!;
+}
+
+async function journey(page: Page, who: string) {
+  await page.getByRole("heading", { level: 1, name: /design check/i }).waitFor();
+  // a result at once, from the defaults
+  await headline(page).filter({ hasText: /dB/ }).waitFor();
+  await page.getByTestId("layer-bars").getByText(/margin/).first().waitFor();
+  await page.getByRole("img", { name: /attenuation in db from 1 hz/i }).waitFor();
+  await page.getByTestId("cross-section").waitFor();
+  await page.getByTestId("cautions").getByText(/pacemakers or other medical implants/i).waitFor();
+  await page.getByTestId("cautions").getByText(/engineering estimates/i).waitFor();
+  await h.shot(page, `design-check-${who}-default`);
+  let before = (await headline(page).textContent())!;
+
+  // thicker wall → a different figure
+  await layer(page, 1).getByLabel(/wall thickness/i).fill("1.5");
+  before = await changedFrom(page, before);
+
+  // a second layer outside
+  await page.getByRole("button", { name: /add a layer outside/i }).click();
+  await layer(page, 2).waitFor();
+  await layer(page, 2).getByLabel(/material/i).selectOption("ni50");
+  before = await changedFrom(page, before);
+  expect(await page.getByTestId("layer-bars").locator("li").filter({ hasText: /^Layer \d/ }).count()).toBe(2);
+  expect(await page.getByTestId("cross-section").locator('[data-role="layer"]').count()).toBe(2);
+
+  // keep it as variant A, then change the design: two lines on the chart
+  await page.getByRole("button", { name: /keep as variant a/i }).click();
+  await page.getByRole("list", { name: /kept variants/i }).getByText(/variant a/i).waitFor();
+  await layer(page, 1).getByLabel(/material/i).selectOption("steel-lc");
+  before = await changedFrom(page, before);
+  const chart = page.getByTestId("attenuation-chart");
+  await expect.poll(() => chart.locator(".recharts-line").count(), { timeout: 10_000 }).toBe(2);
+  await chart.getByText("Variant A").first().waitFor();
+  await h.shot(page, `design-check-${who}-variant`);
+
+  // a bad thickness: the message beside the field, the last figures kept
+  const thickness = layer(page, 1).getByLabel(/wall thickness/i);
+  await thickness.fill("0");
+  await layer(page, 1).getByText(/must be greater than 0 mm/i).waitFor();
+  expect(await thickness.getAttribute("aria-invalid")).toBe("true");
+  await page.getByText(/check the inputs/i).first().waitFor();
+  await headline(page).waitFor();
+  await h.shot(page, `design-check-${who}-bad-thickness`);
+  await thickness.fill("1");
+  await expect.poll(() => thickness.getAttribute("aria-invalid")).toBe("false");
+}
+
+describe("design check, as a customer engineer would use it", () => {
+  it("an anonymous visitor: default result, edits, a second layer, a variant, a bad value", async () => {
+    const { page, consoleErrors, offMachine } = await h.newPage();
+    await h.context.clearCookies();
+    await page.goto(`${h.baseUrl}/`);
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^design check$/i }).click();
+    await journey(page, "anonymous");
+
+    // units a person types: inches convert before they are sent
+    await page.getByLabel(/^lengths in/i).selectOption("in");
+    await expect.poll(() => layer(page, 1).getByLabel(/wall thickness/i).inputValue()).toBe("0.03937"); // the same 1 mm wall
+    await page.getByLabel(/inside diameter/i).fill("2");
+    await page.getByText("= 50.8 mm").waitFor();
+    await page.getByRole("img", { name: /Ø 50\.8 mm inside/ }).waitFor();
+    await page.getByLabel(/^frequency/i).fill("0");
+    await page.getByText(/attenuation at dc/i).waitFor();
+    await page.getByLabel(/^frequency/i).fill("200000");
+    await page.getByText(/at most 100000 Hz/).waitFor();
+
+    // tablet width
+    await page.setViewportSize({ width: 820, height: 1180 });
+    await page.getByLabel(/^frequency/i).fill("60");
+    await page.getByText("Attenuation at 60 Hz").waitFor();
+    await page.getByTestId("prediction").and(page.locator(":not([aria-busy])")).waitFor();
+    await h.shot(page, "design-check-tablet");
+    await page.setViewportSize({ width: 1280, height: 860 });
+
+    // a box: its width × depth section, and the plain-words warning that box figures are estimates
+    await page.getByLabel(/^lengths in/i).selectOption("mm");
+    await expect.poll(() => page.getByLabel(/inside length/i).inputValue()).toBe("120"); // back to the typed mm, no rounding creep
+    await page.getByLabel(/^shape/i).selectOption("box");
+    await page.getByRole("img", { name: /80 × 60 mm inside/ }).waitFor();
+    expect(await page.getByLabel(/inside depth/i).inputValue()).toBe("60");
+    await page.getByTestId("warnings").getByText(/box figures are estimates/i).waitFor();
+    await h.shot(page, "design-check-box");
+    // 0.1 mT is the same 100 µT: the same figure
+    const inMicrotesla = (await headline(page).textContent())!;
+    await page.getByLabel(/^unit$/i).selectOption("mT");
+    await page.getByLabel(/^peak field/i).fill("0.1");
+    await expect.poll(() => headline(page).textContent()).toBe(inMicrotesla);
+
+    expect(consoleErrors.join("\n")).toBe("");
+    expect(offMachine).toEqual([]);
+    await page.close();
+  });
+
+  it("a signed-in customer finds it in the nav and uses it the same way", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await signInAs(page, "customer@demo.test");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^design check$/i }).click();
+    await journey(page, "customer");
+    expect(consoleErrors.join("\n")).toBe("");
+    await page.getByRole("button", { name: /sign out/i }).click();
+    await page.close();
+  });
+});
+
+describe("materials, as the admin", () => {
+  it("edits a value with confirmation and sees it in the changes", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await signInAs(page, "admin@demo.test");
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^materials$/i }).click();
+    await page.getByRole("heading", { level: 1, name: /materials/i }).waitFor();
+    await page.getByRole("button", { name: "Edit steel-lc" }).click();
+    const form = page.getByRole("form", { name: "Edit steel-lc" });
+    await form.getByLabel(/^density \(kg/i).fill("-3");
+    await form.getByRole("button", { name: /save changes/i }).click();
+    await form.getByText(/at least 100 kg/i).waitFor();
+    // other tests compute with steel-lc at the same time: change only a source note, not a value
+    await form.getByLabel(/^density \(kg/i).fill("7850");
+    const note = `[practice]/[memory] 7.85 g/cm³, checked ${Date.now()}`;
+    await form.getByLabel(/^density$/i).fill(note);
+    await form.getByRole("button", { name: /save changes/i }).click();
+    await form.getByText(/saving changes steel-lc/i).waitFor();
+    await form.getByRole("button", { name: /^save steel-lc$/i }).click();
+    await page.getByText(/steel-lc is saved/i).waitFor();
+    await page.getByRole("list", { name: "Changes" }).getByText(note).first().waitFor();
+    await h.shot(page, "admin-materials");
+    expect(consoleErrors.join("\n")).toBe("");
+    await page.close();
+  });
+});
