@@ -57,6 +57,10 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   app.set("trust proxy", "loopback");
   app.set("query parser", "simple");
 
+  // Health first: probes poll it hard, and its tiny JSON answer needs no page-security headers,
+  // request log, body parser or session.
+  app.use("/api", healthRouter(deps));
+
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -72,8 +76,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       strictTransportSecurity: secure,
     }),
   );
-  // Health first: probes poll it hard, and its answer needs no request log, body or session.
-  app.use("/api", healthRouter(deps));
   const requestLog = pinoHttp({
     logger,
     autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },

@@ -31,7 +31,7 @@ try {
 } catch (err) {
   if ((err as NodeJS.ErrnoException).code !== "ERR_MODULE_NOT_FOUND") throw err;
 }
-rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 5))));
+rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 
 section("client");
 rows.push(...benchInitialJs(path.join(root, "dist")));

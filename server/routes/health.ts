@@ -35,7 +35,7 @@ export function healthRouter({ sequelize }: Pick<AppDeps, "sequelize">): Router 
   const databaseUp = databaseProbe(sequelize);
   router.get("/health", async (_req, res) => {
     const up = await databaseUp();
-    res.status(up ? 200 : 503).set("Cache-Control", "no-store").json(up ? { status: "ok", database: "up" } : { status: "degraded", database: "down" });
+    res.status(up ? 200 : 503).set({ "Cache-Control": "no-store", "X-Content-Type-Options": "nosniff" }).json(up ? { status: "ok", database: "up" } : { status: "degraded", database: "down" });
   });
   return router;
 }
