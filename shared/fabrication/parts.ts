@@ -69,6 +69,16 @@ export interface FabricatedPart {
   finishedPiece: boolean;
 }
 
+/**
+ * How much every dimension of layer i's inside exceeds the innermost layer's: 2·Σ_{j<i}(T_j + gap_j).
+ * The one rule for sizing the layers of a nest; partsForDesign and the design check's parts use it.
+ */
+export function layerGrowth_mm(layers: ReadonlyArray<Pick<DesignLayer, "thickness_mm" | "gap_mm">>, i: number): number {
+  let grow = 0;
+  for (let j = 0; j < i; j++) grow += layers[j].thickness_mm + (layers[j].gap_mm ?? 0);
+  return 2 * grow;
+}
+
 export function partsForDesign(config: DesignConfig): FabricatedPart[] {
   if (config.layers.length === 0) throw new FabricationInputError("layers", "a design needs at least one layer");
   const parts: FabricatedPart[] = [];
@@ -85,7 +95,7 @@ export function partsForDesign(config: DesignConfig): FabricatedPart[] {
       ...p,
       mass_kg: layer.density_kg_m3 !== undefined ? blankMass_kg(p.area_mm2, t, layer.density_kg_m3) : undefined,
     });
-    const add = 2 * grow;
+    const add = layerGrowth_mm(config.layers, i);
     if (config.shape === "cylinder") {
       const d = (dims.diameter ?? NaN) + add;
       const len = (dims.length ?? NaN) + add;

@@ -3,6 +3,12 @@
 
 const encode = encodeURIComponent;
 
+/** The flat-blank page's inputs that a link may fill in (mm; kind: box-bent, cylinder-drawn, cylinder-rolled). */
+export const flatBlankPrefillKeys = [
+  "kind", "width", "depth", "height", "diameter", "length", "thickness", "bendRadius", "kFactor", "cornerRadius", "trim", "seamOverlap", "material",
+] as const;
+export type FlatBlankPrefill = Partial<Record<(typeof flatBlankPrefillKeys)[number], string>>;
+
 export const paths = {
   home: { path: "/", href: () => "/" },
   signIn: {
@@ -17,7 +23,19 @@ export const paths = {
   invitation: { path: "/invitation/:token", href: (token: string) => `/invitation/${encode(token)}` },
   account: { path: "/account", href: () => "/account" },
   designCheck: { path: "/design-check", href: () => "/design-check" },
-  flatBlank: { path: "/flat-blank", href: () => "/flat-blank" },
+  flatBlank: {
+    path: "/flat-blank",
+    // a prefill opens the calculator with these inputs (the design check links each part here)
+    href: (prefill?: FlatBlankPrefill) => {
+      const search = new URLSearchParams();
+      for (const key of flatBlankPrefillKeys) {
+        const value = prefill?.[key];
+        if (value !== undefined && value !== "") search.set(key, value);
+      }
+      const query = search.toString();
+      return query ? `/flat-blank?${query}` : "/flat-blank";
+    },
+  },
   adminShopRates: { path: "/admin/shop-rates", href: () => "/admin/shop-rates" },
   adminMaterials: { path: "/admin/materials", href: () => "/admin/materials" },
   adminUsers: {

@@ -77,6 +77,16 @@ describe("design check, as a customer engineer would use it", () => {
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^design check$/i }).click();
     await journey(page, "anonymous");
 
+    // what it takes to make: a part per layer with its mass, and no price without signing in
+    const make = page.getByTestId("make-panel");
+    await expect.poll(() => make.getByTestId("make-part").count(), { timeout: 10_000 }).toBe(2);
+    await make.getByTestId("make-blank-size").nth(1).filter({ hasText: /Disc Ø/ }).waitFor();
+    await make.getByTestId("make-total-mass").filter({ hasText: /\d\.\d{3} kg/ }).waitFor();
+    await make.getByRole("link", { name: /sign in to see the price/i }).waitFor();
+    expect(await make.getByTestId("total-price").count()).toBe(0);
+    await h.shot(page, "design-check-anonymous-make");
+    await make.screenshot({ path: ".test-results/screenshots/design-check-anonymous-make-panel.png" });
+
     // units a person types: inches convert before they are sent
     await page.getByLabel(/^lengths in/i).selectOption("in");
     await expect.poll(() => layer(page, 1).getByLabel(/wall thickness/i).inputValue()).toBe("0.03937"); // the same 1 mm wall
@@ -120,6 +130,55 @@ describe("design check, as a customer engineer would use it", () => {
     await signInAs(page, "customer@demo.test");
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^design check$/i }).click();
     await journey(page, "customer");
+
+    // what it takes to make: one part per layer, each sized from its own inside, and the price
+    const make = page.getByTestId("make-panel");
+    const parts = make.getByTestId("make-part");
+    await expect.poll(() => parts.count(), { timeout: 10_000 }).toBe(2);
+    // layer 2 sits outside layer 1's 1 mm wall and 10 mm gap: Ø 50 + 2·11, length 120 + 2·11
+    await parts.nth(1).getByText("Inside Ø 72 × 142 mm").waitFor();
+    await parts.nth(1).getByTestId("make-blank-size").filter({ hasText: /Disc Ø/ }).waitFor();
+    await parts.nth(0).getByText(/\d draws? ·/).waitFor();
+    await make.getByLabel(/^quantity/i).waitFor();
+    expect(await make.getByLabel(/^quantity/i).inputValue()).toBe("10");
+    await make.getByTestId("total-price").filter({ hasText: /€\s?[\d,]+\.\d\d/ }).waitFor();
+    await make.getByTestId("unit-price").filter({ hasText: /€/ }).waitFor();
+    expect(await make.getByTestId("price-table").locator("tbody tr").count()).toBeGreaterThan(2);
+    await make.getByRole("img", { name: /stock sheet/i }).first().waitFor();
+    await make.getByText(/are estimates/i).first().waitFor();
+    const total10 = (await make.getByTestId("total-price").textContent())!;
+    await make.getByLabel(/^quantity/i).fill("50");
+    await expect.poll(() => make.getByTestId("total-price").textContent(), { timeout: 10_000 }).not.toBe(total10);
+    await make.getByText("Total for 50").waitFor();
+    // rolled and welded instead: a rectangle and two end discs per layer
+    await make.getByLabel(/how the can is made/i).selectOption("rolled");
+    await parts.nth(0).getByTestId("make-blank-size").filter({ hasText: /Rectangle .* \+ 2 discs/ }).waitFor();
+    await make.getByLabel(/how the can is made/i).selectOption("auto");
+    await parts.nth(1).getByTestId("make-blank-size").filter({ hasText: /Disc Ø/ }).waitFor();
+    await make.getByTestId("total-price").waitFor();
+    await make.scrollIntoViewIfNeeded();
+    await h.shot(page, "design-check-customer-make");
+    await make.screenshot({ path: ".test-results/screenshots/design-check-customer-make-panel.png" });
+    await page.setViewportSize({ width: 820, height: 1180 });
+    await make.getByTestId("total-price").waitFor();
+    await h.shot(page, "design-check-customer-make-tablet");
+    await make.screenshot({ path: ".test-results/screenshots/design-check-customer-make-panel-tablet.png" });
+    await page.setViewportSize({ width: 1280, height: 860 });
+
+    // the part's link opens the flat-blank page with the same dimensions
+    const disc = (await parts.nth(1).getByTestId("make-blank-size").textContent())!.replace(/^Disc /, "");
+    await parts.nth(1).getByRole("link", { name: /flat pattern and dxf for layer 2/i }).click();
+    await page.getByRole("heading", { level: 1, name: /flat blank/i }).waitFor();
+    expect(await page.getByLabel(/shape and method/i).inputValue()).toBe("cylinder-drawn");
+    expect(await page.getByLabel(/inside diameter/i).inputValue()).toBe("72");
+    expect(await page.getByLabel(/inside height/i).inputValue()).toBe("142");
+    expect(await page.getByLabel(/sheet thickness/i).inputValue()).toBe("1.5"); // layer 2 was added as a copy of the 1.5 mm wall
+    expect(await page.getByLabel(/inside corner radius/i).inputValue()).toBe("0");
+    expect(await page.getByLabel(/^material/i).inputValue()).toBe("ni50");
+    await page.getByTestId("blank-size").filter({ hasText: disc }).waitFor();
+    await page.getByRole("button", { name: /download dxf/i }).waitFor();
+    await page.getByTestId("total-price").waitFor();
+    await h.shot(page, "flat-blank-from-design-check");
     expect(consoleErrors.join("\n")).toBe("");
     await page.getByRole("button", { name: /sign out/i }).click();
     await page.close();

@@ -1,5 +1,6 @@
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
 import type { MaterialSummary } from "../../api/materials";
+import { niceLength, ScaleBar } from "../../components/drawing/drawing";
 import { fmt } from "./design-model";
 
 // The layers drawn to scale: the SVG's user unit is the millimetre, so the rings' radii and the
@@ -17,14 +18,6 @@ interface Ring {
 }
 
 const FILL = { magnetic: "#384859", conductor: "#f9a867", custom: "#7b7c76" };
-
-/** A round length near a third of the span for the scale bar: 1, 2 or 5 × 10ⁿ mm. */
-function niceLength(span: number): number {
-  const target = span / 3;
-  const p = 10 ** Math.floor(Math.log10(target));
-  for (const m of [5, 2, 1]) if (m * p <= target) return m * p;
-  return p;
-}
 
 function roundedRect(hx: number, hy: number, r: number): string {
   const rr = Math.min(r, hx, hy);
@@ -122,13 +115,7 @@ export function CrossSection({ request, materials }: { request: PredictionReques
             </g>
           );
         })}
-        <g className="scale-bar" data-length-mm={scale}>
-          <rect x={-X} y={Y + margin} width={scale / 2} height={font * 0.5} fill="currentColor" />
-          <rect x={-X + scale / 2} y={Y + margin} width={scale / 2} height={font * 0.5} fill="white" stroke="currentColor" strokeWidth={font * 0.06} />
-          <text x={-X + scale + font * 0.5} y={Y + margin + font * 0.5} fontSize={font} fill="currentColor">
-            {fmt(scale)} mm (scale)
-          </text>
-        </g>
+        <ScaleBar x={-X} y={Y + margin} length={scale} fontSize={font} />
       </svg>
       <figcaption className="text-meta text-flux-600">
         Outside {outside}. Dark: magnetic alloy; orange: non-magnetic conductor; grey: custom μr. Drawn to scale.

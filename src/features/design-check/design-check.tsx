@@ -14,6 +14,7 @@ import { AttenuationChart, SERIES_STYLE, type ChartSeries } from "./attenuation-
 import { Cautions } from "./cautions";
 import { CrossSection } from "./cross-section";
 import { DesignForm } from "./design-form";
+import { MakePanel } from "./make-panel";
 import { checkDraft, defaultDesign, describeDesign, draftErrors, type DesignDraft } from "./design-model";
 import { Headline, LayerBars, Warnings } from "./results";
 
@@ -144,6 +145,10 @@ export function DesignCheck() {
 
         <PanelBoundary name="the cross-section drawing">
           <Panel title="Cross-section">{request ? <CrossSection request={request} materials={library} /> : <p className="text-flux-600">Enter a valid design to see the drawing.</p>}</Panel>
+        </PanelBoundary>
+
+        <PanelBoundary name="what it takes to make">
+          <Panel title="What it takes to make">{request ? <MakePanel request={request} /> : <p className="text-flux-600">Enter a valid design to see its parts.</p>}</Panel>
         </PanelBoundary>
 
         <Panel title="Before you rely on these figures">

@@ -1,9 +1,11 @@
 import { useEffect, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
+import { useSearchParams } from "react-router-dom";
 import { PRESS_WORK_CAUTION, suggestKFactor } from "../../../shared/fabrication";
 import { materialLibrary } from "../../../shared/physics/materials";
 import type { BlankRequest } from "../../../shared/schemas/blank";
 import { meQueryOptions } from "../../api/auth";
+import { flatBlankPrefillKeys } from "../../config/paths";
 import { ApiError } from "../../api/client";
 import { blankQueryOptions, type BlankResponse } from "../../api/fabrication";
 import { PanelBoundary } from "../../components/error-boundary";
@@ -11,11 +13,11 @@ import { SelectField, TextField } from "../../components/ui/field";
 import { Panel } from "../../components/ui/panel";
 import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
-import { fmtMm } from "./drawing";
+import { fmtMm } from "../../components/drawing/drawing";
 import { DxfDownloadButton } from "./dxf-download-button";
 import { FlatPatternLegend, FlatPatternSvg } from "./flat-pattern-svg";
 import { PriceEstimatePanel } from "./price-estimate-panel";
-import { useDebounced } from "./use-debounced";
+import { useDebounced } from "../../lib/use-debounced";
 
 export type PartKind = "box-bent" | "cylinder-drawn" | "cylinder-rolled";
 
@@ -41,6 +43,24 @@ const initial: BlankForm = {
   kind: "box-bent", width: "80", depth: "60", height: "40", diameter: "50", length: "60", thickness: "1",
   bendRadius: "1.5", kFactor: "", cornerRadius: "3", trim: "0", seamOverlap: "6", material: "ni80",
 };
+
+const kinds: readonly PartKind[] = ["box-bent", "cylinder-drawn", "cylinder-rolled"];
+
+/**
+ * The inputs a link fills in (paths.flatBlank.href): known keys only, an unknown kind ignored,
+ * material "none" for no material. The numbers stay text; the server checks them as if typed.
+ */
+export function formFromSearch(search: URLSearchParams, base: BlankForm = initial): BlankForm {
+  const form = { ...base };
+  for (const key of flatBlankPrefillKeys) {
+    const value = search.get(key);
+    if (value === null) continue;
+    if (key === "kind") {
+      if ((kinds as readonly string[]).includes(value)) form.kind = value as PartKind;
+    } else form[key] = key === "material" && value === "none" ? "" : value;
+  }
+  return form;
+}
 
 /** Server field paths (also a price estimate's `configuration.` ones) → the form's fields. */
 const serverFieldToForm: Record<string, FieldName> = {
@@ -162,7 +182,8 @@ function DrawStages({ result }: { result: BlankResponse }) {
 
 /** The flat blank calculator: inputs on the left, live results, drawing and (signed in) price on the right. */
 export function FlatBlankCalculator() {
-  const [form, setForm] = useState<BlankForm>(initial);
+  const [search] = useSearchParams();
+  const [form, setForm] = useState<BlankForm>(() => formFromSearch(search));
   const [quantity, setQuantity] = useState("10");
   const me = useQuery(meQueryOptions);
   const request = useDebounced(toBlankRequest(form), 300);

@@ -1,6 +1,6 @@
 import type { FlatPatternGeometry } from "../../../shared/fabrication";
 import type { BlankResponse } from "../../api/fabrication";
-import { Dimension, fmtMm, niceLength, ScaleBar } from "./drawing";
+import { Dimension, fmtMm, niceLength, ScaleBar } from "../../components/drawing/drawing";
 
 function describe(result: BlankResponse): string {
   const b = result.blank;

@@ -1,4 +1,4 @@
-// Drawing helpers shared by the flat pattern and the nesting layout. Coordinates are millimetres
+// Drawing helpers shared by the flat pattern, the nesting layout and the design cross-section. Coordinates are millimetres
 // (the SVG's user units), so anything measured in the viewBox is measured in mm.
 
 export const fmtMm = (x: number, digits = 2) => String(+x.toFixed(digits));

@@ -1,0 +1,197 @@
+import { useState } from "react";
+import { Link } from "react-router-dom";
+import { useQueries, useQuery } from "@tanstack/react-query";
+import type { BlankRequest } from "../../../shared/schemas/blank";
+import type { PredictionRequest } from "../../../shared/schemas/prediction";
+import { meQueryOptions } from "../../api/auth";
+import { ApiError } from "../../api/client";
+import { blankQueryOptions, priceEstimateQueryOptions, type BlankResponse } from "../../api/fabrication";
+import { fmtMm } from "../../components/drawing/drawing";
+import { PriceBreakdown } from "../../components/pricing/price-breakdown";
+import { SelectField, TextField } from "../../components/ui/field";
+import { Spinner } from "../../components/ui/spinner";
+import { StatusNote } from "../../components/ui/status-note";
+import { paths } from "../../config/paths";
+import { useDebounced } from "../../lib/use-debounced";
+import { defaultMethod, flatBlankPrefill, layerBlankRequests, MAX_DRAW_STAGES, toPriceEstimateBody, type MakeMethod } from "./make-model";
+
+const METHOD_WORDS: Record<MakeMethod, string> = { drawn: "Deep-drawn can", rolled: "Rolled and seam-welded can", bent: "Bent box" };
+
+function blankSize(r: BlankResponse): string {
+  const b = r.blank;
+  if (b.kind === "disc") return `Disc Ø ${fmtMm(b.diameter_mm)} mm`;
+  const main = `${b.kind === "cross" ? "Cross" : "Rectangle"} ${fmtMm(b.length_mm)} × ${fmtMm(b.width_mm)} mm`;
+  if (r.method === "rolled") return `${main} + 2 discs Ø ${fmtMm(r.endCaps[0].diameter_mm)} mm`;
+  if (r.method === "bent" && r.lid) return `${main}; lid: cross ${fmtMm(r.lid.blank.length_mm)} × ${fmtMm(r.lid.blank.width_mm)} mm`;
+  return main;
+}
+
+function forming(r: BlankResponse): string {
+  if (r.method === "drawn") {
+    const n = r.drawStages.length;
+    return `${n} draw${n === 1 ? "" : "s"} · ${r.processAnneals === 0 ? "no process anneal" : `${r.processAnneals} process anneal${r.processAnneals === 1 ? "" : "s"}`}`;
+  }
+  if (r.method === "bent") return `${r.bendCount} bends${r.lid ? " + 4 on the lid" : ""} · ${fmtMm(r.weldLength_mm, 0)} mm corner welds`;
+  return `rolled · ${fmtMm(r.weldLength_mm, 0)} mm seam weld · 2 end discs welded on`;
+}
+
+const kg = (x: number) => `${x.toFixed(3)} kg`;
+
+/** What the design takes to make: one part per layer, its blank, forming and mass; signed in, the price. */
+export function MakePanel({ request }: { request: PredictionRequest }) {
+  const me = useQuery(meQueryOptions);
+  const [chosen, setChosen] = useState<"drawn" | "rolled" | "auto">("auto");
+  const [quantity, setQuantity] = useState("10");
+  const cylinder = request.shape === "cylinder";
+
+  // the draws every layer would need decide the default method for a can
+  const drawn = useQueries({ queries: cylinder ? layerBlankRequests(request, "drawn").map((b) => ({ ...blankQueryOptions(b), retry: false })) : [] });
+  const drawStages = cylinder && drawn.every((q) => q.data?.method === "drawn") ? drawn.map((q) => (q.data?.method === "drawn" ? q.data.drawStages.length : 0)) : null;
+  const automatic = defaultMethod(request.shape, drawStages);
+  const method = cylinder && chosen !== "auto" ? chosen : automatic;
+
+  const requests: BlankRequest[] = method ? layerBlankRequests(request, method) : [];
+  const blanks = useQueries({ queries: requests.map((b) => ({ ...blankQueryOptions(b), retry: false })) });
+
+  const signedIn = Boolean(me.data);
+  const priceBody = useDebounced(toPriceEstimateBody(request, method, quantity), 300);
+  const estimate = useQuery({
+    ...priceEstimateQueryOptions(priceBody.ok ? priceBody.body : { configuration: { shape: "cylinder", method: "drawn", dimensions_mm: {}, layers: [] }, quantity: 1 }),
+    enabled: signedIn && priceBody.ok,
+    retry: false,
+  });
+
+  if (request.shape === "sphere" || !method) {
+    return (
+      <StatusNote tone="info" word="Not made here">
+        A sphere is not made on this shop's routings (deep-drawn or rolled cans, bent boxes), so there is no blank and no price for it. A can or a box of similar size can be checked instead.
+      </StatusNote>
+    );
+  }
+
+  const masses = blanks.map((q) => q.data?.mass_kg);
+  const allMassesKnown = blanks.length > 0 && masses.every((m) => m !== undefined);
+  const known = masses.filter((m): m is number => m !== undefined);
+  const total = known.reduce((s, m) => s + m, 0);
+  const customLayers = request.layers.flatMap((l, i) => (l.material ? [] : [i + 1]));
+  const fetching = blanks.some((q) => q.isFetching) || drawn.some((q) => q.isFetching);
+
+  return (
+    <div className="space-y-5" data-testid="make-panel">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        {cylinder ? (
+          <div className="w-full max-w-sm">
+            <SelectField
+              label="How the can is made"
+              name="makeMethod"
+              value={chosen}
+              onChange={(e) => setChosen(e.target.value as typeof chosen)}
+              hint={automatic === "rolled" ? `Rolled: a drawn can would need more than ${MAX_DRAW_STAGES} draws.` : `Drawn while it takes ${MAX_DRAW_STAGES} draws or fewer.`}
+            >
+              <option value="auto">Shop's choice ({automatic === "rolled" ? "rolled and welded" : "deep-drawn"})</option>
+              <option value="drawn">Deep-drawn from a disc</option>
+              <option value="rolled">Rolled and seam-welded, two end discs</option>
+            </SelectField>
+          </div>
+        ) : (
+          <p className="text-flux-700">Each box layer is bent from a cross-shaped blank, with a bent lid.</p>
+        )}
+        {fetching && (
+          <span className="flex items-center gap-2 text-meta text-flux-600" aria-live="polite">
+            <Spinner /> Working out the blanks…
+          </span>
+        )}
+      </div>
+
+      <ol className="space-y-3" aria-label="Parts, one per layer" data-testid="make-parts">
+        {requests.map((b, i) => {
+          const q = blanks[i];
+          const r = q.data;
+          const layer = request.layers[i];
+          return (
+            <li key={i} className="rounded-md border border-nickel-200 p-3" data-testid="make-part">
+              <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
+                <span className="font-semibold text-flux-900">
+                  Layer {i + 1} · {METHOD_WORDS[method]} · {layer.material ?? "custom μr"} {fmtMm(layer.thickness_mm)} mm
+                </span>
+                <Link className="text-meta font-semibold text-flux-700 underline underline-offset-4" to={paths.flatBlank.href(flatBlankPrefill(b))} data-testid="flat-blank-link">
+                  Flat pattern and DXF for layer {i + 1}
+                </Link>
+              </div>
+              <p className="text-meta text-flux-600">
+                Inside {b.shape === "box" ? `${fmtMm(b.dimensions_mm.width)} × ${fmtMm(b.dimensions_mm.depth)} × ${fmtMm(b.dimensions_mm.height)} mm` : `Ø ${fmtMm(b.dimensions_mm.diameter)} × ${fmtMm(b.dimensions_mm.length)} mm`}
+              </p>
+              {q.isError ? (
+                <p className="mt-1 text-meta font-semibold text-danger-700">
+                  {q.error instanceof ApiError && Object.keys(q.error.fields).length ? Object.values(q.error.fields).join(" ") : (q.error as Error).message}
+                </p>
+              ) : r ? (
+                <dl className="mt-2 flex flex-wrap gap-x-8 gap-y-2">
+                  <div>
+                    <dt className="text-meta text-flux-600">Blank</dt>
+                    <dd className="font-mono text-flux-950" data-testid="make-blank-size">{blankSize(r)}</dd>
+                  </div>
+                  <div>
+                    <dt className="text-meta text-flux-600">Forming</dt>
+                    <dd className="text-flux-950">{forming(r)}</dd>
+                  </div>
+                  <div>
+                    <dt className="text-meta text-flux-600">Mass</dt>
+                    <dd className="font-mono text-flux-950">{r.mass_kg !== undefined ? kg(r.mass_kg) : "— (no library material)"}</dd>
+                  </div>
+                </dl>
+              ) : (
+                <p className="mt-1 text-meta text-flux-600">Working out the blank…</p>
+              )}
+            </li>
+          );
+        })}
+      </ol>
+
+      <p className="text-flux-900" data-testid="make-total-mass">
+        <strong>Material in the blanks, per shield:</strong> {known.length ? kg(total) : "—"}
+        {!allMassesKnown && known.length > 0 ? " (layers with a library material only)" : ""}. Blank mass before trimming; the scrap between blanks is priced with the material.
+      </p>
+      {customLayers.length > 0 && (
+        <StatusNote tone="info" word="No price">
+          Layer {customLayers.join(" and ")} {customLayers.length === 1 ? "has" : "have"} a custom μr rather than a library material: the shop cannot say what it weighs or costs. Choose a library material to see the mass and the price.
+        </StatusNote>
+      )}
+
+      {!signedIn ? (
+        <p className="rounded-md bg-nickel-50 px-3 py-2 text-flux-800" data-testid="make-sign-in">
+          <Link className="font-semibold text-flux-700 underline underline-offset-4" to={paths.signIn.href(paths.designCheck.href())}>
+            Sign in to see the price
+          </Link>{" "}
+          of this design: every line of the build-up, the price per piece and the nesting on the stock sheet.
+        </p>
+      ) : (
+        customLayers.length === 0 && (
+          <section className="space-y-4" aria-label="Price estimate">
+            <div className="flex flex-wrap items-end justify-between gap-4">
+              <div className="w-40">
+                <TextField label="Quantity" name="makeQuantity" inputMode="numeric" autoComplete="off" value={quantity} onChange={(e) => setQuantity(e.target.value)} error={!priceBody.ok && priceBody.reason === "quantity" ? priceBody.message : undefined} />
+              </div>
+              {estimate.isFetching && (
+                <span className="flex items-center gap-2 text-meta text-flux-600">
+                  <Spinner /> Pricing…
+                </span>
+              )}
+            </div>
+            {estimate.isError && (
+              <StatusNote tone="danger" word="No price">
+                {estimate.error instanceof ApiError && Object.keys(estimate.error.fields).length ? Object.values(estimate.error.fields).join(" ") : (estimate.error as Error).message}
+              </StatusNote>
+            )}
+            {!estimate.data && estimate.isPending && priceBody.ok && <p className="text-flux-600">Pricing…</p>}
+            {estimate.data && <PriceBreakdown estimate={estimate.data} dimmed={estimate.isError || estimate.isPlaceholderData || !priceBody.ok} />}
+          </section>
+        )
+      )}
+      <p className="text-meta text-flux-600">
+        Blank sizes, masses and prices are estimates from the shop's formulas and current price list; the quote and the drawings checked by the shop are the ones that count.
+        {cylinder && request.ends === "open" ? " The can is priced with its closed end(s) as made; an open-ended tube is quoted on request." : ""}
+      </p>
+    </div>
+  );
+}

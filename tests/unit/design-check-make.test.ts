@@ -1,0 +1,88 @@
+import { describe, expect, it } from "vitest";
+import { partsForDesign } from "../../shared/fabrication";
+import { blankRequestSchema } from "../../shared/schemas/blank";
+import { priceEstimateRequestSchema } from "../../shared/schemas/price-estimate";
+import { paths } from "../../src/config/paths";
+import { checkDraft, defaultDesign, newLayer, type DesignDraft } from "../../src/features/design-check/design-model";
+import { defaultMethod, flatBlankPrefill, layerBlankRequests, toPriceEstimateBody } from "../../src/features/design-check/make-model";
+import { formFromSearch } from "../../src/features/fabrication/flat-blank-calculator";
+
+const requestOf = (d: DesignDraft) => {
+  const r = checkDraft(d);
+  if (!r.request) throw new Error(JSON.stringify(r.errors));
+  return r.request;
+};
+const twoLayerCan = () => {
+  const d = defaultDesign();
+  d.layers = [newLayer({ thickness: "1", gap: "5" }), newLayer({ material: "ni50", thickness: "1.5" })];
+  return requestOf(d);
+};
+
+describe("design check → what it takes to make", () => {
+  it("maps the form to the price-estimate body the server accepts: inside dimensions, layers, method, quantity", () => {
+    const r = toPriceEstimateBody(twoLayerCan(), "drawn", "10");
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.body).toEqual({
+      configuration: { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 120 }, layers: [{ material: "ni80", thickness_mm: 1, gap_mm: 5 }, { material: "ni50", thickness_mm: 1.5 }], cornerRadius_mm: 0, trim_mm: 0 },
+      quantity: 10,
+    });
+    expect(priceEstimateRequestSchema.safeParse(r.body).success).toBe(true);
+    const rolled = toPriceEstimateBody(twoLayerCan(), "rolled", "3");
+    expect(rolled.ok && rolled.body.configuration).toMatchObject({ method: "rolled", seamOverlap_mm: 0 });
+
+    const box = requestOf({ ...defaultDesign(), shape: "box" });
+    const b = toPriceEstimateBody(box, "bent", "25");
+    expect(b.ok && b.body).toEqual({ configuration: { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, layers: [{ material: "ni80", thickness_mm: 1 }], kFactor: 0.44, lid: true }, quantity: 25 });
+    expect(b.ok && priceEstimateRequestSchema.safeParse(b.body).success).toBe(true);
+  });
+
+  it("says in plain words what cannot be priced: a sphere, a custom μr layer, a bad quantity", () => {
+    expect(toPriceEstimateBody(requestOf({ ...defaultDesign(), shape: "sphere" }), null, "10")).toMatchObject({ ok: false, reason: "not-made" });
+    const d = defaultDesign();
+    d.layers = [newLayer(), newLayer({ kind: "custom", mu_r: "20000", resistivity: "0.58", thickness: "1" })];
+    const custom = toPriceEstimateBody(requestOf(d), "drawn", "10");
+    expect(custom).toMatchObject({ ok: false, reason: "custom-material", layers: [1] });
+    expect(!custom.ok && custom.message).toMatch(/layer 2 has a custom μr/i);
+    for (const q of ["0", "2.5", "", "abc", "100001"]) expect(toPriceEstimateBody(twoLayerCan(), "drawn", q)).toMatchObject({ ok: false, reason: "quantity" });
+  });
+
+  it("sizes each layer's blank from its own inside, as the engine's parts list does", () => {
+    const request = twoLayerCan();
+    for (const method of ["drawn", "rolled"] as const) {
+      const blanks = layerBlankRequests(request, method);
+      expect(blanks).toHaveLength(2);
+      expect(blanks[1].dimensions_mm).toEqual({ diameter: 50 + 2 * (1 + 5), length: 120 + 2 * (1 + 5) });
+      for (const b of blanks) expect(blankRequestSchema.safeParse(b).success).toBe(true);
+    }
+    // the same blanks as the price estimate's parts (same engine, same inputs)
+    const body = toPriceEstimateBody(request, "drawn", "1");
+    if (!body.ok) throw new Error("not priced");
+    const parts = partsForDesign({ ...body.body.configuration, layers: body.body.configuration.layers.map((l) => ({ thickness_mm: l.thickness_mm, gap_mm: l.gap_mm })) } as Parameters<typeof partsForDesign>[0]);
+    expect(parts.map((p) => p.blank.kind)).toEqual(["disc", "disc"]);
+    const box = layerBlankRequests(requestOf({ ...defaultDesign(), shape: "box" }), "bent");
+    expect(box[0]).toMatchObject({ method: "bent", bendRadius_mm: 1, kFactor: 0.44, lidHeight_mm: 10 });
+    expect(layerBlankRequests(requestOf({ ...defaultDesign(), shape: "sphere" }), "drawn")).toEqual([]);
+  });
+
+  it("drawn while every layer takes at most four draws, else rolled; a box is bent; a sphere is not made", () => {
+    expect(defaultMethod("cylinder", [1, 3, 4])).toBe("drawn");
+    expect(defaultMethod("cylinder", [2, 5])).toBe("rolled");
+    expect(defaultMethod("cylinder", null)).toBe("drawn");
+    expect(defaultMethod("box", null)).toBe("bent");
+    expect(defaultMethod("sphere", [1])).toBeNull();
+  });
+
+  it("a part's link opens the flat-blank page with the same inputs", () => {
+    const [, outer] = layerBlankRequests(twoLayerCan(), "drawn");
+    const href = paths.flatBlank.href(flatBlankPrefill(outer));
+    expect(href).toMatch(/^\/flat-blank\?/);
+    const form = formFromSearch(new URL(href, "http://x").searchParams);
+    expect(form).toMatchObject({ kind: "cylinder-drawn", diameter: "62", length: "132", thickness: "1.5", cornerRadius: "0", trim: "0", material: "ni50" });
+    const [box] = layerBlankRequests(requestOf({ ...defaultDesign(), shape: "box" }), "bent");
+    expect(formFromSearch(new URL(paths.flatBlank.href(flatBlankPrefill(box)), "http://x").searchParams)).toMatchObject({ kind: "box-bent", width: "80", depth: "60", height: "40", bendRadius: "1", kFactor: "0.44" });
+    // unknown kinds and keys are ignored; "none" is no material
+    expect(formFromSearch(new URLSearchParams("kind=sphere&material=none&colour=red"))).toMatchObject({ kind: "box-bent", material: "" });
+    expect(paths.flatBlank.href()).toBe("/flat-blank");
+  });
+});
