@@ -35,7 +35,7 @@ function inboxPage(messages: StoredMessage[]): string {
 <style>body{font:16px/1.5 system-ui,sans-serif;margin:0;background:#f4f4f0;color:#1d232b}main{max-width:880px;margin:0 auto;padding:24px}
 h1{font-size:22px}article{background:#fff;border:1px solid #d5d7d2;border-radius:8px;padding:16px 20px;margin:0 0 16px}
 h2{font-size:18px;margin:0}.meta{color:#5a6270;font-size:14px;margin:4px 0}pre{white-space:pre-wrap;font:15px/1.5 ui-monospace,monospace}
-form{display:inline}button{font:inherit;padding:6px 12px}</style></head>
+form{display:block;margin:0 0 16px}button{font:inherit;padding:6px 12px}</style></head>
 <body><main><h1>Mail stand-in: ${messages.length} message${messages.length === 1 ? "" : "s"}</h1>
 <p class="meta">Every mail the application sends on this machine lands here; nothing leaves it. <a href="/api/messages">JSON</a></p>
 <form method="post" action="/api/messages/clear"><button>Empty the inbox</button></form>
@@ -87,6 +87,8 @@ export async function startMailStandIn(opts: { smtpPort: number; webPort: number
       messages.length = 0;
       if (req.method === "POST") res.writeHead(303, { location: "/" }).end();
       else res.writeHead(204).end();
+    } else if (url.pathname === "/favicon.ico") {
+      res.writeHead(204).end();
     } else if (req.method === "GET" && url.pathname === "/") {
       res.writeHead(200, { "content-type": "text/html; charset=utf-8" }).end(inboxPage(messages));
     } else {

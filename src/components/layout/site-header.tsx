@@ -35,7 +35,7 @@ export function SiteHeader({ user }: { user: User | null }) {
 
         <button
           type="button"
-          className="ml-auto inline-flex min-h-touch min-w-touch items-center justify-center gap-2 rounded-md border border-flux-600 px-3 font-semibold text-flux-100 md:hidden"
+          className="ml-auto inline-flex min-h-touch min-w-touch items-center justify-center gap-2 rounded-md border border-flux-600 px-3 font-semibold text-flux-100 lg:hidden"
           aria-expanded={open}
           aria-controls={menuId}
           onClick={() => setOpen((value) => !value)}
@@ -48,10 +48,10 @@ export function SiteHeader({ user }: { user: User | null }) {
 
         <div
           id={menuId}
-          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 md:flex md:w-auto md:flex-1 md:flex-row md:items-center md:pb-0`}
+          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 lg:flex lg:w-auto lg:flex-1 lg:flex-row lg:items-center lg:pb-0`}
         >
-          <nav aria-label="Main" className="md:flex-1">
-            <ul className="flex flex-col gap-1 md:flex-row">
+          <nav aria-label="Main" className="lg:flex-1">
+            <ul className="flex flex-col gap-1 lg:flex-row">
               {items.map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navLink}>
@@ -63,12 +63,13 @@ export function SiteHeader({ user }: { user: User | null }) {
           </nav>
 
           {user && (
-            <div className="flex flex-wrap items-center gap-3 border-t border-flux-700 pt-2 md:border-0 md:pt-0">
-              <p className="leading-tight">
+            <div className="flex flex-wrap items-center gap-3 border-t border-flux-700 pt-2 lg:flex-nowrap lg:border-0 lg:pt-0">
+              {/* On a tablet the organisation would push the sign-out button onto a second row. */}
+              <p className="leading-tight lg:whitespace-nowrap">
                 <span className="block font-semibold text-white">{user.name}</span>
                 <span className="font-mono text-meta text-flux-200">
                   {roleLabels[user.role]}
-                  {user.organizationName ? ` · ${user.organizationName}` : ""}
+                  {user.organizationName ? <span className="lg:hidden xl:inline"> · {user.organizationName}</span> : null}
                 </span>
               </p>
               <button

@@ -7,15 +7,19 @@ import { PageHeader } from "../../components/ui/panel";
 interface Area {
   title: string;
   text: string;
+  /** where it lives, once it exists; areas without one say what work brings them */
+  link?: { to: string; label: string };
 }
 
-// What each role's home will hold once the ordering, shop-floor and quality work lands.
+// What each role's home holds: a link where the page exists, a plain "coming" note where it does not yet.
 const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> = {
   customer: {
     lead: "Your shield designs, quotes, orders and certificates, in one place.",
     comingWith: "the ordering work",
     areas: [
-      { title: "Designs", text: "Saved shield configurations with their predicted attenuation." },
+      { title: "Design check", text: "Predicted attenuation, saturation margins and what each layer takes to make, with its price.", link: { to: paths.designCheck.href(), label: "Check a design" } },
+      { title: "Flat blank", text: "The blank a can or box is cut from, its flat pattern to scale and the DXF for the laser.", link: { to: paths.flatBlank.href(), label: "Size a blank" } },
+      { title: "Saved designs", text: "Saved shield configurations with their predicted attenuation." },
       { title: "Quotes", text: "Prices per quantity, valid until the date shown." },
       { title: "Orders", text: "Payment status and each lot's progress through the shop." },
       { title: "Certificates", text: "Measured attenuation per lot, downloadable and verifiable." },
@@ -43,8 +47,9 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
     areas: [
       { title: "Orders to release", text: "Paid orders waiting to be split into jobs and lots for the floor." },
       { title: "Furnace runs", text: "Hydrogen anneal runs: lots loaded, peak temperature, soak, dew point." },
-      { title: "Prices and materials", text: "Alloy prices, sheet stock and the material library." },
-      { title: "Users", text: "Invite customers and staff, and see who has access." },
+      { title: "Shop rates", text: "Alloy prices, operation rates, margin, quantity breaks, stock sheets and forming limits.", link: { to: paths.adminShopRates.href(), label: "Edit shop rates" } },
+      { title: "Materials", text: "The material library the predictions and blanks compute with, each value with its source.", link: { to: paths.adminMaterials.href(), label: "Edit materials" } },
+      { title: "Users", text: "Invite customers and staff, and see who has access.", link: { to: paths.adminUsers.href(), label: "Manage users" } },
     ],
   },
 };
@@ -59,22 +64,16 @@ export function RoleHome({ user }: { user: User }) {
           <li key={area.title} className="rounded-lg border border-nickel-200 bg-white p-5 shadow-sm">
             <h2 className="text-h4">{area.title}</h2>
             <p className="mt-1 text-flux-700">{area.text}</p>
-            <p className="mt-3 inline-block rounded bg-flux-50 px-2 py-0.5 font-mono text-meta text-flux-700">Coming with {plan.comingWith}</p>
+            {area.link ? (
+              <p className="mt-3">
+                <ButtonLink to={area.link.to}>{area.link.label}</ButtonLink>
+              </p>
+            ) : (
+              <p className="mt-3 inline-block rounded bg-flux-50 px-2 py-0.5 font-mono text-meta text-flux-700">Coming with {plan.comingWith}</p>
+            )}
           </li>
         ))}
       </ul>
-      {user.role === "admin" && (
-        <p className="mt-6">
-          <ButtonLink to={paths.adminUsers.href()}>Manage users</ButtonLink>
-        </p>
-      )}
-      {user.role === "customer" && (
-        <p className="mt-6">
-          <ButtonLink to={paths.designCheck.href()} variant="primary">
-            Check a design
-          </ButtonLink>
-        </p>
-      )}
     </>
   );
 }
