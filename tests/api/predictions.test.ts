@@ -1,6 +1,7 @@
 import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { seedMaterials } from "../../server/db/seed";
+import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 import { buildTestApp, buildUser, signIn } from "../support/app";
 
 const app = buildTestApp({ RATE_LIMIT_PUBLIC: "0" });
@@ -9,17 +10,7 @@ beforeAll(async () => {
 });
 
 // The contract's example body.
-const example = {
-  shape: "cylinder",
-  dimensions_mm: { diameter: 50, length: 120 },
-  ends: "closed",
-  layers: [
-    { material: "ni80", thickness_mm: 1.0, gap_mm: 10 },
-    { mu_r: 20000, resistivity_ohm_m: 5.8e-7, saturation_T: 0.75, thickness_mm: 1.0 },
-  ],
-  field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
-  state: "annealed",
-};
+const example = structuredClone(contractPredictionExample);
 type Body = typeof example & Record<string, unknown>;
 const withBody = (change: (b: Body) => void) => {
   const b = structuredClone(example) as Body;

@@ -10,18 +10,10 @@ import { materialLibrary, findMaterial } from "../../shared/physics/materials";
 import { muFromCurve, permeabilityFor } from "../../shared/physics/permeability";
 import { cylindricalShieldingFactor, staticCylindricalShell } from "../../shared/physics/exact";
 import { demagnetizingFactor } from "../../shared/physics/thin";
+import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 
-const example: PredictionInput = {
-  shape: "cylinder",
-  dimensions_mm: { diameter: 50, length: 120 },
-  ends: "closed",
-  layers: [
-    { material: "ni80", thickness_mm: 1.0, gap_mm: 10 },
-    { mu_r: 20000, resistivity_ohm_m: 5.8e-7, saturation_T: 0.75, thickness_mm: 1.0 },
-  ],
-  field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
-  state: "annealed",
-};
+// The contract's example body.
+const example: PredictionInput = structuredClone(contractPredictionExample) as PredictionInput;
 
 describe("material library", () => {
   it("has the contract's ids with SI values and sources", () => {

@@ -1,19 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { predictionIssueFields, predictionRequestSchema, type PredictionRequest } from "../../shared/schemas/prediction";
 import { predictShield, type PredictionInput } from "../../shared/physics/predict";
+import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 
 // The example body of POST /api/predictions in api-contract.md
-const example = {
-  shape: "cylinder",
-  dimensions_mm: { diameter: 50, length: 120 },
-  ends: "closed",
-  layers: [
-    { material: "ni80", thickness_mm: 1.0, gap_mm: 10 },
-    { mu_r: 20000, resistivity_ohm_m: 5.8e-7, saturation_T: 0.75, thickness_mm: 1.0 },
-  ],
-  field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
-  state: "annealed",
-};
+const example = structuredClone(contractPredictionExample);
 
 const fieldsOf = (body: unknown): Record<string, string> => {
   const r = predictionRequestSchema.safeParse(body);
