@@ -76,9 +76,24 @@ export interface LayerResult {
   skinDepth_mm: number | null;
 }
 
+/** One cable hole and its collar (chimney), in the order given. */
+export interface HoleResult {
+  index: number;
+  diameter_mm: number;
+  collarLength_mm: number;
+  /** the collar's own attenuation, field along the collar (the weak case, j = 2.405) */
+  collarAttenuation_db: number;
+  /** the collar length whose own attenuation reaches the walls' predicted figure (capped, see HOLE_TARGET_MAX_DB) */
+  neededCollarLength_mm: number;
+}
+
 export interface PredictionResult {
   shieldingFactor: number;
+  /** the walls and the holes together (see holeLimit) */
   attenuation_db: number;
+  /** the walls alone, before the holes' leakage is counted; equals attenuation_db without holes */
+  wallAttenuation_db: number;
+  holes: HoleResult[];
   layers: LayerResult[];
   warnings: PredictionWarning[];
   method: string;
@@ -103,6 +118,14 @@ export type MaterialLookup = MaterialProperties[] | ((id: string) => MaterialPro
 const NICKEL_IRON_FORMING_LIMIT_MM = 3;
 const MAX_MODEL_FREQUENCY_HZ = 100_000;
 const THIN_FORM_RADIUS_FRACTION = 1 / 5;
+/**
+ * The needed collar length aims at the walls' predicted figure, but no higher than this: past
+ * about 200 dB the walls no longer decide what a built shield reaches (seams and lids do), the
+ * same line the page's chart clips at. 200 dB along a collar is about 4.8 hole diameters.
+ */
+export const HOLE_TARGET_MAX_DB = 200;
+/** A hole is reported as limiting the shield when it costs at least this much of the walls' figure. */
+const HOLE_LIMITED_DB = 1;
 
 /** A layer with its geometry and working properties resolved. Lengths in mm. */
 interface Layer {
@@ -299,6 +322,12 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     return layer;
   });
 
+  for (const [i, h] of (input.holes ?? []).entries()) {
+    if (!finitePositive(h.diameter_mm)) throw new PredictionInputError(`holes.${i}.diameter_mm`, "The hole diameter must be a positive number of millimetres.");
+    const collar = h.collarLength_mm ?? 0;
+    if (!(Number.isFinite(collar) && collar >= 0)) throw new PredictionInputError(`holes.${i}.collarLength_mm`, "The collar length must be 0 or more millimetres.");
+  }
+
   // Outermost first: the field a layer sees is the applied field reduced by the layers outside
   // it; B_wall comes from the μ → ∞ estimate, then μ is read from the curve at that induction.
   const B_applied = amplitude_uT * 1e-6;
@@ -318,7 +347,10 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     }
   }
 
-  const answer = shapeShielding(ctx, layers);
+  const walls = shapeShielding(ctx, layers);
+  const wallAttenuation_db = Math.max(0, walls.attenuation_db);
+  const holes = holeResults(input.holes ?? [], wallAttenuation_db);
+  const answer = holes.length ? holeLimit(walls, holes, insideArea_mm2(ctx, layers[0])) : walls;
   const shieldingFactor = Math.max(1, Math.min(answer.S.abs(), Number.MAX_VALUE));
   // A passive shell does not amplify a uniform field; the open-end and box combinations can read
   // below 1 for near-transparent walls, so the figure is floored at 1 (0 dB).
@@ -327,7 +359,8 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
   const warnings: PredictionWarning[] = saturationWarnings(
     layers.map((l) => ({ label: describe(l), wallFlux_T: l.Bwall, saturation_T: l.sat })),
   );
-  warnings.push(...designWarnings(ctx, layers, input, attenuation_db));
+  warnings.push(...designWarnings(ctx, layers, input, wallAttenuation_db));
+  warnings.push(...holeWarnings(holes, wallAttenuation_db, attenuation_db));
 
   const rough = shape === "box" || ctx.ends === "open" || ctx.orientation === "axial";
   const fraction = shape === "box" ? 0.35 : rough ? 0.3 : 0.2;
@@ -335,6 +368,8 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
   return {
     shieldingFactor,
     attenuation_db,
+    wallAttenuation_db,
+    holes,
     layers: layers.map((l) => {
       const d = skinDepth_m(l.rho, l.mu, f);
       return {
@@ -362,6 +397,82 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     ...(answer.boxEstimates ? { boxEstimates: answer.boxEstimates } : {}),
   };
 }
+
+// ---- Cable holes and their collars -------------------------------------------------------
+// A collar (chimney) of length L round a hole of diameter d is a tube below cut-off: the field
+// that enters it decays as exp(−j·L/a), a = d/2. The weak case is taken throughout, the field
+// along the collar's axis (j = 2.405 for a high-μ wall at low frequency), because where the
+// collar points relative to the field is rarely known at the design stage. [derived]
+
+function holeResults(holes: HoleInput[], wall_db: number): HoleResult[] {
+  const target_db = Math.min(wall_db, HOLE_TARGET_MAX_DB);
+  return holes.map((h, index) => {
+    const collarLength_mm = h.collarLength_mm ?? 0;
+    return {
+      index,
+      diameter_mm: h.diameter_mm,
+      collarLength_mm,
+      collarAttenuation_db: collarAttenuation_db(collarLength_mm, h.diameter_mm, "axial"),
+      neededCollarLength_mm: collarLengthFor_mm(target_db, h.diameter_mm, "axial"),
+    };
+  });
+}
+
+/** Inside surface of the innermost layer, the wall the holes are compared with. */
+function insideArea_mm2(ctx: Ctx, inner: Layer): number {
+  if (ctx.shape === "sphere") return 4 * Math.PI * inner.a ** 2;
+  if (ctx.shape === "box") {
+    const [w, d, h] = inner.box;
+    return 2 * (w * d + w * h + d * h);
+  }
+  const D = 2 * inner.a;
+  return Math.PI * D * inner.L + (ctx.ends === "closed" ? 2 * (Math.PI * D * D) / 4 : 0);
+}
+
+/**
+ * Holes do limit the reported figure. Each hole is a leak beside the walls, and the leaks add:
+ *   1/|S_eff| = 1/|S_walls| + Σ_i (A_hole,i / A_wall)·exp(−j·L_i/a_i)
+ * with A_wall the innermost layer's inside surface and j = 2.405. The area ratio stands for the
+ * share of the enclosure's surface the hole replaces (a plain hole, L = 0, lets through its share
+ * of the outside field; a small hole in a large shield then costs little); the collar's decay
+ * multiplies it. Magnitudes are added (in phase, the worst case), the walls' phase is kept, as
+ * for the open ends. A collar long enough to reach the walls' figure on its own costs under
+ * 0.1 dB, so the needed length below is a length with margin. An estimate: the real leakage
+ * depends on where the hole sits in the field. [derived]
+ */
+function holeLimit(walls: ShapeAnswer, holes: HoleResult[], wallArea_mm2: number): ShapeAnswer {
+  const leak = holes.reduce((sum, h) => {
+    const share = Math.min(1, (Math.PI * h.diameter_mm ** 2) / 4 / wallArea_mm2);
+    return sum + share * Math.exp(-(h.collarAttenuation_db * Math.LN10) / 20);
+  }, 0);
+  const S = walls.S.div(1 + leak * walls.S.abs());
+  return { ...walls, S, attenuation_db: dbOf(S), method: `${walls.method}; cable-hole leakage through collars exp(−2.405·L/a)` };
+}
+
+function holeWarnings(holes: HoleResult[], wall_db: number, A: number): PredictionWarning[] {
+  const out: PredictionWarning[] = [];
+  for (const h of holes) {
+    if (h.collarLength_mm >= h.neededCollarLength_mm) continue;
+    const size = `Hole ${h.index + 1} (Ø ${fmtMm(h.diameter_mm)} mm)`;
+    const have = h.collarLength_mm > 0 ? `its ${fmtMm(h.collarLength_mm)} mm collar gives about ${h.collarAttenuation_db.toFixed(0)} dB` : "it has no collar";
+    const target = Math.min(wall_db, HOLE_TARGET_MAX_DB);
+    out.push({
+      code: "SHORT_COLLAR",
+      message: `${size}: ${have}, short of the ${target.toFixed(0)} dB the walls are predicted to give. Make the collar at least ${roundUp_mm(h.neededCollarLength_mm)} mm long (${fmtMm(h.neededCollarLength_mm / h.diameter_mm)} hole diameters), or the hole limits the shield.`,
+    });
+  }
+  if (holes.length && wall_db - A >= HOLE_LIMITED_DB)
+    out.push({
+      code: "HOLE_LIMITED",
+      message: `The cable hole${holes.length === 1 ? "" : "s"} limit${holes.length === 1 ? "s" : ""} the shield: with ${holes.length === 1 ? "it" : "them"} the estimate is ${A.toFixed(1)} dB instead of the walls' ${wall_db.toFixed(1)} dB. Longer collars bring it back.`,
+    });
+  return out;
+}
+
+const fmtMm = (x: number) => String(+x.toPrecision(3));
+/** A length to ask for: rounded up (0.1 mm below 100 mm, else whole mm), so asking for it clears the warning. */
+export const roundUpLength_mm = (x: number): number => (x < 100 ? +(Math.ceil(x * 10) / 10).toFixed(1) : Math.ceil(x));
+const roundUp_mm = (x: number) => String(roundUpLength_mm(x));
 
 function designWarnings(ctx: Ctx, layers: Layer[], input: PredictionInput, A: number): PredictionWarning[] {
   const out: PredictionWarning[] = [];
@@ -396,18 +507,6 @@ function designWarnings(ctx: Ctx, layers: Layer[], input: PredictionInput, A: nu
       code: "OPEN_END_ESTIMATE",
       message: "Open ends leak: the figure is an estimate for the middle of the can and falls off toward the ends.",
     });
-  for (const [i, h] of (input.holes ?? []).entries()) {
-    // Conservative: the weak case, field along the collar axis (j = 2.405).
-    const have = h.collarLength_mm ?? 0;
-    const need = collarLengthFor_mm(A, h.diameter_mm, "axial");
-    if (have < need) {
-      const reach = collarAttenuation_db(have, h.diameter_mm, "axial");
-      out.push({
-        code: "SHORT_COLLAR",
-        message: `Hole ${i + 1} (${h.diameter_mm} mm): a ${have} mm collar gives about ${reach.toFixed(0)} dB, short of the ${A.toFixed(0)} dB predicted for the walls; a collar of about ${Math.ceil(need)} mm is needed or the hole limits the shield.`,
-      });
-    }
-  }
   if (layers.every((l) => l.mu < 1.5) && A < 20)
     out.push({
       code: "NON_MAGNETIC_LOW_FREQUENCY",

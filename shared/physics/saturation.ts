@@ -10,6 +10,7 @@ export type WarningCode =
   | "BOX_ESTIMATE"
   | "OPEN_END_ESTIMATE"
   | "SHORT_COLLAR"
+  | "HOLE_LIMITED"
   | "NON_MAGNETIC_LOW_FREQUENCY";
 
 export interface PredictionWarning {

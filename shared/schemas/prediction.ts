@@ -8,6 +8,7 @@ export const MAX_FREQUENCY_HZ = 100_000;
 /** 10 T: far above any field a passive shield is used in; catches unit slips (µT vs T). */
 export const MAX_AMPLITUDE_UT = 10_000_000;
 export const MAX_LAYERS = 6;
+export const MAX_HOLES = 50;
 
 const mm = (what: string) =>
   z.number({ error: `Enter ${what} in millimetres as a number.` }).positive({ error: `${what[0].toUpperCase()}${what.slice(1)} must be greater than 0 mm.` }).max(100_000, { error: `${what[0].toUpperCase()}${what.slice(1)} is too large.` });
@@ -56,7 +57,7 @@ const common = {
     .max(MAX_LAYERS, { error: `At most ${MAX_LAYERS} layers.` }),
   field: fieldSchema,
   state: z.enum(["annealed", "as-formed"], { error: "State must be annealed or as-formed." }).default("annealed"),
-  holes: z.array(holeSchema).max(50).optional(),
+  holes: z.array(holeSchema, { error: "Holes must be a list." }).max(MAX_HOLES, { error: `At most ${MAX_HOLES} holes.` }).optional(),
 };
 
 const cylinder = z.object({
@@ -85,6 +86,15 @@ export const predictionRequestSchema = z
     const d = body.dimensions_mm as Record<string, number>;
     let r = body.shape === "box" ? Math.min(d.width, d.depth, d.height) / 2 : d.diameter / 2;
     if (!(r > 0)) return; // the dimension's own issue already says what is wrong
+    // A cable hole must fit in the wall it is cut in: narrower than the smallest inside size.
+    (body.holes ?? []).forEach((h, i) => {
+      if (h.diameter_mm >= 2 * r)
+        ctx.addIssue({
+          code: "custom",
+          path: ["holes", i, "diameter_mm"],
+          message: `The hole (${h.diameter_mm} mm) must be narrower than the shield's smallest inside size (${+(2 * r).toFixed(3)} mm).`,
+        });
+    });
     body.layers.forEach((l, i) => {
       if (l.thickness_mm >= r)
         ctx.addIssue({

@@ -88,6 +88,9 @@ describe("POST /api/predictions", () => {
     ["a numeric string", withBody((b) => ((b.field as Record<string, unknown>).amplitude_uT = "100")), "field.amplitude_uT"],
     ["zero amplitude", withBody((b) => (b.field.amplitude_uT = 0)), "field.amplitude_uT"],
     ["unknown shape", withBody((b) => (b.shape = "torus")), "shape"],
+    ["zero hole diameter", { ...example, holes: [{ diameter_mm: 0, collarLength_mm: 10 }] }, "holes.0.diameter_mm"],
+    ["negative collar", { ...example, holes: [{ diameter_mm: 8, collarLength_mm: 10 }, { diameter_mm: 8, collarLength_mm: -1 }] }, "holes.1.collarLength_mm"],
+    ["hole wider than the can", { ...example, holes: [{ diameter_mm: 60 }] }, "holes.0.diameter_mm"],
   ];
   it.each(bad)("400 naming the field: %s", async (_name, body, field) => {
     const res = await post(body);
@@ -95,6 +98,23 @@ describe("POST /api/predictions", () => {
     expect(res.body.error.code).toBe("VALIDATION_FAILED");
     expect(res.body.error.fields).toHaveProperty([field]);
     expect(typeof res.body.error.fields[field]).toBe("string");
+  });
+
+  it("reports each cable hole's collar and warns, in words, when one is short", async () => {
+    const res = await post({ ...example, holes: [{ diameter_mm: 10, collarLength_mm: 5 }, { diameter_mm: 8 }] });
+    expect(res.status).toBe(200);
+    const b = res.body;
+    expect(b.holes).toHaveLength(2);
+    expect(b.holes[0]).toMatchObject({ index: 0, diameter_mm: 10, collarLength_mm: 5 });
+    expect(b.holes[1]).toMatchObject({ index: 1, diameter_mm: 8, collarLength_mm: 0, collarAttenuation_db: 0 });
+    expect(b.holes[0].neededCollarLength_mm).toBeGreaterThan(5);
+    expect(b.attenuation_db).toBeLessThan(b.wallAttenuation_db);
+    const short = b.warnings.filter((w: { code: string }) => w.code === "SHORT_COLLAR");
+    expect(short.map((w: { message: string }) => w.message.slice(0, 7))).toEqual(["Hole 1 ", "Hole 2 "]);
+    expect(b.warnings.map((w: { code: string }) => w.code)).toContain("HOLE_LIMITED");
+    const none = await post(example);
+    expect(none.body.holes).toEqual([]);
+    expect(none.body.wallAttenuation_db).toBe(none.body.attenuation_db);
   });
 
   it("states the model's frequency range when refusing one", async () => {

@@ -69,6 +69,61 @@ async function journey(page: Page, who: string) {
   await expect.poll(() => thickness.getAttribute("aria-invalid")).toBe("false");
 }
 
+/** The total price once the debounce and the request are over. */
+async function settledPrice(page: Page): Promise<string> {
+  const make = page.getByTestId("make-panel");
+  await page.waitForTimeout(500);
+  await expect.poll(() => make.getByText("Pricing…").count(), { timeout: 10_000 }).toBe(0);
+  return (await make.getByTestId("total-price").textContent())!;
+}
+const euros = (s: string) => Number(s.replace(/[^\d.]/g, ""));
+
+const hole = (page: Page, n: number) => page.getByRole("group", { name: `Hole ${n}`, exact: true });
+
+/** Adds a 10 mm hole, gives it a 5 mm collar (too short), then a long enough one; removes it at the end. */
+async function cableHoles(page: Page, who: string) {
+  const warnings = page.getByTestId("warnings");
+  await page.getByText(/a collar 1–2 hole diameters long is the usual practice/i).waitFor();
+  let before = (await headline(page).textContent())!;
+  await page.getByRole("button", { name: /add a cable hole/i }).click();
+  await hole(page, 1).waitFor();
+  expect(await hole(page, 1).getByLabel(/hole diameter/i).inputValue()).toBe("10");
+  await hole(page, 1).getByLabel(/collar length/i).fill("5");
+  await hole(page, 1).getByText("The collar is 0.5 hole diameters long.").waitFor();
+  before = await changedFrom(page, before);
+  const short = warnings.getByText(/Hole 1 \(Ø 10 mm\): its 5 mm collar gives about 21 dB, short of the \d+ dB the walls are predicted to give\. Make the collar at least [\d.]+ mm long/);
+  await short.waitFor();
+  await warnings.getByText(/the cable hole limits the shield/i).waitFor();
+  const rows = page.getByTestId("hole-row");
+  expect(await rows.count()).toBe(1);
+  await rows.first().getByText("too short").waitFor();
+  await rows.first().getByText("21 dB").waitFor();
+  await page.getByTestId("cross-section").locator('[data-role="hole"]').first().waitFor();
+  await page.getByRole("img", { name: /1 cable hole with its collar/ }).waitFor();
+  await h.shot(page, `design-check-${who}-short-collar`);
+  await page.getByTestId("prediction").screenshot({ path: `.test-results/screenshots/design-check-${who}-short-collar-results.png` });
+  await page.getByTestId("cross-section").screenshot({ path: `.test-results/screenshots/design-check-${who}-short-collar-section.png` });
+  await page.getByRole("group", { name: "Cable holes" }).screenshot({ path: `.test-results/screenshots/design-check-${who}-holes-form.png` });
+
+  // the length the warning asks for clears it
+  const asked = /at least ([\d.]+) mm/.exec((await short.textContent())!)![1];
+  await hole(page, 1).getByLabel(/collar length/i).fill(asked);
+  before = await changedFrom(page, before);
+  await rows.first().getByText("long enough").waitFor();
+  await expect.poll(() => warnings.getByText(/Hole 1 \(/).count()).toBe(0);
+  expect(await page.getByText(/the cable hole limits the shield/i).count()).toBe(0);
+  await h.shot(page, `design-check-${who}-long-collar`);
+
+  // a bad diameter: the schema's message beside the field
+  const diameter = hole(page, 1).getByLabel(/hole diameter/i);
+  await diameter.fill("0");
+  await hole(page, 1).getByText(/hole diameter must be greater than 0 mm/i).waitFor();
+  expect(await diameter.getAttribute("aria-invalid")).toBe("true");
+  await diameter.fill("10");
+  await expect.poll(() => diameter.getAttribute("aria-invalid")).toBe("false");
+  await page.getByTestId("prediction").and(page.locator(":not([aria-busy])")).waitFor();
+}
+
 describe("design check, as a customer engineer would use it", () => {
   it("an anonymous visitor: default result, edits, a second layer, a variant, a bad value", async () => {
     const { page, consoleErrors, offMachine } = await h.newPage();
@@ -86,6 +141,9 @@ describe("design check, as a customer engineer would use it", () => {
     expect(await make.getByTestId("total-price").count()).toBe(0);
     await h.shot(page, "design-check-anonymous-make");
     await make.screenshot({ path: ".test-results/screenshots/design-check-anonymous-make-panel.png" });
+
+    // a cable hole with a short collar: the warning in words; a longer collar: the warning goes
+    await cableHoles(page, "anonymous");
 
     // units a person types: inches convert before they are sent
     await page.getByLabel(/^lengths in/i).selectOption("in");
@@ -146,6 +204,25 @@ describe("design check, as a customer engineer would use it", () => {
     expect(await make.getByTestId("price-table").locator("tbody tr").count()).toBeGreaterThan(2);
     await make.getByRole("img", { name: /stock sheet/i }).first().waitFor();
     await make.getByText(/are estimates/i).first().waitFor();
+
+    // a cable hole with a collar: a collar part on each layer, and the price goes up
+    const noHoles = await settledPrice(page);
+    await page.getByRole("button", { name: /add a cable hole/i }).click();
+    await hole(page, 1).getByLabel(/collar length/i).fill("25");
+    await expect.poll(() => make.getByTestId("make-collar").count(), { timeout: 10_000 }).toBe(2);
+    await make.getByTestId("make-collars").getByText(/1 hole × 2 layers = 2 rolled, welded tubes/).waitFor();
+    await make.getByTestId("make-collar").first().getByText(/collar for the Ø 10 mm hole, 25 mm long/).waitFor();
+    await expect.poll(() => make.getByTestId("total-price").textContent(), { timeout: 10_000 }).not.toBe(noHoles);
+    const withCollars = await settledPrice(page);
+    expect(euros(withCollars)).toBeGreaterThan(euros(noHoles)); // two tubes, their welds and material
+    await make.getByRole("img", { name: /stock sheet/i }).first().waitFor();
+    await make.scrollIntoViewIfNeeded();
+    await h.shot(page, "design-check-customer-make-collars");
+    await make.screenshot({ path: ".test-results/screenshots/design-check-customer-make-collars-panel.png" });
+    await page.getByRole("button", { name: "Remove hole 1" }).click();
+    await expect.poll(() => make.getByTestId("make-collars").count()).toBe(0);
+    await expect.poll(() => make.getByTestId("total-price").textContent(), { timeout: 10_000 }).toBe(noHoles);
+
     const total10 = (await make.getByTestId("total-price").textContent())!;
     await make.getByLabel(/^quantity/i).fill("50");
     await expect.poll(() => make.getByTestId("total-price").textContent(), { timeout: 10_000 }).not.toBe(total10);

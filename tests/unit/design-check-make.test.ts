@@ -3,7 +3,7 @@ import { partsForDesign } from "../../shared/fabrication";
 import { blankRequestSchema } from "../../shared/schemas/blank";
 import { priceEstimateRequestSchema } from "../../shared/schemas/price-estimate";
 import { paths } from "../../src/config/paths";
-import { checkDraft, defaultDesign, newLayer, type DesignDraft } from "../../src/features/design-check/design-model";
+import { checkDraft, defaultDesign, newHole, newLayer, type DesignDraft } from "../../src/features/design-check/design-model";
 import { defaultMethod, flatBlankPrefill, layerBlankRequests, toPriceEstimateBody } from "../../src/features/design-check/make-model";
 import { formFromSearch } from "../../src/features/fabrication/flat-blank-calculator";
 
@@ -35,6 +35,28 @@ describe("design check → what it takes to make", () => {
     const b = toPriceEstimateBody(box, "bent", "25");
     expect(b.ok && b.body).toEqual({ configuration: { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, layers: [{ material: "ni80", thickness_mm: 1 }], kFactor: 0.44, lid: true }, quantity: 25 });
     expect(b.ok && priceEstimateRequestSchema.safeParse(b.body).success).toBe(true);
+  });
+
+  it("sends the cable holes with the price request, so their collars become parts and are priced", () => {
+    const d = defaultDesign();
+    d.layers = [newLayer({ thickness: "1", gap: "5" }), newLayer({ material: "ni50", thickness: "1.5" })];
+    d.holes = [newHole("mm", { diameter: "8", collar: "16" }), newHole("mm", { diameter: "5", collar: "" })];
+    for (const method of ["drawn", "rolled"] as const) {
+      const r = toPriceEstimateBody(requestOf(d), method, "10");
+      if (!r.ok) throw new Error(r.message);
+      expect(r.body.configuration.holes).toEqual([{ diameter_mm: 8, collarLength_mm: 16 }, { diameter_mm: 5, collarLength_mm: 0 }]);
+      expect(priceEstimateRequestSchema.safeParse(r.body).success).toBe(true);
+    }
+    const box = toPriceEstimateBody(requestOf({ ...d, shape: "box" }), "bent", "1");
+    expect(box.ok && box.body.configuration.holes).toEqual([{ diameter_mm: 8, collarLength_mm: 16 }, { diameter_mm: 5, collarLength_mm: 0 }]);
+    // the engine makes one collar per collared hole on each layer, telescoping: 8 mm, then 8 + 2·1 mm
+    const r = toPriceEstimateBody(requestOf(d), "drawn", "1");
+    if (!r.ok) throw new Error(r.message);
+    const c = r.body.configuration;
+    const parts = partsForDesign({ ...c, layers: c.layers.map((l) => ({ thickness_mm: l.thickness_mm, gap_mm: l.gap_mm })), holes: c.holes!.filter((h) => (h.collarLength_mm ?? 0) > 0) } as Parameters<typeof partsForDesign>[0]);
+    const collars = parts.filter((p) => p.role === "collar");
+    expect(collars.map((p) => p.layer)).toEqual([0, 1]);
+    expect(collars.every((p) => p.blank.kind === "rectangle" && p.blank.width_mm === 16)).toBe(true);
   });
 
   it("says in plain words what cannot be priced: a sphere, a custom μr layer, a bad quantity", () => {

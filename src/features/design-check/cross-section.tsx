@@ -55,10 +55,30 @@ export function CrossSection({ request, materials }: { request: PredictionReques
   const labelX = X + margin;
   const labelWidth = font * 0.56 * Math.max(...rings.map((r) => r.label.length)) + font;
   const scale = niceLength(2 * X);
-  const top = -Y - margin - font * 1.6;
+
+  // Cable holes: cut through every layer, a collar stub standing out from the outer layer, drawn
+  // in the top of the section (round shapes: within 30° either side of the top; box: along the top
+  // side), away from the labels on the right. Where the holes really go is the drawing's business.
+  const outerT = last.t;
+  const innerT = request.layers.slice(0, -1).reduce((sum, l) => sum + l.thickness_mm, 0);
+  const holes = (request.holes ?? []).map((h, i, all) => {
+    // the outer layer's collar telescopes over the inner ones: its bore is d + 2·Σ inner walls
+    const bore = h.diameter_mm + 2 * innerT;
+    const n = all.length;
+    const spread = n === 1 ? 0 : (i / (n - 1) - 0.5) * 2;
+    const angle = box ? -90 : -90 + 30 * spread; // degrees, 0 = right
+    const offset = box ? spread * 0.6 * (X - bore / 2 - outerT) : 0;
+    const rad = (angle * Math.PI) / 180;
+    const reach = (box ? Y : X) + h.collarLength_mm;
+    const tip = box ? [offset, -reach] : [reach * Math.cos(rad), reach * Math.sin(rad)];
+    return { i, d: h.diameter_mm, bore, L: h.collarLength_mm, angle, offset, tip };
+  });
+  const holeFont = font * 0.8;
+  const contentTop = Math.min(-Y - margin, ...holes.map((h) => h.tip[1] - holeFont * 1.6));
+  const top = contentTop - font * 1.6;
   const bottom = Y + margin + font * 2.6;
-  const left = -X - margin;
-  const right = labelX + font + labelWidth;
+  const left = Math.min(-X - margin, ...holes.map((h) => h.tip[0] - holeFont * 2));
+  const right = Math.max(labelX + font + labelWidth, ...holes.map((h) => h.tip[0] + holeFont * 2));
   // leaders run level to the right, spread over the innermost opening so each meets its own wall
   const y0 = rings[0].inner[1] * 0.7;
   const labelY = (i: number) => (rings.length === 1 ? -y0 / 2 : -y0 + (2 * y0 * i) / (rings.length - 1));
@@ -77,7 +97,7 @@ export function CrossSection({ request, materials }: { request: PredictionReques
         viewBox={`${left} ${top} ${right - left} ${bottom - top}`}
         className="h-auto max-h-[26rem] w-full text-flux-950"
         role="img"
-        aria-label={`${title}: ${rings.length} layer${rings.length === 1 ? "" : "s"} to scale, ${inside}, outside ${outside}`}
+        aria-label={`${title}: ${rings.length} layer${rings.length === 1 ? "" : "s"} to scale, ${inside}, outside ${outside}${holes.length ? `, ${holes.length} cable hole${holes.length === 1 ? "" : "s"} with ${holes.length === 1 ? "its collar" : "their collars"}` : ""}`}
         data-testid="cross-section"
       >
         <text x={left + font * 0.3} y={top + font * 1.1} fontSize={font} fill="currentColor" fontWeight={600}>
@@ -100,6 +120,35 @@ export function CrossSection({ request, materials }: { request: PredictionReques
             />
           );
         })}
+        {holes.map((h) => {
+          // drawn pointing up from the origin's top, then turned to its place
+          const surface = box ? Y : Math.sqrt(Math.max(0, X * X - (h.bore / 2 + outerT) ** 2));
+          const turn = box ? `translate(${h.offset} 0)` : `rotate(${h.angle + 90})`;
+          const wall = (x: number) => <rect x={x} y={-(box ? Y : X) - h.L} width={outerT} height={h.L + ((box ? Y : X) - surface) + outerT / 2} fill={last.fill} stroke="#131b24" strokeWidth={R * 0.004} />;
+          const labelAt = box ? [h.tip[0], h.tip[1] - holeFont * 0.5] : [h.tip[0] + Math.cos((h.angle * Math.PI) / 180) * holeFont * 0.9, h.tip[1] + Math.sin((h.angle * Math.PI) / 180) * holeFont * 0.9];
+          return (
+            <g key={h.i} data-role="hole" data-diameter-mm={fmt(h.d, 6)} data-collar-mm={fmt(h.L, 6)}>
+              <g transform={turn}>
+                {/* the hole through every layer, each cut to take the collars inside it */}
+                {rings.map((r, k) => {
+                  const cut = h.d + 2 * rings.slice(0, k).reduce((sum, q) => sum + q.t, 0);
+                  const outer = box ? r.inner[1] + r.t : r.inner[0] + r.t;
+                  const inner = box ? r.inner[1] : Math.sqrt(Math.max(0, r.inner[0] ** 2 - (cut / 2) ** 2));
+                  return <rect key={k} x={-cut / 2} y={-outer - R * 0.01} width={cut} height={outer - inner + R * 0.02} fill="#ffffff" />;
+                })}
+                {h.L > 0 && (
+                  <>
+                    {wall(-h.bore / 2 - outerT)}
+                    {wall(h.bore / 2)}
+                  </>
+                )}
+              </g>
+              <text x={labelAt[0]} y={labelAt[1] + holeFont * 0.35} fontSize={holeFont} textAnchor="middle" fill="#b34a0c" fontWeight={600}>
+                H{h.i + 1}
+              </text>
+            </g>
+          );
+        })}
         <text x={0} y={font * 0.35} fontSize={font} textAnchor="middle" fill="currentColor">
           {inside}
         </text>
@@ -119,6 +168,7 @@ export function CrossSection({ request, materials }: { request: PredictionReques
       </svg>
       <figcaption className="text-meta text-flux-600">
         Outside {outside}. Dark: magnetic alloy; orange: non-magnetic conductor; grey: custom μr. Drawn to scale.
+        {holes.length > 0 ? ` H1${holes.length > 1 ? `–H${holes.length}` : ""}: cable holes with the outer layer's collar, placed at the top for the drawing; their real places are on your drawing.` : ""}
       </figcaption>
     </figure>
   );

@@ -16,7 +16,7 @@ import { CrossSection } from "./cross-section";
 import { DesignForm } from "./design-form";
 import { MakePanel } from "./make-panel";
 import { checkDraft, defaultDesign, describeDesign, draftErrors, type DesignDraft } from "./design-model";
-import { Headline, LayerBars, Warnings } from "./results";
+import { Headline, HoleTable, LayerBars, Warnings } from "./results";
 
 interface Variant {
   label: "A" | "B";
@@ -105,6 +105,12 @@ export function DesignCheck() {
                   <h3 className="text-h4">Each layer</h3>
                   <LayerBars result={result} materialName={nameOf} />
                 </section>
+                {result.holes.length > 0 && (
+                  <section className="space-y-3">
+                    <h3 className="text-h4">Cable holes</h3>
+                    <HoleTable result={result} />
+                  </section>
+                )}
                 <section className="space-y-3">
                   <h3 className="text-h4">Warnings</h3>
                   <Warnings result={result} />

@@ -5,8 +5,8 @@ import type { MaterialSummary } from "../../api/materials";
 import { Button } from "../../components/ui/button";
 import { SelectField, TextField } from "../../components/ui/field";
 import {
-  designFieldUnits, designLengthUnits, fieldUnitNames, fmt, lengthUnitNames, newLayer,
-  type DesignDraft, type DesignFieldUnit, type DesignLengthUnit, type DraftErrors, type LayerDraft, type Shape,
+  designFieldUnits, designLengthUnits, fieldUnitNames, fmt, lengthUnitNames, MAX_PAGE_HOLES, newHole, newLayer,
+  type DesignDraft, type DesignFieldUnit, type DesignLengthUnit, type DraftErrors, type HoleDraft, type LayerDraft, type Shape,
 } from "./design-model";
 
 interface Props {
@@ -46,6 +46,7 @@ function inUnit(d: DesignDraft, unit: DesignLengthUnit): DesignDraft {
     unit,
     diameter: conv("diameter", d.diameter), length: conv("length", d.length), width: conv("width", d.width), depth: conv("depth", d.depth), height: conv("height", d.height),
     layers: d.layers.map((l) => ({ ...l, thickness: conv(`${l.key}.thickness`, l.thickness), gap: conv(`${l.key}.gap`, l.gap) })),
+    ...(d.holes ? { holes: d.holes.map((h) => ({ ...h, diameter: conv(`${h.key}.diameter`, h.diameter), collar: conv(`${h.key}.collar`, h.collar) })) } : {}),
     exact,
   };
 }
@@ -82,6 +83,17 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
   const add = () => {
     const last = draft.layers[draft.layers.length - 1];
     set("layers", [...draft.layers, newLayer(last ? { kind: last.kind, material: last.material, thickness: last.thickness, gap: last.gap || "10" } : {})]);
+  };
+
+  const holes = draft.holes ?? [];
+  const setHole = (i: number, patch: Partial<HoleDraft>) => set("holes", holes.map((h, j) => (j === i ? { ...h, ...patch } : h)));
+  const removeHole = (i: number) => set("holes", holes.filter((_, j) => j !== i));
+  const addHole = () => set("holes", [...holes, newHole(draft.unit)]);
+  /** "2 hole diameters": the collar against the rule of thumb, in the person's own numbers */
+  const diameters = (h: HoleDraft) => {
+    const d = Number(h.diameter.replace(",", ".")), c = h.collar.trim() === "" ? 0 : Number(h.collar.replace(",", "."));
+    if (!(d > 0) || !Number.isFinite(c) || c < 0) return undefined;
+    return c === 0 ? "No collar: a plain hole." : `The collar is ${fmt(c / d, 2)} hole diameter${fmt(c / d, 2) === "1" ? "" : "s"} long.`;
   };
 
   return (
@@ -191,6 +203,39 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
           <option value="annealed">Annealed (after the final hydrogen anneal)</option>
           <option value="as-formed">As formed (not yet annealed)</option>
         </SelectField>
+      </Section>
+
+      <Section title="Cable holes">
+        <p className="text-meta text-flux-600" data-testid="holes-hint">
+          Each hole goes through every layer, with a collar (a short tube) round it on each one. A collar 1–2 hole diameters long is the usual practice; the results say what this design needs.
+        </p>
+        {errors.holes && <p className="font-semibold text-danger-700">{errors.holes}</p>}
+        {holes.length > 0 && (
+          <ol className="space-y-4">
+            {holes.map((h, i) => {
+              const err = (f: string) => errors[`holes.${i}.${f}`];
+              const ratio = diameters(h);
+              return (
+                <li key={h.key}>
+                  <fieldset className="space-y-3 rounded-md border border-nickel-300 bg-nickel-50 p-3" aria-label={`Hole ${i + 1}`}>
+                    <legend className="px-1 font-semibold text-flux-900">Hole {i + 1}</legend>
+                    <div className="grid items-start gap-3 sm:grid-cols-2 md:grid-cols-1 xl:grid-cols-2">
+                      <TextField label={`Hole diameter (${unitLabel})`} inputMode="decimal" autoComplete="off" value={h.diameter} hint={inMm(h.diameter)} error={err("diameter")} onChange={(e) => setHole(i, { diameter: e.target.value })} />
+                      <TextField label={`Collar length (${unitLabel})`} inputMode="decimal" autoComplete="off" value={h.collar} hint={inMm(h.collar)} error={err("collar")} onChange={(e) => setHole(i, { collar: e.target.value })} />
+                    </div>
+                    <p className="text-meta text-flux-600">{ratio ?? "Empty or 0: a plain hole, no collar."}</p>
+                    <Button variant="quiet" className="min-h-9 px-2 text-meta" onClick={() => removeHole(i)} aria-label={`Remove hole ${i + 1}`}>
+                      Remove
+                    </Button>
+                  </fieldset>
+                </li>
+              );
+            })}
+          </ol>
+        )}
+        <Button variant="secondary" onClick={addHole} disabled={holes.length >= MAX_PAGE_HOLES}>
+          Add a cable hole
+        </Button>
       </Section>
 
       <Section title="The field to block">

@@ -27,6 +27,14 @@ export interface LayerDraft {
   gap: string;
 }
 
+export interface HoleDraft {
+  /** stable React key; not sent */
+  key: number;
+  diameter: string;
+  /** empty or 0: a plain hole without a collar */
+  collar: string;
+}
+
 export interface DesignDraft {
   shape: Shape;
   unit: DesignLengthUnit;
@@ -42,6 +50,8 @@ export interface DesignDraft {
   fieldUnit: DesignFieldUnit;
   frequency: string;
   orientation: "transverse" | "axial";
+  /** cable holes, each with its collar (chimney); absent or empty: none */
+  holes?: HoleDraft[];
   /** the exact millimetres behind figures produced by a unit switch (see the form's inUnit) */
   exact?: Record<string, { text: string; mm: number }>;
 }
@@ -51,6 +61,16 @@ export const newLayerKey = () => nextKey++;
 
 export function newLayer(overrides: Partial<LayerDraft> = {}): LayerDraft {
   return { key: newLayerKey(), kind: "library", material: "ni80", mu_r: "20000", resistivity: "0.58", saturation: "0.75", thickness: "1", gap: "10", ...overrides };
+}
+
+/** The page takes this many holes; the API takes more (MAX_HOLES), a drawing of them would not. */
+export const MAX_PAGE_HOLES = 8;
+
+/** A 10 mm hole with a 20 mm collar (two diameters), in the unit the page is using. */
+export function newHole(unit: DesignLengthUnit, overrides: Partial<HoleDraft> = {}): HoleDraft {
+  const sizes: Record<DesignLengthUnit, [string, string]> = { mm: ["10", "20"], in: ["0.4", "0.8"], mil: ["400", "800"] };
+  const [diameter, collar] = sizes[unit];
+  return { key: newLayerKey(), diameter, collar, ...overrides };
 }
 
 /** A 50 mm × 120 mm closed can, one 1 mm ni80 layer, 100 µT at 60 Hz across the axis: a result at once. */
@@ -97,6 +117,8 @@ export function toRequestBody(d: DesignDraft): Record<string, unknown> {
     };
   });
   const amplitude = parse(d.amplitude);
+  // an empty collar box is a plain hole (0 mm), as the hint says
+  const holes = (d.holes ?? []).map((h) => ({ diameter_mm: L(h.diameter), collarLength_mm: h.collar.trim() === "" ? 0 : L(h.collar) }));
   return {
     shape: d.shape,
     dimensions_mm,
@@ -108,6 +130,7 @@ export function toRequestBody(d: DesignDraft): Record<string, unknown> {
       orientation: d.shape === "cylinder" ? d.orientation : "transverse",
     },
     state: d.state,
+    ...(holes.length ? { holes } : {}),
   };
 }
 
@@ -120,10 +143,12 @@ export function draftField(path: string): string | null {
     const names: Record<string, string> = { material: "material", mu_r: "mu_r", resistivity_ohm_m: "resistivity", saturation_T: "saturation", thickness_mm: "thickness", gap_mm: "gap" };
     return `layers.${layer[1]}.${names[layer[2]] ?? "thickness"}`;
   }
+  const hole = /^holes\.(\d+)(?:\.(\w+))?/.exec(path);
+  if (hole) return `holes.${hole[1]}.${hole[2] === "collarLength_mm" ? "collar" : "diameter"}`;
   const top: Record<string, string> = {
     "dimensions_mm.diameter": "diameter", "dimensions_mm.length": "length", "dimensions_mm.width": "width", "dimensions_mm.depth": "depth",
     "dimensions_mm.height": "height", "field.frequency_hz": "frequency", "field.amplitude_uT": "amplitude", "field.orientation": "orientation",
-    state: "state", ends: "ends", shape: "shape", layers: "layers",
+    state: "state", ends: "ends", shape: "shape", layers: "layers", holes: "holes",
   };
   return top[path] ?? null;
 }
@@ -152,7 +177,8 @@ export function describeDesign(r: PredictionRequest, materialName: (id: string) 
   const d = r.dimensions_mm as Record<string, number>;
   const size = r.shape === "box" ? `box ${fmt(d.width)} × ${fmt(d.depth)} × ${fmt(d.height)} mm` : r.shape === "sphere" ? `sphere Ø ${fmt(d.diameter)} mm` : `can Ø ${fmt(d.diameter)} × ${fmt(d.length)} mm`;
   const layers = r.layers.map((l) => `${fmt(l.thickness_mm)} mm ${l.material ? materialName(l.material) : `μr ${l.mu_r}`}`).join(" + ");
-  return `${size}, ${layers}`;
+  const holes = r.holes?.length ? `, ${r.holes.length} cable hole${r.holes.length === 1 ? "" : "s"}` : "";
+  return `${size}, ${layers}${holes}`;
 }
 
 export const fmt = (x: number, digits = 3) => String(+x.toPrecision(digits));

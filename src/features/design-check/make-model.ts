@@ -52,7 +52,8 @@ export type PriceEstimateBodyResult =
 
 /**
  * The design-check form's state → POST /api/price-estimates' body: the innermost layer's inside
- * dimensions, every layer's library material, thickness and gap, the method and the quantity.
+ * dimensions, every layer's library material, thickness and gap, the cable holes with their
+ * collars, the method and the quantity.
  * Says in plain words when the design cannot be priced.
  */
 export function toPriceEstimateBody(request: PredictionRequest, method: MakeMethod | null, quantityText: string): PriceEstimateBodyResult {
@@ -77,12 +78,15 @@ export function toPriceEstimateBody(request: PredictionRequest, method: MakeMeth
     thickness_mm: l.thickness_mm,
     ...(i < request.layers.length - 1 && l.gap_mm !== undefined ? { gap_mm: l.gap_mm } : {}),
   }));
+  // every hole goes with the design: a collar is a rolled tube on each layer, priced as a part;
+  // a plain hole (0 mm collar) is cut in the blank and costs no part of its own
+  const holes = request.holes?.length ? { holes: request.holes.map((h) => ({ diameter_mm: h.diameter_mm, collarLength_mm: h.collarLength_mm })) } : {};
   const configuration: DesignConfigurationInput =
     request.shape === "box"
-      ? { shape: "box", method: "bent", dimensions_mm: { width: d.width, depth: d.depth, height: d.height }, layers, kFactor: BOX_K_FACTOR, lid: true }
+      ? { shape: "box", method: "bent", dimensions_mm: { width: d.width, depth: d.depth, height: d.height }, layers, kFactor: BOX_K_FACTOR, lid: true, ...holes }
       : method === "rolled"
-        ? { shape: "cylinder", method: "rolled", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, seamOverlap_mm: 0 }
-        : { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, cornerRadius_mm: 0, trim_mm: 0 };
+        ? { shape: "cylinder", method: "rolled", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, seamOverlap_mm: 0, ...holes }
+        : { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, cornerRadius_mm: 0, trim_mm: 0, ...holes };
   return { ok: true, body: { configuration, quantity } };
 }
 

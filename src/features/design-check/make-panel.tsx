@@ -74,6 +74,10 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
   const known = masses.filter((m): m is number => m !== undefined);
   const total = known.reduce((s, m) => s + m, 0);
   const customLayers = request.layers.flatMap((l, i) => (l.material ? [] : [i + 1]));
+  // holes with a collar are parts of their own (the price route makes them); a plain hole is only cut
+  const collared = (request.holes ?? []).filter((h) => h.collarLength_mm > 0);
+  const collarParts = estimate.data && !estimate.isPlaceholderData ? estimate.data.parts.filter((p) => p.role === "collar") : [];
+  const collarMass = collarParts.reduce((sum, p) => sum + (p.mass_kg ?? 0) * p.quantityPerAssembly, 0);
   const fetching = blanks.some((q) => q.isFetching) || drawn.some((q) => q.isFetching);
 
   return (
@@ -148,9 +152,36 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
         })}
       </ol>
 
+      {collared.length > 0 && (
+        <section className="space-y-2" aria-label="Collars" data-testid="make-collars">
+          <h3 className="font-semibold text-flux-900">
+            Collars: {collared.length} hole{collared.length === 1 ? "" : "s"} × {request.layers.length} layer{request.layers.length === 1 ? "" : "s"} = {collared.length * request.layers.length} rolled, welded tube{collared.length * request.layers.length === 1 ? "" : "s"}
+          </h3>
+          {collarParts.length > 0 ? (
+            <ul className="space-y-1 text-meta text-flux-700">
+              {collarParts.map((p, k) => {
+                const hole = collared[k % collared.length];
+                return (
+                  <li key={k} data-testid="make-collar">
+                    Layer {p.layer + 1} · collar for the Ø {fmtMm(hole.diameter_mm)} mm hole, {fmtMm(hole.collarLength_mm)} mm long · blank{" "}
+                    <span className="font-mono">{p.blank.kind === "disc" ? `disc Ø ${fmtMm(p.blank.diameter_mm)}` : `${fmtMm(p.blank.length_mm)} × ${fmtMm(p.blank.width_mm)}`} mm</span>
+                    {p.mass_kg !== undefined ? ` · ${kg(p.mass_kg)}` : ""}
+                  </li>
+                );
+              })}
+            </ul>
+          ) : (
+            <p className="text-meta text-flux-600">
+              Each layer's collar telescopes over the one inside it and is welded on before the anneal.{signedIn ? "" : " Sign in to see their blanks and their share of the price."}
+            </p>
+          )}
+        </section>
+      )}
+
       <p className="text-flux-900" data-testid="make-total-mass">
-        <strong>Material in the blanks, per shield:</strong> {known.length ? kg(total) : "—"}
-        {!allMassesKnown && known.length > 0 ? " (layers with a library material only)" : ""}. Blank mass before trimming; the scrap between blanks is priced with the material.
+        <strong>Material in the blanks, per shield:</strong> {known.length ? kg(total + collarMass) : "—"}
+        {!allMassesKnown && known.length > 0 ? " (layers with a library material only)" : ""}
+        {collared.length > 0 ? (collarParts.length > 0 ? ", collars included" : ", collars not included") : ""}. Blank mass before trimming; the scrap between blanks is priced with the material.
       </p>
       {customLayers.length > 0 && (
         <StatusNote tone="info" word="No price">

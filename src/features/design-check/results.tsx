@@ -1,3 +1,4 @@
+import { roundUpLength_mm } from "../../../shared/physics/predict";
 import type { PredictionResult } from "../../api/predictions";
 import { StatusNote } from "../../components/ui/status-note";
 import { fmt } from "./design-model";
@@ -100,6 +101,51 @@ export function Warnings({ result }: { result: PredictionResult }) {
           {w.message}
         </StatusNote>
       ))}
+    </div>
+  );
+}
+
+/** Each cable hole: what its collar gives, what the design needs, in words as well as figures. */
+export function HoleTable({ result }: { result: PredictionResult }) {
+  const lost = result.wallAttenuation_db - result.attenuation_db;
+  return (
+    <div className="space-y-2">
+      <div className="overflow-x-auto">
+        <table className="w-full min-w-[30rem] text-left text-body" data-testid="hole-table">
+          <caption className="sr-only">Cable holes: collar attenuation and the collar length the design needs</caption>
+          <thead className="border-b border-nickel-300 text-meta text-flux-600">
+            <tr>
+              <th className="py-1 pr-3 font-semibold">Hole</th>
+              <th className="py-1 pr-3 text-right font-semibold">Diameter</th>
+              <th className="py-1 pr-3 text-right font-semibold">Collar</th>
+              <th className="py-1 pr-3 text-right font-semibold">Collar gives</th>
+              <th className="py-1 pr-3 text-right font-semibold">Collar needed, at least</th>
+              <th className="py-1 font-semibold">Verdict</th>
+            </tr>
+          </thead>
+          <tbody>
+            {result.holes.map((h) => {
+              const short = h.collarLength_mm < h.neededCollarLength_mm;
+              return (
+                <tr key={h.index} className="border-b border-nickel-100" data-testid="hole-row">
+                  <td className="py-1 pr-3 font-semibold">{h.index + 1}</td>
+                  <td className="py-1 pr-3 text-right font-mono">Ø {fmt(h.diameter_mm)} mm</td>
+                  <td className="py-1 pr-3 text-right font-mono">{h.collarLength_mm > 0 ? `${fmt(h.collarLength_mm)} mm` : "none"}</td>
+                  <td className="py-1 pr-3 text-right font-mono">{h.collarAttenuation_db.toFixed(0)} dB</td>
+                  <td className="py-1 pr-3 text-right font-mono">{roundUpLength_mm(h.neededCollarLength_mm)} mm</td>
+                  <td className={`py-1 font-semibold ${short ? "text-danger-700" : "text-ok-700"}`}>{short ? "too short" : "long enough"}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <p className="text-meta text-flux-600" data-testid="hole-summary">
+        {lost >= 0.05
+          ? `The walls alone give about ${result.wallAttenuation_db.toFixed(1)} dB; leakage through the holes takes that to ${result.attenuation_db.toFixed(1)} dB, the figure above.`
+          : `The holes cost less than 0.1 dB here: the walls decide the figure above.`}{" "}
+        Collar figures take the weak case, the field along the collar; needed lengths aim at the walls' figure (at most 200 dB). Estimates, like every figure here.
+      </p>
     </div>
   );
 }
