@@ -72,7 +72,8 @@ describe("a new user, as they would", () => {
     await page.getByRole("button", { name: /set the new password/i }).click();
     await page.getByText(/password changed/i).waitFor();
     await page.getByRole("main").getByRole("link", { name: /^sign in$/i }).click();
-    await page.waitForURL(/sign-in/);
+    await page.getByRole("heading", { level: 1, name: /^sign in$/i }).waitFor();
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
     await page.getByLabel(/e-?mail/i).fill(email);
     await page.getByLabel(/^password/i).fill("another-long-password");
     await page.getByRole("button", { name: /^sign in$/i }).click();
