@@ -30,6 +30,19 @@ describe("demo users sign in through the form", () => {
     });
   }
 
+  it("works from the keyboard alone: skip link, fields, Enter", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await page.goto(`${h.baseUrl}/sign-in`);
+    await page.getByLabel(/e-?mail/i).focus();
+    await page.keyboard.type("qa@demo.test");
+    await page.keyboard.press("Tab");
+    await page.keyboard.type(DEMO_PASSWORD);
+    await page.keyboard.press("Enter");
+    await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
+
   it("a wrong password shows a message and stays on the form", async () => {
     const { page } = await h.newPage();
     await page.goto(`${h.baseUrl}/sign-in`);
@@ -57,6 +70,10 @@ describe("a new user, as they would", () => {
     await page.getByRole("button", { name: /create account|register/i }).click();
     await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
     await page.getByRole("button", { name: /sign out/i }).click();
+    await page.getByRole("link", { name: /^sign in$/i }).first().waitFor();
+    // signed out on the server too, not only on the screen
+    const after = await page.evaluate(() => fetch("/api/auth/session").then((r) => r.json()));
+    expect(after.user).toBeNull();
 
     await page.goto(`${h.baseUrl}/forgot-password`);
     await page.getByLabel(/e-?mail/i).fill(email);
