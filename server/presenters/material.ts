@@ -1,19 +1,7 @@
-import type { MuPoint } from "../../shared/physics/materials";
+import type { MaterialJson } from "../../shared/schemas/material";
 import type { Material } from "../models";
 
-/** GET /api/materials: the contract's fields, then what the design-check page also needs. */
-export interface MaterialJson {
-  id: string;
-  name: string;
-  relativePermeability: { initial: number; maximum: number };
-  saturation_T: number | null;
-  resistivity_ohm_m: number;
-  density_kg_m3: number;
-  source: string;
-  muCurve: MuPoint[];
-  asFormedFactor: number;
-  sourceTags: Record<string, string>;
-}
+export type { MaterialJson };
 
 export function presentMaterial(m: Material): MaterialJson {
   return {

@@ -1,3 +1,4 @@
+import type { MuPoint } from "../physics/materials";
 import { z } from "zod";
 
 // A row of the materials library as the admin edits it (PUT /api/materials/:id, POST /api/materials).
@@ -70,3 +71,17 @@ export const materialCreateSchema = z.object({ id: materialIdSchema, ...fields }
 export type MaterialUpdate = z.output<typeof materialUpdateSchema>;
 export type MaterialUpdateInput = z.input<typeof materialUpdateSchema>;
 export type MaterialCreate = z.output<typeof materialCreateSchema>;
+
+/** GET /api/materials, one row: the contract's fields, then what the design-check page also needs. */
+export interface MaterialJson {
+  id: string;
+  name: string;
+  relativePermeability: { initial: number; maximum: number };
+  saturation_T: number | null;
+  resistivity_ohm_m: number;
+  density_kg_m3: number;
+  source: string;
+  muCurve: MuPoint[];
+  asFormedFactor: number;
+  sourceTags: Record<string, string>;
+}

@@ -107,9 +107,12 @@ export function useRequestPasswordReset() {
 }
 
 export function useConfirmPasswordReset() {
+  const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (input: PasswordResetConfirmInput) =>
       api.post<void>("/api/auth/password-reset/confirm", input, { anonymousOk: true }),
+    // The server signs the account out everywhere on a reset, this browser included.
+    onSuccess: () => applySessionChange(queryClient, null),
   });
 }
 

@@ -1,22 +1,10 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
-import type { MuPoint } from "../../shared/physics/materials";
-import type { MaterialCreate, MaterialUpdate } from "../../shared/schemas/material";
+import type { MaterialCreate, MaterialJson, MaterialUpdate } from "../../shared/schemas/material";
 import { api } from "./client";
 import { predictionKeys } from "./predictions";
 
-/** GET /api/materials: one row of the library. */
-export interface MaterialSummary {
-  id: string;
-  name: string;
-  relativePermeability: { initial: number; maximum: number };
-  saturation_T: number | null;
-  resistivity_ohm_m: number;
-  density_kg_m3: number;
-  source: string;
-  muCurve: MuPoint[];
-  asFormedFactor: number;
-  sourceTags: Record<string, string>;
-}
+/** GET /api/materials: one row of the library (the server's presenter shape). */
+export type MaterialSummary = MaterialJson;
 
 /** The admin's view of a row. */
 export interface MaterialRecord extends MaterialSummary {

@@ -96,6 +96,22 @@ describe("a new user, as they would", () => {
     await page.getByRole("button", { name: /^sign in$/i }).click();
     await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
     await h.shot(page, "after-reset-home");
+
+    // A reset made while still signed in signs this browser out as well.
+    await page.goto(`${h.baseUrl}/forgot-password`);
+    await page.getByLabel(/e-?mail/i).fill(email);
+    await page.getByRole("button", { name: /send|reset/i }).click();
+    await page.getByText(/on its way/i).waitFor();
+    const second = (await inbox(h.app, email)).map((m) => m.text.match(/https?:\/\/\S+\/reset-password\/[\w-]+/)?.[0]).filter(Boolean).at(-1)!;
+    expect(second).not.toBe(link);
+    await page.goto(`${h.baseUrl}${new URL(second).pathname}`);
+    await page.getByLabel(/new password/i).first().fill("a-third-long-password");
+    const confirmAgain = page.getByLabel(/confirm|repeat/i);
+    if (await confirmAgain.count()) await confirmAgain.fill("a-third-long-password");
+    await page.getByRole("button", { name: /set the new password/i }).click();
+    await page.getByText(/password changed/i).waitFor();
+    await page.getByRole("main").getByRole("link", { name: /^sign in$/i }).click();
+    await page.getByRole("heading", { level: 1, name: /^sign in$/i }).waitFor();
     expect(consoleErrors).toEqual([]);
     await page.close();
   });

@@ -49,6 +49,7 @@ export function useBrowser(): BrowserHarness {
       args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
     });
     h.newPage = async () => {
+      await h.context.clearCookies(); // every page starts signed out, whatever the test before it did
       const page = await h.context.newPage();
       lastPage = page;
       const consoleErrors: string[] = [];
