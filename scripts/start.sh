@@ -49,6 +49,7 @@ cat <<TEXT
   Fluxwright is running.
     app              $APP_URL
     design check     $APP_URL/design-check
+    flat blank       $APP_URL/flat-blank
     mail inbox       http://127.0.0.1:$MAIL_WEB_PORT   (every mail the app sends lands here)
     database         postgres://postgres@127.0.0.1:$PGPORT/fluxwright
 

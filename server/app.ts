@@ -56,6 +56,9 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   app.disable("x-powered-by");
   app.set("trust proxy", "loopback");
   app.set("query parser", "simple");
+  // No ETag on API answers: hashing every computed answer costs more than the rare 304 saves
+  // (the built client's files keep theirs: express.static sets its own).
+  app.set("etag", false);
 
   // Health first: probes poll it hard, and its tiny JSON answer needs no page-security headers,
   // request log, body parser or session.

@@ -13,3 +13,6 @@ if (kind === "bare") {
   const app = createApp();
   app.listen(Number(port), "127.0.0.1", () => process.send?.("ready"));
 }
+
+// Exit cleanly on a signal, so `node --cpu-prof` can write its profile.
+for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => process.exit(0));
