@@ -1,20 +1,15 @@
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { z } from "zod";
 import { passwordChangeSchema } from "../../../shared/schemas/auth";
 import { useChangePassword } from "../../api/auth";
 import { useServerErrors } from "../../lib/use-server-errors";
 import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
+import { withPasswordConfirmation } from "../../lib/password-confirmation";
 
-const passwordFormSchema = passwordChangeSchema
-  .extend({ confirmPassword: z.string() })
-  .refine((values) => values.newPassword === values.confirmPassword, {
-    path: ["confirmPassword"],
-    error: "The two new passwords are not the same.",
-  });
+const passwordFormSchema = withPasswordConfirmation(passwordChangeSchema, "newPassword", "The two new passwords are not the same.");
 
 export function PasswordForm() {
   const [saved, setSaved] = useState(false);

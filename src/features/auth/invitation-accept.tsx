@@ -2,7 +2,6 @@ import { useQuery } from "@tanstack/react-query";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useNavigate } from "react-router-dom";
-import { z } from "zod";
 import { passwordSchema, profileSchema } from "../../../shared/schemas/auth";
 import { invitationQueryOptions, useAcceptInvitation } from "../../api/auth";
 import { ApiError } from "../../api/client";
@@ -14,13 +13,9 @@ import { Loading } from "../../components/ui/spinner";
 import { QueryError } from "../../components/query-error";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
+import { withPasswordConfirmation } from "../../lib/password-confirmation";
 
-const acceptFormSchema = profileSchema
-  .extend({ password: passwordSchema, confirmPassword: z.string() })
-  .refine((values) => values.password === values.confirmPassword, {
-    path: ["confirmPassword"],
-    error: "The two passwords are not the same.",
-  });
+const acceptFormSchema = withPasswordConfirmation(profileSchema.extend({ password: passwordSchema }), "password");
 
 const usedUp = "This invitation has expired or has already been used. Ask the planner who sent it for a new one.";
 

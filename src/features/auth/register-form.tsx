@@ -1,7 +1,6 @@
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useNavigate } from "react-router-dom";
-import { z } from "zod";
 import { registerSchema } from "../../../shared/schemas/auth";
 import { useRegister } from "../../api/auth";
 import { paths } from "../../config/paths";
@@ -9,14 +8,9 @@ import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
+import { withPasswordConfirmation } from "../../lib/password-confirmation";
 
-// The confirmation exists only in the browser; the server receives the shared schema's fields.
-const registerFormSchema = registerSchema
-  .extend({ confirmPassword: z.string() })
-  .refine((values) => values.password === values.confirmPassword, {
-    path: ["confirmPassword"],
-    error: "The two passwords are not the same.",
-  });
+const registerFormSchema = withPasswordConfirmation(registerSchema, "password");
 
 export function RegisterForm() {
   const navigate = useNavigate();

@@ -9,13 +9,9 @@ import { ButtonLink, Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
+import { withPasswordConfirmation } from "../../lib/password-confirmation";
 
-const resetFormSchema = z
-  .object({ password: passwordSchema, confirmPassword: z.string() })
-  .refine((values) => values.password === values.confirmPassword, {
-    path: ["confirmPassword"],
-    error: "The two passwords are not the same.",
-  });
+const resetFormSchema = withPasswordConfirmation(z.object({ password: passwordSchema }), "password");
 
 const expiredLink = "This reset link has expired or was already used. Ask for a new one.";
 
