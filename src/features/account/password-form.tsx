@@ -8,6 +8,7 @@ import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
 import { withPasswordConfirmation } from "../../lib/password-confirmation";
+import { FormShell } from "../../components/ui/form-shell";
 
 const passwordFormSchema = withPasswordConfirmation(passwordChangeSchema, "newPassword", "The two new passwords are not the same.");
 
@@ -35,12 +36,7 @@ export function PasswordForm() {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       {saved && <StatusNote tone="ok" word="Changed">Use the new password next time you sign in.</StatusNote>}
       <TextField label="Current password" type="password" autoComplete="current-password" error={errors.currentPassword?.message} {...register("currentPassword")} />
       <TextField label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.newPassword?.message} {...register("newPassword")} />
@@ -48,6 +44,6 @@ export function PasswordForm() {
       <Button type="submit" pending={isSubmitting} pendingLabel="Changing…">
         Change password
       </Button>
-    </form>
+    </FormShell>
   );
 }

@@ -12,6 +12,7 @@ import { Button } from "../../components/ui/button";
 import { SelectField, TextField } from "../../components/ui/field";
 import { Panel } from "../../components/ui/panel";
 import { StatusNote } from "../../components/ui/status-note";
+import { FormShell } from "../../components/ui/form-shell";
 
 // Customers belong to a customer organisation; staff join the shop, which the server assigns.
 const inviteFormSchema = invitationCreateSchema.superRefine((values, context) => {
@@ -55,12 +56,7 @@ export function InviteForm() {
   const { errors, isSubmitting } = formState;
   return (
     <Panel title="Invite someone">
-      <form onSubmit={onSubmit} noValidate className="space-y-5">
-        {formMessage && (
-          <StatusNote tone="danger" assertive>
-            {formMessage}
-          </StatusNote>
-        )}
+      <FormShell onSubmit={onSubmit} message={formMessage}>
         {sent && (
           <StatusNote tone="ok" word="Invitation sent">
             to <span className="break-all font-mono">{sent.email}</span>, valid until{" "}
@@ -94,7 +90,7 @@ export function InviteForm() {
         <Button type="submit" pending={isSubmitting} pendingLabel="Sending…">
           Send invitation
         </Button>
-      </form>
+      </FormShell>
     </Panel>
   );
 }

@@ -7,6 +7,7 @@ import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
+import { FormShell } from "../../components/ui/form-shell";
 
 export function ForgotPasswordForm() {
   const [sentTo, setSentTo] = useState<string | null>(null);
@@ -39,16 +40,11 @@ export function ForgotPasswordForm() {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       <TextField label="Email" type="email" autoComplete="email" inputMode="email" error={errors.email?.message} {...register("email")} />
       <Button type="submit" pending={isSubmitting} pendingLabel="Sending…">
         Send the reset link
       </Button>
-    </form>
+    </FormShell>
   );
 }

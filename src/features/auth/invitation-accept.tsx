@@ -14,6 +14,7 @@ import { QueryError } from "../../components/query-error";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
 import { withPasswordConfirmation } from "../../lib/password-confirmation";
+import { FormShell } from "../../components/ui/form-shell";
 
 const acceptFormSchema = withPasswordConfirmation(profileSchema.extend({ password: passwordSchema }), "password");
 
@@ -78,18 +79,13 @@ function AcceptForm({ token }: { token: string }) {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       <TextField label="Your name" autoComplete="name" error={errors.name?.message} {...register("name")} />
       <TextField label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.password?.message} {...register("password")} />
       <TextField label="Repeat the password" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...register("confirmPassword")} />
       <Button type="submit" pending={isSubmitting} pendingLabel="Joining…">
         Accept and sign in
       </Button>
-    </form>
+    </FormShell>
   );
 }

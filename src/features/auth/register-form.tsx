@@ -6,9 +6,9 @@ import { useRegister } from "../../api/auth";
 import { paths } from "../../config/paths";
 import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
-import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
 import { withPasswordConfirmation } from "../../lib/password-confirmation";
+import { FormShell } from "../../components/ui/form-shell";
 
 const registerFormSchema = withPasswordConfirmation(registerSchema, "password");
 
@@ -33,12 +33,7 @@ export function RegisterForm() {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       <TextField label="Your name" autoComplete="name" error={errors.name?.message} {...register("name")} />
       <TextField label="Work email" type="email" autoComplete="email" inputMode="email" error={errors.email?.message} {...register("email")} />
       <TextField label="Organisation" autoComplete="organization" hint="The company or laboratory the shields are for." error={errors.organization?.message} {...register("organization")} />
@@ -47,6 +42,6 @@ export function RegisterForm() {
       <Button type="submit" pending={isSubmitting} pendingLabel="Creating the account…">
         Create account
       </Button>
-    </form>
+    </FormShell>
   );
 }

@@ -10,6 +10,7 @@ import { TextField } from "../../components/ui/field";
 import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
 import { withPasswordConfirmation } from "../../lib/password-confirmation";
+import { FormShell } from "../../components/ui/form-shell";
 
 const resetFormSchema = withPasswordConfirmation(z.object({ password: passwordSchema }), "password");
 
@@ -50,17 +51,12 @@ export function ResetPasswordForm({ token }: { token: string }) {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       <TextField label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.password?.message} {...register("password")} />
       <TextField label="Repeat the new password" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...register("confirmPassword")} />
       <Button type="submit" pending={isSubmitting} pendingLabel="Saving…">
         Set the new password
       </Button>
-    </form>
+    </FormShell>
   );
 }

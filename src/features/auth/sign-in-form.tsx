@@ -6,8 +6,8 @@ import { useLogin } from "../../api/auth";
 import { paths } from "../../config/paths";
 import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
-import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
+import { FormShell } from "../../components/ui/form-shell";
 
 /** redirectTo: a same-origin path already checked by safeRedirect, or null for the role home. */
 export function SignInForm({ redirectTo }: { redirectTo: string | null }) {
@@ -35,12 +35,7 @@ export function SignInForm({ redirectTo }: { redirectTo: string | null }) {
 
   const { errors, isSubmitting } = formState;
   return (
-    <form onSubmit={onSubmit} noValidate className="space-y-5">
-      {formMessage && (
-        <StatusNote tone="danger" assertive>
-          {formMessage}
-        </StatusNote>
-      )}
+    <FormShell onSubmit={onSubmit} message={formMessage}>
       <TextField label="Email" type="email" autoComplete="username" inputMode="email" error={errors.email?.message} {...register("email")} />
       <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...register("password")} />
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -51,6 +46,6 @@ export function SignInForm({ redirectTo }: { redirectTo: string | null }) {
           Forgot password?
         </Link>
       </div>
-    </form>
+    </FormShell>
   );
 }
