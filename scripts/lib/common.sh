@@ -57,7 +57,7 @@ ensure_lint_modules() {
 BUILD_STAMP=build/.built
 build_is_current() {
   [ -f "$ROOT/$BUILD_STAMP" ] && [ -f "$ROOT/dist/index.html" ] || return 1
-  [ -z "$(cd "$ROOT" && find server shared src fake-services index.html package.json package-lock.json vite.config.ts tailwind.config.ts tsconfig.json scripts/build-server.mjs -newer "$BUILD_STAMP" -print -quit 2>/dev/null)" ]
+  [ -z "$(cd "$ROOT" && find server shared src index.html package.json package-lock.json vite.config.ts tailwind.config.ts tsconfig.json scripts/build-server.mjs -newer "$BUILD_STAMP" -print -quit 2>/dev/null)" ]
 }
 build_all() {
   (cd "$ROOT" && tool vite build --logLevel warn && node scripts/build-server.mjs && touch "$BUILD_STAMP")
