@@ -291,7 +291,7 @@ export function FlatBlankCalculator() {
             )}
             {!shown && blank.isPending && <p className="text-flux-600">Working out the blank…</p>}
             {shown && (
-              <div className={stale ? "opacity-60 transition-opacity" : "transition-opacity"} data-testid="blank-result" aria-busy={blank.isFetching || undefined}>
+              <div className={stale ? "stale" : undefined} data-testid="blank-result" aria-busy={blank.isFetching || undefined}>
                 <div className="space-y-5">
                   <BlankFigures result={shown} />
                   {shown.warnings.length > 0 && (
