@@ -1,13 +1,14 @@
+import type { ShopRatesJson, ShopRatesVersionJson } from "../../shared/schemas/shop-rates";
 import type { PriceListVersion } from "../models";
 
 const presentCreator = (v: PriceListVersion) => (v.createdBy ? { id: v.createdBy.id, name: v.createdBy.name } : null);
 
-/** The current shop rates as the planner's page reads them: three parts plus who saved them when. */
-export function presentShopRates(v: PriceListVersion) {
-  const { stockSheets, formingLimits, ...priceList } = v.data;
-  return { version: v.version, part: v.part, createdAt: v.createdAt, createdBy: presentCreator(v), priceList, stockSheets, formingLimits };
+export function presentShopRatesVersion(v: PriceListVersion): ShopRatesVersionJson {
+  return { version: v.version, part: v.part, createdAt: v.createdAt.toISOString(), createdBy: presentCreator(v) };
 }
 
-export function presentShopRatesVersion(v: PriceListVersion) {
-  return { version: v.version, part: v.part, createdAt: v.createdAt, createdBy: presentCreator(v) };
+/** The current shop rates as the planner's page reads them: three parts plus who saved them when. */
+export function presentShopRates(v: PriceListVersion): ShopRatesJson {
+  const { stockSheets, formingLimits, ...priceList } = v.data;
+  return { ...presentShopRatesVersion(v), priceList, stockSheets, formingLimits };
 }
