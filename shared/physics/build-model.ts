@@ -7,6 +7,7 @@
 // is the construction ceiling, a shop setting per construction. Both are estimates [practice];
 // the derivations are beside each term.
 
+import { DEFAULT_LID_CLEARANCE_MM, LID_OVERLAP_FRACTION, LID_OVERLAP_MIN_MM } from "../construction-defaults";
 import { demagnetizingFactor } from "./thin";
 
 export type Construction = "closed-can" | "open-tube" | "box" | "sphere";
@@ -51,9 +52,9 @@ export const DEFAULT_CONSTRUCTION_SETTINGS: ConstructionSettings = {
     box: { firstLayer_db: 60, perExtraLayer_db: 20 },
     sphere: { firstLayer_db: 75, perExtraLayer_db: 20 },
   },
-  lidClearance_mm: 0.2,
-  lidOverlapFraction: 0.25,
-  lidOverlapMin_mm: 10,
+  lidClearance_mm: DEFAULT_LID_CLEARANCE_MM,
+  lidOverlapFraction: LID_OVERLAP_FRACTION,
+  lidOverlapMin_mm: LID_OVERLAP_MIN_MM,
 };
 
 /** A fusion weld (no filler) after the final anneal: a zone a few thicknesses wide at a fraction of the wall's μ. [practice] */

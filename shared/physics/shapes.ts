@@ -133,7 +133,7 @@ export function solveCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[],
 
   const r = cylindricalShieldingFactor(shells(layers, mus, (l) => l.a), f, withFields);
   const lnSingle = layers.map((l, i) => lnSingleKaden(ctx, l, mus[i]));
-  const core: Core = { lnClosed: r.attenuation_db / LN10_20, openLeak: 0, method: "exact multilayer cylinder (Bessel), field across the axis", fields: r.walls, lnSingle };
+  const core: Core = { lnClosed: r.attenuation_db / LN10_20, openLeak: 0, method: "exact multilayer cylinder (Bessel), transverse field", fields: r.walls, lnSingle };
   if (ctx.ends === "open") {
     const inner = layers[0];
     const root = decayRoot("transverse", regimeOf(inner, mus[0], f));
@@ -190,7 +190,7 @@ function axialCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[], withFi
   const core: Core = {
     lnClosed: lnAbs(closed),
     openLeak: 0,
-    method: "closed can along the axis: (1 + 4N·(S_T0 − 1))·S_T(f)/S_T0 per layer (Mager, Osborn N, exact cylinder's AC gain)",
+    method: "closed can, axial field: (1 + 4N·(S_T0 − 1))·S_T(f)/S_T0 per layer (Mager, Osborn N, exact cylinder's AC gain)",
     lnSingle: per.map(lnAbs),
     nest: { per, ratios },
     ...(withFields ? { fields } : {}),
@@ -199,7 +199,7 @@ function axialCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[], withFi
     const inner = layers[0];
     const root = decayRoot("axial", regimeOf(inner, mus[0], f));
     core.openLeak = Math.exp((-root * (inner.L / 2)) / inner.a);
-    core.method = `open can along the axis: ${core.method.replace(/^closed can along the axis: /, "")}, open-end leakage exp(−${root.toFixed(3)}·z/a)`;
+    core.method = `${core.method.replace(/^closed can/, "open can")}, open-end leakage exp(−${root.toFixed(3)}·z/a)`;
   }
   return core;
 }

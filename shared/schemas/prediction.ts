@@ -16,10 +16,10 @@ const cap = (what: string) => `${what[0].toUpperCase()}${what.slice(1)}`;
 const withUnit = (x: number, unit: string) => (unit ? `${x} ${unit}` : String(x));
 
 /** A number inside its physical range; outside it the message says "too small" or "too large". */
-function bounded(what: string, range: Range, typeError?: string) {
+function bounded(what: string, range: Range, typeError?: string, minNote = "") {
   return z
     .number({ error: typeError ?? `${cap(what)} must be a number${range.unit ? ` in ${range.unit}` : ""}.` })
-    .min(range.min, { error: `${cap(what)} is too small: at least ${withUnit(range.min, range.unit)}.` })
+    .min(range.min, { error: `${cap(what)} is too small: at least ${withUnit(range.min, range.unit)}${minNote}.` })
     .max(range.max, { error: `${cap(what)} is too large: at most ${withUnit(range.max, range.unit)}.` });
 }
 
@@ -51,7 +51,7 @@ const holeSchema = z.object({
 });
 
 const fieldSchema = z.object({
-  frequency_hz: bounded("the frequency", INPUT_LIMITS.frequency_hz, "Frequency must be a number in hertz."),
+  frequency_hz: bounded("the frequency", INPUT_LIMITS.frequency_hz, "Frequency must be a number in hertz.", " (0 is a static field)"),
   amplitude_uT: bounded("the field amplitude", INPUT_LIMITS.amplitude_uT, "Field amplitude must be a number in microtesla."),
   orientation: z.enum(["transverse", "axial"], { error: "Orientation must be transverse or axial." }).default("transverse"),
 });

@@ -4,8 +4,10 @@ import type { BlankRequest } from "../../shared/schemas/blank";
 import type { DesignConfigurationInput } from "../../shared/schemas/price-estimate";
 import type { FormingLimits, PriceList, StockSheet } from "../../shared/schemas/pricing";
 import type { PriceBuildUp } from "../../shared/fabrication";
-import type { FormingLimitsUpdate, PriceRatesInput, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionUpdate, FormingLimitsUpdate, PriceRatesInput, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionSettings } from "../../shared/physics/build-model";
 import { api } from "./client";
+import { predictionKeys } from "./predictions";
 
 /** POST /api/blanks: the engine's result plus the material it used. */
 export type BlankResponse = BlankResult & {
@@ -96,9 +98,11 @@ export interface ShopRates {
   part: ShopRatePart;
   createdAt: string;
   createdBy: ShopRatesAuthor | null;
-  priceList: Omit<PriceList, "stockSheets" | "formingLimits">;
+  priceList: Omit<PriceList, "stockSheets" | "formingLimits" | "construction">;
   stockSheets: StockSheet[];
   formingLimits: FormingLimits[];
+  /** what the as-built prediction assumes of the shop's construction (defaults until first saved) */
+  construction: ConstructionSettings;
 }
 
 export interface ShopRatesVersion {
@@ -127,7 +131,8 @@ export const shopRatesHistoryQueryOptions = queryOptions({
 type ShopRatesSave =
   | { part: "price-list"; body: PriceRatesInput }
   | { part: "stock-sheets"; body: StockSheetsUpdate }
-  | { part: "forming-limits"; body: FormingLimitsUpdate };
+  | { part: "forming-limits"; body: FormingLimitsUpdate }
+  | { part: "construction"; body: ConstructionUpdate };
 
 /** Saves one part as a new version; every estimate priced with the old list is stale after it. */
 export function useSaveShopRates() {
@@ -138,6 +143,8 @@ export function useSaveShopRates() {
       queryClient.setQueryData(shopRatesKeys.current(), saved);
       void queryClient.invalidateQueries({ queryKey: shopRatesKeys.all });
       void queryClient.invalidateQueries({ queryKey: priceEstimateKeys.all });
+      // the construction settings change the as-built predictions
+      if (saved.part === "construction") void queryClient.invalidateQueries({ queryKey: predictionKeys.all });
     },
   });
 }

@@ -1,5 +1,6 @@
 // Chromium from Debian driven by playwright-core, against the built client served by the real server.
-import { mkdirSync, mkdtempSync, rmSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { createRequire } from "node:module";
 import type { AddressInfo } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -11,6 +12,7 @@ import { closeSequelize } from "../../server/db/sequelize";
 import { testConfig } from "./app";
 
 export const SCREENSHOTS = path.resolve(".test-results/screenshots");
+const axeSource = readFileSync(createRequire(import.meta.url).resolve("axe-core/axe.min.js"), "utf8");
 export const DEMO_PASSWORD = "fluxwright-demo";
 
 export interface BrowserHarness {
@@ -20,6 +22,8 @@ export interface BrowserHarness {
   /** a new page that records console errors and any request leaving the machine */
   newPage(): Promise<{ page: Page; consoleErrors: string[]; offMachine: string[] }>;
   shot(page: Page, name: string): Promise<void>;
+  /** axe-core on the page as it stands: throws listing the violations (WCAG 2.x A and AA rules) */
+  axe(page: Page, where: string): Promise<void>;
 }
 
 export function useBrowser(): BrowserHarness {
@@ -63,6 +67,16 @@ export function useBrowser(): BrowserHarness {
       return { page, consoleErrors, offMachine };
     };
     h.shot = async (page, name) => { await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true }); };
+    h.axe = async (page, where) => {
+      // evaluated through the debugging protocol, so the page's content security policy does not block it
+      if (!(await page.evaluate(() => "axe" in window))) await page.evaluate(axeSource);
+      const violations = await page.evaluate(async () => {
+        const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; help: string; nodes: { target: string[] }[] }[] }> } }).axe;
+        const result = await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] }, resultTypes: ["violations"] });
+        return result.violations.map((v) => `${v.id}: ${v.help} at ${v.nodes.slice(0, 3).map((n) => n.target.join(" ")).join("; ")}`);
+      });
+      if (violations.length) throw new Error(`accessibility (${where}): ${violations.join(" | ")}`);
+    };
   });
   afterAll(async () => {
     await h.context?.close();
