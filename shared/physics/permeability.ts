@@ -52,7 +52,9 @@ export interface PermeabilityChoice {
 export function permeabilityFor(material: MaterialProperties, state: MaterialState, meanWallFlux_T: number, effectiveInitial?: number): PermeabilityChoice {
   const initial = material.muCurve[0]?.mu_r ?? material.relativePermeability.initial;
   const scale = effectiveInitial !== undefined && initial > 0 ? effectiveInitial / initial : 1;
-  const low = !(meanWallFlux_T > lowFieldLimit_T(material));
+  // a non-magnetic metal's table is flat at 1: it has no low-field range to leave
+  const flat = material.relativePermeability.maximum <= material.relativePermeability.initial;
+  const low = flat || !(meanWallFlux_T > lowFieldLimit_T(material));
   let mu = (low ? initial : muFromCurve(material.muCurve, meanWallFlux_T, material.saturation_T)) * scale;
   if (state === "as-formed") mu *= material.asFormedFactor;
   const muSource: MuSource = low ? (effectiveInitial !== undefined ? "shop" : "initial") : "material-curve";

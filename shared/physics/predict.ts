@@ -326,6 +326,7 @@ const tesla = (B: number) => (B >= 0.1 ? `${fmt(B)} T` : B >= 1e-4 ? `${fmt(B * 
 
 function muReason(l: Layer, source: MuSource, mean_T: number, state: MaterialState, p: Prepared): string {
   if (!l.material) return "as you gave it";
+  if (l.material.saturation_T == null && l.material.relativePermeability.maximum <= 1) return "non-magnetic: μr = 1";
   const limit = tesla(lowFieldLimit_T(l.material));
   let why: string;
   if (source === "shop") why = `the shop's effective low-field μ for ${l.material.id}, ${METHOD_WORDS[p.method]}, ${CONSTRUCTION_WORDS[p.construction]}, fitted to measured lots`;

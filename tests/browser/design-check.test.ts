@@ -100,7 +100,7 @@ async function cableHoles(page: Page, who: string) {
   await hole(page, 1).getByLabel(/collar length/i).fill("5");
   await hole(page, 1).getByText("The collar is 0.5 hole diameters long.").waitFor();
   before = await changedFrom(page, before);
-  const short = warnings.getByText(/Hole 1 \(Ø 10 mm\): its 5 mm collar gives about 21 dB, short of the \d+ dB the walls are predicted to give\. Make the collar at least [\d.]+ mm long/);
+  const short = warnings.getByText(/Hole 1 \(Ø 10 mm\): its 5 mm collar gives about 21 dB, short of the \d+ dB the built walls are expected to give\. Make the collar at least [\d.]+ mm long/);
   await short.waitFor();
   await warnings.getByText(/the cable hole limits the shield/i).waitFor();
   const rows = page.getByTestId("hole-row");

@@ -123,7 +123,9 @@ describe("shop rates, as the planner", () => {
     const was = await box.inputValue();
     await box.fill("900");
     await construction.getByRole("button", { name: /save construction limits/i }).click();
+    await construction.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();
     await construction.getByText(/too large: at most 160 dB/i).waitFor();
+    expect(await box.getAttribute("aria-invalid")).toBe("true");
     await box.fill(String(Number(was) + 1));
     await construction.getByRole("button", { name: /save construction limits/i }).click();
     await construction.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();

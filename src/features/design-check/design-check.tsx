@@ -148,7 +148,7 @@ export function DesignCheck() {
             }
           >
             {series.length > 0 ? <AttenuationChart series={series} frequency={frequency} range={range} /> : <p className="py-12 text-center text-flux-600">Working out the curve…</p>}
-            <div className="mt-4 grid max-w-xl gap-3 sm:grid-cols-2" role="group" aria-label="Frequency range of the chart">
+            <div className="mt-4 grid max-w-xl gap-3 sm:grid-cols-2" role="group" aria-label="Chart range">
               <TextField
                 label="Chart from (Hz)"
                 name="chartFrom"

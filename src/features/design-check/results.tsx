@@ -53,6 +53,11 @@ export function Headline({ result, frequency }: { result: PredictionResult; freq
           </p>
         </div>
       </div>
+      {result.warnings.some((w) => w.code === "SATURATED") && (
+        <StatusNote tone="danger" word="Saturates">
+          A wall saturates in this field, so the figures above do not hold: see the warnings below.
+        </StatusNote>
+      )}
       <p className="text-flux-800" data-testid="as-built-summary">
         {asBuilt.summary}
       </p>
