@@ -55,22 +55,16 @@ export function lnCombine(lns: number[]): number {
   return -(m + Math.log(sum));
 }
 
-interface Props {
+interface TermProps {
   ctx: ShapeCtx;
   layers: GeometryLayer[];
   mus: number[];
-  core: Core;
   model: BuildModel;
   method: BuildMethod;
   construction: Construction;
   /** a ceiling fitted to measured lots for this alloy, method and construction */
   fittedCeiling_db?: number;
-  scenario?: Scenario;
-  /** also work out what each cause alone costs (the nominal answer; not the band) */
-  withLosses?: boolean;
 }
-
-type TermProps = Omit<Props, "core" | "scenario" | "withLosses">;
 
 /** ln of each layer's weakening by its welds: a factor on its flux shunting, by the magnetic share. */
 function weldLn(p: TermProps, l: GeometryLayer, share: number, axial: boolean): number {
@@ -178,10 +172,6 @@ export function combineWalls(core: Core, terms: JointTerms, scenario: Scenario =
   const lnOpen = core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity;
   const lnIdeal = lnCombine([core.lnClosed, lnOpen]);
   return Math.min(lnCombine([closedWalls(core, terms.weld, lid, true, true), lnOpen, lnCeiling]), lnIdeal);
-}
-
-export function asBuiltWalls(p: Props): AsBuiltWalls {
-  return asBuiltFrom(p.core, jointTerms(p), p.scenario ?? NOMINAL, p.withLosses ?? false);
 }
 
 /** The nominal (or a scenario's) built walls with, when asked, what each cause alone costs. */

@@ -8,7 +8,7 @@ import { ApiError } from "../../api/client";
 import { blankQueryOptions, priceEstimateQueryOptions, type BlankResponse } from "../../api/fabrication";
 import { fmtMm } from "../../components/drawing/drawing";
 import { PriceBreakdown } from "../../components/pricing/price-breakdown";
-import { SelectField, TextField } from "../../components/ui/field";
+import { TextField } from "../../components/ui/field";
 import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { paths } from "../../config/paths";
