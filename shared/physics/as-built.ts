@@ -174,6 +174,11 @@ export function combineWalls(core: Core, terms: JointTerms, scenario: Scenario =
   return Math.min(lnCombine([closedWalls(core, terms.weld, lid, true, true), lnOpen, lnCeiling]), lnIdeal);
 }
 
+/** What a cause takes from the ideal, dB, at most the ideal as stated (a core beyond the report limit is "far" above anything built). */
+function lossFrom(lnIdeal: number, ln: number): number {
+  return Math.min(Math.max(0, dbOfLn(lnIdeal - ln)), REPORT_LIMIT_DB);
+}
+
 /** The nominal (or a scenario's) built walls with, when asked, what each cause alone costs. */
 export function asBuiltFrom(core: Core, terms: JointTerms, scenario: Scenario, withLosses: boolean): AsBuiltWalls {
   const lnOpen = core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity;
@@ -181,12 +186,10 @@ export function asBuiltFrom(core: Core, terms: JointTerms, scenario: Scenario, w
   const ceiling = terms.ceiling_db + scenario.ceilingShift_db;
   const losses: Record<LossCause, number> = { "lid-joints": 0, welds: 0, ceiling: 0 };
   if (withLosses) {
-    // what a cause takes, at most the ideal as stated (a core beyond the report limit is "far" above anything built)
     const lnCeiling = ceiling / dbOfLn(1);
-    const loss = (ln: number) => Math.min(Math.max(0, dbOfLn(lnIdeal - ln)), REPORT_LIMIT_DB);
-    if (terms.lid0) losses["lid-joints"] = loss(lnCombine([closedWalls(core, terms.weld, terms.lid, false, true), lnOpen]));
-    losses.welds = loss(lnCombine([closedWalls(core, terms.weld, terms.lid, true, false), lnOpen]));
-    losses.ceiling = loss(lnCombine([core.lnClosed, lnOpen, lnCeiling]));
+    if (terms.lid0) losses["lid-joints"] = lossFrom(lnIdeal, lnCombine([closedWalls(core, terms.weld, terms.lid, false, true), lnOpen]));
+    losses.welds = lossFrom(lnIdeal, lnCombine([closedWalls(core, terms.weld, terms.lid, true, false), lnOpen]));
+    losses.ceiling = lossFrom(lnIdeal, lnCombine([core.lnClosed, lnOpen, lnCeiling]));
   }
   return {
     ln: combineWalls(core, terms, scenario),

@@ -142,23 +142,38 @@ interface FaceRecord { lnPeak: number; lnFlux: number }
 /** The potential's state (f, h) at a radius, scaled by e^log. */
 interface State { f: Z; h: Z; log: number }
 
-/** Carries the state across a region whose basis is B at its start and Bb at its end. */
+/**
+ * Carries the state across a region whose basis is B at its start and Bb at its end: solve
+ * (f, h) = c1·(u1, h1) + c2·(u2, h2) at the start, multiply c2 by `decay`, rebuild at the end.
+ * Written out on real and imaginary parts: it runs several times in every solve.
+ */
 function step(st: State, B: Basis, Bb: Basis, decay: Z | null): void {
-  const det = sub(mul(B.u1, B.h2), mul(B.u2, B.h1));
-  const c1 = div(sub(mul(B.h2, st.f), mul(B.u2, st.h)), det);
-  let c2 = div(sub(mul(B.u1, st.h), mul(B.h1, st.f)), det);
-  if (decay) c2 = mul(c2, decay);
-  const f = add(mul(c1, Bb.u1), mul(c2, Bb.u2));
-  const h = add(mul(c1, Bb.h1), mul(c2, Bb.h2));
-  const m = Math.max(abs(f), abs(h));
-  if (m > 0 && Number.isFinite(m)) {
-    st.f = scl(f, 1 / m);
-    st.h = scl(h, 1 / m);
-    st.log += Math.log(m);
-  } else {
-    st.f = f;
-    st.h = h;
+  const { u1, h1, u2, h2 } = B;
+  const fr = st.f.re, fi = st.f.im, hr = st.h.re, hi = st.h.im;
+  // det = u1·h2 − u2·h1
+  const dr = u1.re * h2.re - u1.im * h2.im - (u2.re * h1.re - u2.im * h1.im);
+  const di = u1.re * h2.im + u1.im * h2.re - (u2.re * h1.im + u2.im * h1.re);
+  // numerators: h2·f − u2·h and u1·h − h1·f
+  const n1r = h2.re * fr - h2.im * fi - (u2.re * hr - u2.im * hi);
+  const n1i = h2.re * fi + h2.im * fr - (u2.re * hi + u2.im * hr);
+  let n2r = u1.re * hr - u1.im * hi - (h1.re * fr - h1.im * fi);
+  let n2i = u1.re * hi + u1.im * hr - (h1.re * fi + h1.im * fr);
+  if (decay) {
+    const tr = n2r * decay.re - n2i * decay.im;
+    n2i = n2r * decay.im + n2i * decay.re;
+    n2r = tr;
   }
+  const c1 = div({ re: n1r, im: n1i }, { re: dr, im: di });
+  const c2 = div({ re: n2r, im: n2i }, { re: dr, im: di });
+  const Fr = c1.re * Bb.u1.re - c1.im * Bb.u1.im + c2.re * Bb.u2.re - c2.im * Bb.u2.im;
+  const Fi = c1.re * Bb.u1.im + c1.im * Bb.u1.re + c2.re * Bb.u2.im + c2.im * Bb.u2.re;
+  const Hr = c1.re * Bb.h1.re - c1.im * Bb.h1.im + c2.re * Bb.h2.re - c2.im * Bb.h2.im;
+  const Hi = c1.re * Bb.h1.im + c1.im * Bb.h1.re + c2.re * Bb.h2.im + c2.im * Bb.h2.re;
+  const m = Math.max(Math.hypot(Fr, Fi), Math.hypot(Hr, Hi));
+  const k = m > 0 && Number.isFinite(m) ? 1 / m : 1;
+  if (k !== 1) st.log += Math.log(m);
+  st.f = { re: Fr * k, im: Fi * k };
+  st.h = { re: Hr * k, im: Hi * k };
 }
 
 /**
