@@ -336,8 +336,8 @@ function muReason(l: Layer, source: MuSource, mean_T: number, state: MaterialSta
 }
 
 function fieldDirection(ctx: ShapeCtx): string {
-  if (ctx.shape === "sphere") return "any direction: a sphere shields every direction alike";
-  if (ctx.shape === "box") return "any direction, taken at its weakest: the trade rule with the largest inside side, and the lid joint and corner welds counted as if the field crossed them";
+  if (ctx.shape === "sphere") return "in any direction: a sphere shields every direction alike";
+  if (ctx.shape === "box") return "in any direction, taken at its weakest: the trade rule with the largest inside side, and the lid joint and corner welds counted as if the field crossed them";
   return ctx.orientation === "axial" ? "along the can's axis" : "across the can's axis";
 }
 
