@@ -278,6 +278,7 @@ function idealLn(p: Prepared, s: Settled): number {
 }
 
 function termsFor(p: Prepared, mus: number[]): JointTerms {
+  // a fitted ceiling is looked up by the outermost layer's alloy: it meets the field first
   const outer = p.layers[p.layers.length - 1];
   const fitted = fitFor(p.model, outer.material?.id ?? null, p.method, p.construction)?.ceiling_db;
   return jointTerms({ ctx: p.ctx, layers: p.layers, mus, model: p.model, method: p.method, construction: p.construction, fittedCeiling_db: fitted });
