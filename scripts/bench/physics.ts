@@ -18,8 +18,11 @@ const threeLayer: PredictionInput = {
 };
 
 export function benchPhysics(): BenchRow[] {
-  // Let the JIT settle first, as it has in a running server; timeMicros' own warm-up is short.
-  for (let i = 0; i < 3000; i++) predictShield(threeLayer, materialLibrary);
+  // Let the JIT settle first, as it has in a running server (a second of calls: the optimizing
+  // compiler needs more than a few thousand calls to finish with the engine's functions);
+  // timeMicros' own warm-up is short.
+  const warm = Date.now();
+  while (Date.now() - warm < 1000) predictShield(threeLayer, materialLibrary);
   const single = timeMicros(() => predictShield(threeLayer, materialLibrary));
   const freqs = logFrequencies(1, 10_000, 200);
   const sweep_ms = timeMicros(() => sweepAttenuation(threeLayer, materialLibrary, freqs), 1000) / 1000;

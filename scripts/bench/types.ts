@@ -8,17 +8,26 @@ export interface BenchRow {
   pass?: boolean;
 }
 
-/** Times `fn` over enough runs to fill about `budgetMs`, after a warm-up; returns the mean in microseconds. */
+/**
+ * Times `fn` over enough runs to fill about `budgetMs`, after a warm-up; returns the median of
+ * five rounds' means in microseconds, so that a burst of other work on a shared machine moves
+ * one round, not the figure.
+ */
 export function timeMicros(fn: () => unknown, budgetMs = 400): number {
   for (let i = 0; i < 50; i++) fn();
-  let runs = 0;
-  const start = process.hrtime.bigint();
-  let elapsed = 0n;
-  const budget = BigInt(budgetMs) * 1_000_000n;
-  while (elapsed < budget) {
-    fn();
-    runs++;
-    elapsed = process.hrtime.bigint() - start;
+  const ROUNDS = 5;
+  const means: number[] = [];
+  const budget = BigInt(Math.ceil((budgetMs / ROUNDS) * 1_000_000));
+  for (let r = 0; r < ROUNDS; r++) {
+    let runs = 0;
+    const start = process.hrtime.bigint();
+    let elapsed = 0n;
+    while (elapsed < budget) {
+      fn();
+      runs++;
+      elapsed = process.hrtime.bigint() - start;
+    }
+    means.push(Number(elapsed) / 1000 / runs);
   }
-  return Number(elapsed) / 1000 / runs;
+  return means.sort((a, b) => a - b)[Math.floor(ROUNDS / 2)];
 }

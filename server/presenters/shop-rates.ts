@@ -1,4 +1,5 @@
 import type { ShopRatesJson, ShopRatesVersionJson } from "../../shared/schemas/shop-rates";
+import { constructionSettingsOf } from "../../shared/schemas/pricing";
 import type { PriceListVersion } from "../models";
 
 const presentCreator = (v: PriceListVersion) => (v.createdBy ? { id: v.createdBy.id, name: v.createdBy.name } : null);
@@ -7,8 +8,8 @@ export function presentShopRatesVersion(v: PriceListVersion): ShopRatesVersionJs
   return { version: v.version, part: v.part, createdAt: v.createdAt.toISOString(), createdBy: presentCreator(v) };
 }
 
-/** The current shop rates as the planner's page reads them: three parts plus who saved them when. */
+/** The current shop rates as the planner's page reads them: four parts plus who saved them when. */
 export function presentShopRates(v: PriceListVersion): ShopRatesJson {
-  const { stockSheets, formingLimits, ...priceList } = v.data;
-  return { ...presentShopRatesVersion(v), priceList, stockSheets, formingLimits };
+  const { stockSheets, formingLimits, construction: _stored, ...priceList } = v.data;
+  return { ...presentShopRatesVersion(v), priceList, stockSheets, formingLimits, construction: constructionSettingsOf(v.data) };
 }

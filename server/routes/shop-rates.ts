@@ -1,18 +1,19 @@
 import { Router, type Request } from "express";
 import { z } from "zod";
-import { formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
+import { constructionUpdateSchema, formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
 import type { AppDeps } from "../deps";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
 import { PriceListVersion, User } from "../models";
 import { requireRole } from "../policies/utils";
 import { presentShopRates, presentShopRatesVersion } from "../presenters/shop-rates";
+import { invalidateBuildModel } from "../services/buildModelCatalog";
 import { currentShopRates, shopRatesUpdater, type ShopRatesChange } from "../services/shopRatesUpdater";
 
 const historyQuery = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) });
 const withCreator = { include: [{ model: User, as: "createdBy" }] };
 
-/** The planner's price list, stock sheets and forming limits: every save is a new version. */
+/** The planner's price list, stock sheets, forming limits and construction settings: every save is a new version. */
 export function shopRatesRouter({ sequelize }: AppDeps): Router {
   const router = Router();
 
@@ -36,12 +37,15 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
     const { version } = await sequelize.transaction((transaction) =>
       shopRatesUpdater({ actor: req.user!, change: { part, input } as ShopRatesChange, ip: req.ip ?? null, transaction }),
     );
+    // predictions read the construction settings in process: the new version from now on
+    if (part === "construction") invalidateBuildModel();
     await version.reload(withCreator);
     res.json(presentShopRates(version));
   };
   router.put("/shop-rates/price-list", requireUser, save("price-list", priceRatesSchema));
   router.put("/shop-rates/stock-sheets", requireUser, save("stock-sheets", stockSheetsUpdateSchema));
   router.put("/shop-rates/forming-limits", requireUser, save("forming-limits", formingLimitsUpdateSchema));
+  router.put("/shop-rates/construction", requireUser, save("construction", constructionUpdateSchema));
 
   return router;
 }

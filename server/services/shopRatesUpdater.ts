@@ -1,6 +1,6 @@
 import type { Transaction } from "sequelize";
 import { priceListSchema, type PriceList } from "../../shared/schemas/pricing";
-import type { FormingLimitsUpdate, PriceRates, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionUpdate, FormingLimitsUpdate, PriceRates, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
 import { AppError, ValidationError } from "../errors";
 import { fieldErrors } from "../middleware/validate";
 import { PriceListVersion, recordEvent } from "../models";
@@ -9,7 +9,8 @@ import type { Actor } from "../policies/utils";
 export type ShopRatesChange =
   | { part: "price-list"; input: PriceRates }
   | { part: "stock-sheets"; input: StockSheetsUpdate }
-  | { part: "forming-limits"; input: FormingLimitsUpdate };
+  | { part: "forming-limits"; input: FormingLimitsUpdate }
+  | { part: "construction"; input: ConstructionUpdate };
 
 export interface DiffEntry {
   path: string;
@@ -52,10 +53,12 @@ export async function shopRatesUpdater(props: { actor: Actor; change: ShopRatesC
   const before = current.data;
   const next: PriceList =
     change.part === "price-list"
-      ? { ...change.input, stockSheets: before.stockSheets, formingLimits: before.formingLimits }
+      ? { ...change.input, stockSheets: before.stockSheets, formingLimits: before.formingLimits, ...(before.construction ? { construction: before.construction } : {}) }
       : change.part === "stock-sheets"
         ? { ...before, stockSheets: change.input.stockSheets }
-        : { ...before, formingLimits: change.input.formingLimits };
+        : change.part === "forming-limits"
+          ? { ...before, formingLimits: change.input.formingLimits }
+          : { ...before, construction: change.input.construction };
   // the merged document is what quotes read, so it is checked whole
   const parsed = priceListSchema.safeParse(next);
   if (!parsed.success) throw ValidationError(fieldErrors(parsed.error));

@@ -21,10 +21,9 @@
 import { bendAllowance, bendDeduction, outsideSetback } from "./bend";
 import { FabricationInputError, requireNonNegative, requirePositive, type FlatPatternGeometry, type Point, type Relief, type Segment } from "./types";
 
-/** per side; a close lid keeps the magnetic joint short [practice] */
-export const DEFAULT_LID_CLEARANCE_MM = 0.2;
-/** lid skirt: a quarter of the body height, at least 10 mm, at most the body height */
-export const defaultLidHeight = (bodyHeight_mm: number): number => Math.min(bodyHeight_mm, Math.max(10, 0.25 * bodyHeight_mm));
+import { DEFAULT_LID_CLEARANCE_MM, defaultLidHeight } from "../construction-defaults";
+
+export { DEFAULT_LID_CLEARANCE_MM, defaultLidHeight };
 
 export interface BentBoxInput {
   width_mm: number;

@@ -13,6 +13,8 @@ import { drawnCup, DEFAULT_DRAW_LIMITS, type DrawLimits } from "./drawn-cup";
 import { rolledCan } from "./rolled-can";
 import { bentBox, boxLid } from "./bent-box";
 import { FabricationInputError } from "./types";
+import { suggestKFactor } from "./bend";
+import { defaultBendRadius_mm } from "../construction-defaults";
 
 export interface DesignLayer {
   thickness_mm: number;
@@ -122,8 +124,8 @@ export function partsForDesign(config: DesignConfig): FabricatedPart[] {
         depth_mm: (dims.depth ?? NaN) + add,
         height_mm: (dims.height ?? NaN) + add,
         thickness_mm: t,
-        bendRadius_mm: config.bendRadius_mm ?? t,
-        kFactor: config.kFactor ?? 0.44,
+        bendRadius_mm: config.bendRadius_mm ?? defaultBendRadius_mm(t),
+        kFactor: config.kFactor ?? suggestKFactor(config.bendRadius_mm ?? defaultBendRadius_mm(t), t),
       };
       const box = bentBox(body);
       parts.push(mk({ role: "body", method: "bent", quantityPerAssembly: 1, blank: { kind: "cross", length_mm: box.length_mm, width_mm: box.width_mm }, area_mm2: box.area_mm2, bendCount: box.bendCount, weldLength_mm: box.weldLength_mm, drawStages: 0, processAnneals: 0, finishedPiece: true }));

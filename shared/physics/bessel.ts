@@ -75,29 +75,45 @@ export function scaledBessel01(zr: number, zi: number): ScaledBessel {
     return out;
   }
 
-  // Asymptotic sums Σ a_k(ν)/z^k (K) and Σ (-1)^k a_k(ν)/z^k (I), ν = 0 and 1.
+  // Asymptotic sums Σ a_k(ν)/z^k (K) and Σ (-1)^k a_k(ν)/z^k (I), ν = 0 and 1, in one loop:
+  // the even and odd powers are kept apart, so K's sum is E + O and I's is E − O.
   const d = zr * zr + zi * zi;
   const wr = zr / d, wi = -zi / d; // 1/z
-  const sum = (nu: number, alternating: boolean): [number, number] => {
-    const mu4 = 4 * nu * nu;
-    let ar = 1, ai = 0, sr = 1, si = 0, last = Infinity;
-    for (let k = 1; k < 200; k++) {
-      const f = (mu4 - (2 * k - 1) * (2 * k - 1)) / (8 * k) * (alternating ? -1 : 1);
-      const nr = (ar * wr - ai * wi) * f, ni = (ar * wi + ai * wr) * f;
+  let t0r = 1, t0i = 0, t1r = 1, t1i = 0; // a_k(0)/z^k, a_k(1)/z^k
+  let e0r = 1, e0i = 0, o0r = 0, o0i = 0, e1r = 1, e1i = 0, o1r = 0, o1i = 0;
+  let last0 = Infinity, last1 = Infinity, done0 = false, done1 = false;
+  for (let k = 1; k < 200 && !(done0 && done1); k++) {
+    const odd = (2 * k - 1) * (2 * k - 1);
+    if (!done0) {
+      const f = -odd / (8 * k);
+      const nr = (t0r * wr - t0i * wi) * f, ni = (t0r * wi + t0i * wr) * f;
       const m = nr * nr + ni * ni;
-      if (m >= last) break; // smallest term reached: the series is asymptotic
-      ar = nr; ai = ni; sr += ar; si += ai; last = m;
-      if (m < 1e-34) break;
+      if (m >= last0) done0 = true; // smallest term reached: the series is asymptotic
+      else {
+        t0r = nr; t0i = ni; last0 = m;
+        if (k & 1) { o0r += nr; o0i += ni; } else { e0r += nr; e0i += ni; }
+        if (m < 1e-34) done0 = true;
+      }
     }
-    return [sr, si];
-  };
+    if (!done1) {
+      const f = (4 - odd) / (8 * k);
+      const nr = (t1r * wr - t1i * wi) * f, ni = (t1r * wi + t1i * wr) * f;
+      const m = nr * nr + ni * ni;
+      if (m >= last1) done1 = true;
+      else {
+        t1r = nr; t1i = ni; last1 = m;
+        if (k & 1) { o1r += nr; o1i += ni; } else { e1r += nr; e1i += ni; }
+        if (m < 1e-34) done1 = true;
+      }
+    }
+  }
   // sqrt(z)
   const sq = Math.sqrt(az), half = Math.atan2(zi, zr) / 2;
   const szr = sq * Math.cos(half), szi = sq * Math.sin(half);
   const sd = szr * szr + szi * szi;
   const isr = szr / sd, isi = -szi / sd; // 1/sqrt(z)
   const kc = Math.sqrt(Math.PI / 2), ic = 1 / Math.sqrt(2 * Math.PI);
-  const [a0r, a0i] = sum(0, false), [a1r, a1i] = sum(1, false);
+  const a0r = e0r + o0r, a0i = e0i + o0i, a1r = e1r + o1r, a1i = e1i + o1i;
   out.k0r = kc * (isr * a0r - isi * a0i); out.k0i = kc * (isr * a0i + isi * a0r);
   out.k1r = kc * (isr * a1r - isi * a1i); out.k1i = kc * (isr * a1i + isi * a1r);
   if (az <= I_SERIES_MAX) {
@@ -118,7 +134,7 @@ export function scaledBessel01(zr: number, zi: number): ScaledBessel {
     out.i0r = I0r * emr - I0i * emi; out.i0i = I0r * emi + I0i * emr;
     out.i1r = I1r * emr - I1i * emi; out.i1i = I1r * emi + I1i * emr;
   } else {
-    const [b0r, b0i] = sum(0, true), [b1r, b1i] = sum(1, true);
+    const b0r = e0r - o0r, b0i = e0i - o0i, b1r = e1r - o1r, b1i = e1i - o1i;
     out.i0r = ic * (isr * b0r - isi * b0i); out.i0i = ic * (isr * b0i + isi * b0r);
     out.i1r = ic * (isr * b1r - isi * b1i); out.i1i = ic * (isr * b1i + isi * b1r);
   }

@@ -23,6 +23,18 @@ export interface Shell {
   resistivity_ohm_m: number;
 }
 
+/**
+ * The flux density a wall carries, as a multiple of the applied field's peak flux density.
+ * `peak`: the largest |B| anywhere in the wall (the tangential component at the wall's faces,
+ * or the normal one where it is larger), the figure saturation is judged on; at AC the eddy
+ * currents crowd the flux toward the outer face, so it is well above the mean.
+ * `mean`: the flux the wall carries at its strongest section divided by the thickness.
+ */
+export interface WallField {
+  peak: number;
+  mean: number;
+}
+
 export interface ExactResult {
   /** complex H_outside / H_inside (time convention e^{jωt}) */
   S: Complex;
@@ -30,6 +42,8 @@ export interface ExactResult {
   shieldingFactor: number;
   /** 20·log10|S|, computed from logarithms so it stays finite where |S| would overflow */
   attenuation_db: number;
+  /** per shell, innermost first, when asked for */
+  walls?: WallField[];
 }
 
 /** Skin depth δ = √(2ρ/(ω μ0 μr)) in metres; Infinity at DC or for an insulator. */
@@ -122,8 +136,57 @@ function acBasis(geom: Geometry, k: Z, r: number, mu: number): Basis {
   return { u1: si1, h1: scl(sub(ssh, si1), 1 / mu), u2: sk1, h2: scl(add(z(1), sk1), -1 / mu) };
 }
 
-function solve(geom: Geometry, shells: Shell[], frequency_hz: number): ExactResult {
-  if (shells.length === 0) return { S: c(1), shieldingFactor: 1, attenuation_db: 0 };
+/** A wall's field at its two faces, before it is set against the applied field (log units). */
+interface FaceRecord { lnPeak: number; lnFlux: number }
+
+/** The potential's state (f, h) at a radius, scaled by e^log. */
+interface State { f: Z; h: Z; log: number }
+
+/**
+ * Carries the state across a region whose basis is B at its start and Bb at its end: solve
+ * (f, h) = c1·(u1, h1) + c2·(u2, h2) at the start, multiply c2 by `decay`, rebuild at the end.
+ * Written out on real and imaginary parts: it runs several times in every solve.
+ */
+function step(st: State, B: Basis, Bb: Basis, decay: Z | null): void {
+  const { u1, h1, u2, h2 } = B;
+  const fr = st.f.re, fi = st.f.im, hr = st.h.re, hi = st.h.im;
+  // det = u1·h2 − u2·h1
+  const dr = u1.re * h2.re - u1.im * h2.im - (u2.re * h1.re - u2.im * h1.im);
+  const di = u1.re * h2.im + u1.im * h2.re - (u2.re * h1.im + u2.im * h1.re);
+  // numerators: h2·f − u2·h and u1·h − h1·f
+  const n1r = h2.re * fr - h2.im * fi - (u2.re * hr - u2.im * hi);
+  const n1i = h2.re * fi + h2.im * fr - (u2.re * hi + u2.im * hr);
+  let n2r = u1.re * hr - u1.im * hi - (h1.re * fr - h1.im * fi);
+  let n2i = u1.re * hi + u1.im * hr - (h1.re * fi + h1.im * fr);
+  if (decay) {
+    const tr = n2r * decay.re - n2i * decay.im;
+    n2i = n2r * decay.im + n2i * decay.re;
+    n2r = tr;
+  }
+  const c1 = div({ re: n1r, im: n1i }, { re: dr, im: di });
+  const c2 = div({ re: n2r, im: n2i }, { re: dr, im: di });
+  const Fr = c1.re * Bb.u1.re - c1.im * Bb.u1.im + c2.re * Bb.u2.re - c2.im * Bb.u2.im;
+  const Fi = c1.re * Bb.u1.im + c1.im * Bb.u1.re + c2.re * Bb.u2.im + c2.im * Bb.u2.re;
+  const Hr = c1.re * Bb.h1.re - c1.im * Bb.h1.im + c2.re * Bb.h2.re - c2.im * Bb.h2.im;
+  const Hi = c1.re * Bb.h1.im + c1.im * Bb.h1.re + c2.re * Bb.h2.im + c2.im * Bb.h2.re;
+  const m = Math.max(Math.hypot(Fr, Fi), Math.hypot(Hr, Hi));
+  const k = m > 0 && Number.isFinite(m) ? 1 / m : 1;
+  if (k !== 1) st.log += Math.log(m);
+  st.f = { re: Fr * k, im: Fi * k };
+  st.h = { re: Hr * k, im: Hi * k };
+}
+
+/**
+ * |B| at a face just inside a wall of permeability mu: tangential from h, normal from f
+ * (cylinder B_φ = μ·h, B_r = f/r; sphere B_θ = μ·h/r, B_r = 2f/r), in the units where the
+ * uniform inside field is 1 (cylinder) or 2 (sphere), on the state's scale.
+ */
+function faceB(geom: Geometry, st: State, r: number, mu: number): number {
+  return geom === "cylinder" ? Math.max(mu * abs(st.h), abs(st.f) / r) : Math.max((mu * abs(st.h)) / r, (2 * abs(st.f)) / r);
+}
+
+function solve(geom: Geometry, shells: Shell[], frequency_hz: number, withWalls = false): ExactResult {
+  if (shells.length === 0) return { S: c(1), shieldingFactor: 1, attenuation_db: 0, ...(withWalls ? { walls: [] } : {}) };
   for (let i = 0; i < shells.length; i++) {
     const s = shells[i];
     if (!(s.innerRadius_m > 0 && s.thickness_m > 0 && s.mu_r >= 1 && s.resistivity_ohm_m > 0))
@@ -134,24 +197,8 @@ function solve(geom: Geometry, shells: Shell[], frequency_hz: number): ExactResu
   const omega = 2 * Math.PI * frequency_hz;
   const a1 = shells[0].innerRadius_m;
   // uniform inner field, C_inside = 1
-  let f = z(a1);
-  let h = z(geom === "cylinder" ? 1 : 2 * a1);
-  let logScale = 0;
-
-  const step = (B: Basis, Bb: Basis, decay: Z | null) => {
-    const det = sub(mul(B.u1, B.h2), mul(B.u2, B.h1));
-    const c1 = div(sub(mul(B.h2, f), mul(B.u2, h)), det);
-    let c2 = div(sub(mul(B.u1, h), mul(B.h1, f)), det);
-    if (decay) c2 = mul(c2, decay);
-    f = add(mul(c1, Bb.u1), mul(c2, Bb.u2));
-    h = add(mul(c1, Bb.h1), mul(c2, Bb.h2));
-    const m = Math.max(abs(f), abs(h));
-    if (m > 0 && Number.isFinite(m)) {
-      f = scl(f, 1 / m);
-      h = scl(h, 1 / m);
-      logScale += Math.log(m);
-    }
-  };
+  const st: State = { f: z(a1), h: z(geom === "cylinder" ? 1 : 2 * a1), log: 0 };
+  const faces: FaceRecord[] = [];
 
   for (let i = 0; i < shells.length; i++) {
     const s = shells[i];
@@ -159,8 +206,10 @@ function solve(geom: Geometry, shells: Shell[], frequency_hz: number): ExactResu
     if (i > 0) {
       // air gap from the previous shell's outer radius to this one's inner radius
       const prevOuter = shells[i - 1].innerRadius_m + shells[i - 1].thickness_m;
-      if (a > prevOuter) step(staticBasis(geom, prevOuter, 1), staticBasis(geom, a, 1), null);
+      if (a > prevOuter) step(st, staticBasis(geom, prevOuter, 1), staticBasis(geom, a, 1), null);
     }
+    // the state at the inner face (continuous f and h: the same just inside the wall)
+    const fa = st.f, lnA = st.log, peakA = withWalls ? faceB(geom, st, a, s.mu_r) : 0;
     const delta = skinDepth_m(s.resistivity_ohm_m, s.mu_r, frequency_hz);
     // |k·r| < 1e-7: the eddy-current correction is O((kr)²) below double precision, so the
     // static basis is exact to rounding (and avoids k underflowing at absurdly low frequencies)
@@ -168,35 +217,53 @@ function solve(geom: Geometry, shells: Shell[], frequency_hz: number): ExactResu
       const k = z(1 / delta, 1 / delta);
       const t = s.thickness_m;
       // c2 carries e^{-2kt}; the common e^{kt} becomes log growth plus a phase
-      step(acBasis(geom, k, a, s.mu_r), acBasis(geom, k, b, s.mu_r), exp(scl(k, -2 * t)));
-      logScale += k.re * t;
+      step(st, acBasis(geom, k, a, s.mu_r), acBasis(geom, k, b, s.mu_r), exp(scl(k, -2 * t)));
+      st.log += k.re * t;
       const rot = z(Math.cos(k.im * t), Math.sin(k.im * t));
-      f = mul(f, rot);
-      h = mul(h, rot);
+      st.f = mul(st.f, rot);
+      st.h = mul(st.h, rot);
     } else {
-      step(staticBasis(geom, a, s.mu_r), staticBasis(geom, b, s.mu_r), null);
+      step(st, staticBasis(geom, a, s.mu_r), staticBasis(geom, b, s.mu_r), null);
+    }
+    if (withWalls) {
+      // flux through the wall's strongest section: ∫B_tangential dr = f(a) − f(b) (cylinder),
+      // [(r·f)(a) − (r·f)(b)]/r_mid (sphere), both faces brought to the outer face's scale
+      const back = Math.exp(lnA - st.log);
+      const flux = geom === "cylinder"
+        ? abs(sub(st.f, scl(fa, back)))
+        : abs(sub(scl(st.f, b), scl(fa, a * back))) / ((a + b) / 2);
+      faces.push({
+        lnPeak: Math.max(Math.log(peakA) + lnA, Math.log(faceB(geom, st, b, s.mu_r)) + st.log),
+        lnFlux: Math.log(flux / s.thickness_m) + st.log,
+      });
     }
   }
   const last = shells[shells.length - 1];
   const B = staticBasis(geom, last.innerRadius_m + last.thickness_m, 1);
-  const C = div(sub(mul(B.h2, f), mul(B.u2, h)), sub(mul(B.u1, B.h2), mul(B.u2, B.h1)));
+  const C = div(sub(mul(B.h2, st.f), mul(B.u2, st.h)), sub(mul(B.u1, B.h2), mul(B.u2, B.h1)));
   const mC = abs(C);
-  const lnAbs = Math.log(mC) + logScale;
+  const lnAbs = Math.log(mC) + st.log;
   // phase of C, magnitude from the logarithm (pegged at e^709 rather than overflowing)
   const mag = Math.exp(Math.min(lnAbs, 709));
-  return {
+  const result: ExactResult = {
     S: c((C.re / mC) * mag, (C.im / mC) * mag),
     shieldingFactor: Math.min(Math.exp(lnAbs), Number.MAX_VALUE),
     attenuation_db: (20 * lnAbs) / Math.LN10,
   };
+  if (withWalls) {
+    // the applied field in the same units: |C_outside| (cylinder), 2·|C_outside| (sphere)
+    const lnApplied = lnAbs + (geom === "sphere" ? Math.LN2 : 0);
+    result.walls = faces.map((w) => ({ peak: Math.exp(w.lnPeak - lnApplied), mean: Math.exp(w.lnFlux - lnApplied) }));
+  }
+  return result;
 }
 
-/** Exact multilayer sphere, uniform field; shells innermost first. */
-export function sphericalShieldingFactor(shells: Shell[], frequency_hz: number): ExactResult {
-  return solve("sphere", shells, frequency_hz);
+/** Exact multilayer sphere, uniform field; shells innermost first. `withWalls`: each wall's field too. */
+export function sphericalShieldingFactor(shells: Shell[], frequency_hz: number, withWalls = false): ExactResult {
+  return solve("sphere", shells, frequency_hz, withWalls);
 }
 
-/** Exact multilayer long cylinder, field across the axis; shells innermost first. */
-export function cylindricalShieldingFactor(shells: Shell[], frequency_hz: number): ExactResult {
-  return solve("cylinder", shells, frequency_hz);
+/** Exact multilayer long cylinder, field across the axis; shells innermost first. `withWalls`: each wall's field too. */
+export function cylindricalShieldingFactor(shells: Shell[], frequency_hz: number, withWalls = false): ExactResult {
+  return solve("cylinder", shells, frequency_hz, withWalls);
 }

@@ -3,6 +3,8 @@ export * from "./permeability";
 export * from "./exact";
 export * from "./thin";
 export * from "./saturation";
+export * from "./limits";
+export * from "./build-model";
 export * from "./predict";
 export { scaledBessel01, besselI, besselK } from "./bessel";
 export { Complex } from "./complex";

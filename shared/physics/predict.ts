@@ -1,35 +1,36 @@
-// The shielding prediction behind POST /api/predictions: geometry of the nested layers, μ for
-// each layer at its operating induction, the shape's formulas, saturation and design warnings,
-// and a band below the ideal figure. Every figure is an engineering estimate.
+// The shielding prediction behind POST /api/predictions. Two figures: the ideal (the exact
+// seamless shell of the given layers) and the headline as-built figure a shield of this
+// construction is expected to reach (lid joints, welds, cable holes and the construction
+// ceiling; see as-built.ts and build-model.ts), with a band from the same model's spread. μ is
+// the alloy's design value at the wall's operating induction; each wall's field comes from the
+// exact solution at the asked frequency, and the saturation check from its peak. Every figure
+// is an engineering estimate.
 
-import { Complex, c, capMagnitude } from "./complex";
+import { asBuiltFrom, combineWalls, jointTerms, lnCombine, NOMINAL, type JointTerms, type LossCause, type Scenario } from "./as-built";
 import {
-  cylindricalShieldingFactor,
-  sphericalShieldingFactor,
-  skinDepth_m,
-  staticCylindricalShell,
-  type Shell,
-} from "./exact";
+  CONSTRUCTION_WORDS,
+  constructionOf,
+  DEFAULT_BUILD_MODEL,
+  fitFor,
+  METHOD_WORDS,
+  METHODS_FOR,
+  type BuildFit,
+  type BuildMethod,
+  type BuildModel,
+  type Construction,
+} from "./build-model";
+import { skinDepth_m } from "./exact";
+import { holeLeak, holeResults, holeWarnings, type HoleInput, type HoleResult } from "./holes";
+import { INPUT_LIMITS, rangeProblem, REPORT_LIMIT_DB, type Range } from "./limits";
 import { materialLibrary, type MaterialProperties } from "./materials";
-import { permeabilityFor, type MaterialState, type MuSource } from "./permeability";
-import {
-  saturationMargin,
-  saturationWarnings,
-  wallFluxDensity_T,
-  type FluxPath,
-  type PredictionWarning,
-} from "./saturation";
-import {
-  circumscribedRadius,
-  collarAttenuation_db,
-  collarLengthFor_mm,
-  demagnetizingFactor,
-  nestedShells,
-  openEndCombination,
-} from "./thin";
+import { lowFieldLimit_T, permeabilityFor, type MaterialState, type MuSource } from "./permeability";
+import { saturationMargin, saturationWarnings, type PredictionWarning } from "./saturation";
+import { dbOfLn, lnSingleKaden, regimeOf, scaleCore, solveCore, type Core, type GeometryLayer, type Orientation, type Shape, type ShapeCtx } from "./shapes";
+import { circumscribedRadius, decayRoot } from "./thin";
 
-export type Shape = "cylinder" | "box" | "sphere";
-export type Orientation = "transverse" | "axial";
+export type { Shape, Orientation } from "./shapes";
+export type { HoleInput, HoleResult } from "./holes";
+export { roundUpLength_mm } from "./holes";
 
 export interface LayerInput {
   material?: string;
@@ -39,12 +40,6 @@ export interface LayerInput {
   thickness_mm: number;
   /** clear space to the next layer outward */
   gap_mm?: number;
-}
-
-export interface HoleInput {
-  diameter_mm: number;
-  /** 0 or absent: a plain hole */
-  collarLength_mm?: number;
 }
 
 export interface PredictionInput {
@@ -57,6 +52,8 @@ export interface PredictionInput {
   /** amplitude_uT is the peak applied flux density; frequency 0 = static */
   field: { frequency_hz: number; amplitude_uT: number; orientation?: Orientation };
   state?: MaterialState;
+  /** the construction the as-built figure assumes; cylinder drawn (default) or rolled, box bent, sphere drawn */
+  method?: BuildMethod;
   holes?: HoleInput[];
 }
 
@@ -66,41 +63,65 @@ export interface LayerResult {
   thickness_mm: number;
   /** cylinder/sphere: inside radius of this layer; box: radius of the sphere through its inside corners */
   innerRadius_mm: number;
+  /** peak flux density in the wall, from the exact solution at the asked frequency: what saturation is judged on */
   wallFluxDensity_T: number;
+  /** the wall's flux over its thickness: where μ is read on the alloy's table */
+  wallFluxMean_T: number;
   saturation_T: number | null;
   saturationMargin: number | null;
   /** relative permeability used */
   mu_r: number;
   muSource: MuSource;
+  /** why this μ, in words */
+  muReason: string;
   /** null at DC or for a non-conductor */
   skinDepth_mm: number | null;
 }
 
-/** One cable hole and its collar (chimney), in the order given. */
-export interface HoleResult {
-  index: number;
-  diameter_mm: number;
-  collarLength_mm: number;
-  /** the collar's own attenuation, field along the collar (the weak case, j = 2.405) */
-  collarAttenuation_db: number;
-  /** the collar length whose own attenuation reaches the walls' predicted figure (capped, see HOLE_TARGET_MAX_DB) */
-  neededCollarLength_mm: number;
+export interface Figure {
+  shieldingFactor: number;
+  attenuation_db: number;
+  /** above REPORT_LIMIT_DB: stated as that limit */
+  beyondLimit: boolean;
+}
+
+export interface AsBuiltSummary {
+  construction: Construction;
+  method: BuildMethod;
+  layers: number;
+  /** the construction ceiling used, dB */
+  ceiling_db: number;
+  /** the lid joint assumed (innermost layer), or null without a lid */
+  lid: { overlap_mm: number; clearance_mm: number } | null;
+  /** what each cause alone takes from the ideal, largest first */
+  losses: { cause: LossCause | "holes"; db: number }[];
+  /** one sentence on the difference from the ideal */
+  summary: string;
+  /** library defaults and shop settings, or parameters fitted to the shop's measured lots */
+  source: "library" | "shop";
 }
 
 export interface PredictionResult {
+  /** as built: what a shield of this construction is expected to reach */
   shieldingFactor: number;
-  /** the walls and the holes together (see holeLimit) */
   attenuation_db: number;
-  /** the walls alone, before the holes' leakage is counted; equals attenuation_db without holes */
+  beyondLimit: boolean;
+  /** the built walls alone, before the holes' leakage is counted; equals attenuation_db without holes */
   wallAttenuation_db: number;
+  /** the exact seamless shell of the given layers (the check against published solutions uses it) */
+  ideal: Figure;
+  asBuilt: AsBuiltSummary;
   holes: HoleResult[];
   layers: LayerResult[];
   warnings: PredictionWarning[];
   method: string;
   band: { low_db: number; high_db: number; margin_db: number; basis: string };
+  /** the field direction the figure holds for, in words */
+  fieldDirection: string;
   estimate: true;
-  /** box only: both estimates, the lower is used */
+  /** box only: both estimates of the ideal, the lower is used */
   boxEstimates?: { rule_db: number; circumscribedSphere_db: number };
+  calibration?: { source: "shop" | "library"; lots: number; fittedAt: string };
 }
 
 export class PredictionInputError extends Error {
@@ -116,376 +137,332 @@ export type MaterialLookup = MaterialProperties[] | ((id: string) => MaterialPro
 
 // Practical limits [practice]
 const NICKEL_IRON_FORMING_LIMIT_MM = 3;
-const MAX_MODEL_FREQUENCY_HZ = 100_000;
 const THIN_FORM_RADIUS_FRACTION = 1 / 5;
-/**
- * The needed collar length aims at the walls' predicted figure, but no higher than this: past
- * about 200 dB the walls no longer decide what a built shield reaches (seams and lids do), the
- * same line the page's chart clips at. 200 dB along a collar is about 4.8 hole diameters.
- */
-export const HOLE_TARGET_MAX_DB = 200;
-/** A hole is reported as limiting the shield when it costs at least this much of the walls' figure. */
-const HOLE_LIMITED_DB = 1;
+/** μ is re-read from the table until it moves less than this between passes */
+const MU_SETTLED = 0.02;
+const MAX_PASSES = 4;
 
-/** A layer with its geometry and working properties resolved. Lengths in mm. */
-interface Layer {
-  index: number;
+interface Layer extends GeometryLayer {
   material: MaterialProperties | null;
-  t: number;
-  /** cylinder/sphere inside radius; box: circumscribed inside radius */
-  a: number;
-  /** cylinder inside length */
-  L: number;
-  /** box inside sides */
-  box: [number, number, number];
-  mu: number;
-  muSource: MuSource;
-  rho: number;
   sat: number | null;
-  Bwall: number;
+  /** explicit μ as given, or null for a library material */
+  explicitMu: number | null;
+  fit?: BuildFit;
 }
 
-interface Ctx {
-  shape: Shape;
-  orientation: Orientation;
-  ends: "closed" | "open";
-  f: number;
+interface Prepared {
+  ctx: ShapeCtx;
+  layers: Layer[];
+  method: BuildMethod;
+  construction: Construction;
+  state: MaterialState;
+  B0: number;
+  holes: HoleInput[];
+  model: BuildModel;
 }
 
-const finitePositive = (x: unknown): x is number => typeof x === "number" && Number.isFinite(x) && x > 0;
+interface Settled {
+  core: Core;
+  mus: number[];
+  sources: MuSource[];
+  means: number[];
+}
 
 function lookupFn(materials: MaterialLookup): (id: string) => MaterialProperties | undefined {
   return Array.isArray(materials) ? (id) => materials.find((m) => m.id === id) : materials;
 }
 
-function shellsOf(layers: Layer[], radius: (l: Layer) => number): Shell[] {
-  return layers.map((l) => ({ innerRadius_m: radius(l) / 1000, thickness_m: l.t / 1000, mu_r: l.mu, resistivity_ohm_m: l.rho }));
+function check(field: string, what: string, value: unknown, range: Range): number {
+  const problem = typeof value === "number" ? rangeProblem(what, value, range) : `${what} must be a number.`;
+  if (problem) throw new PredictionInputError(field, problem);
+  return value as number;
 }
 
-/** (μ−1)²/μ: the static strength of a wall, without the spurious static term for μ = 1. */
-const magneticStrength = (mu: number) => ((mu - 1) * (mu - 1)) / mu;
-
-interface ShapeAnswer {
-  S: Complex;
-  attenuation_db: number;
-  method: string;
-  boxEstimates?: { rule_db: number; circumscribedSphere_db: number };
-}
-
-const dbOf = (S: Complex) => 20 * Math.log10(Math.max(S.abs(), 1e-300));
-
-/** S of a contiguous run of layers (innermost first) by the shape's method. */
-function shapeShielding(ctx: Ctx, layers: Layer[]): ShapeAnswer {
-  const { shape, f } = ctx;
-  if (shape === "sphere") {
-    const r = sphericalShieldingFactor(shellsOf(layers, (l) => l.a), f);
-    return { S: r.S, attenuation_db: r.attenuation_db, method: "exact multilayer sphere (spherical Bessel)" };
-  }
-  if (shape === "box") {
-    // (1) exact multilayer sphere through the box's corners: conservative [derived]
-    const sphere = sphericalShieldingFactor(shellsOf(layers, (l) => l.a), f);
-    // (2) trade rule per layer, a = largest inside side (the conservative reading), plus the
-    // eddy-current excess of that layer's circumscribed sphere; layers nested by the two-shell
-    // rule with the enclosed-volume ratio as gap factor.
-    const per = layers.map((l) => {
-      const one = shellsOf([l], (x) => x.a);
-      const ac = sphericalShieldingFactor(one, f).S;
-      const dc = sphericalShieldingFactor(one, 0).S;
-      return capMagnitude(c(1 + (0.8 * magneticStrength(l.mu) * l.t) / Math.max(...l.box)).add(ac.sub(dc)));
-    });
-    const ratios = layers.slice(1).map((o, i) => {
-      const inner = layers[i];
-      const vIn = inner.box.reduce((p, s) => p * (s + 2 * inner.t), 1);
-      return vIn / o.box.reduce((p, s) => p * s, 1);
-    });
-    const rule = nestedShells(per, ratios);
-    const rule_db = dbOf(rule);
-    const useRule = rule_db <= sphere.attenuation_db;
-    return {
-      S: useRule ? rule : sphere.S,
-      attenuation_db: Math.min(rule_db, sphere.attenuation_db),
-      method: `box estimate: lower of trade rule 1 + 0.8μt/a and circumscribed sphere (${useRule ? "rule" : "sphere"} used)`,
-      boxEstimates: { rule_db, circumscribedSphere_db: sphere.attenuation_db },
-    };
-  }
-  // cylinder
-  const inner = layers[0];
-  if (ctx.orientation === "transverse") {
-    const r = cylindricalShieldingFactor(shellsOf(layers, (l) => l.a), f);
-    if (ctx.ends === "closed")
-      return { S: r.S, attenuation_db: r.attenuation_db, method: "exact multilayer cylinder (Bessel), transverse" };
-    const S = openEndCombination(capMagnitude(r.S), inner.L, inner.a, "transverse");
-    return { S, attenuation_db: dbOf(S), method: "exact multilayer cylinder (Bessel), transverse, open-end leakage exp(−3.832·z/a)" };
-  }
-  // Axial, closed can. Per layer: the static flux-shunting term of the exact transverse shell
-  // scaled by 4N (Mager: S_A ≈ 1 + 4N·μt/D), plus that shell's AC excess S_T(f) − S_T(0) unchanged
-  // (eddy currents in a long tube shield an axial field about as they do a transverse one);
-  // reduces to the DC form at f = 0 and to the eddy form for μ = 1. Layers nested by the two-shell
-  // rule with the enclosed-volume ratio (D²L) as gap factor. [derived]
-  const per = layers.map((l) => {
-    const one = shellsOf([l], (x) => x.a);
-    const sT0 = staticCylindricalShell(l.mu, l.a, l.a + l.t);
-    const ac = f > 0 ? cylindricalShieldingFactor(one, f).S.sub(sT0) : c(0);
-    const N = demagnetizingFactor((l.L + l.t) / (2 * l.a + l.t));
-    return capMagnitude(c(1 + 4 * N * (sT0 - 1)).add(ac));
-  });
-  const ratios = layers.slice(1).map((o, i) => {
-    const l = layers[i];
-    return ((l.a + l.t) ** 2 * (l.L + 2 * l.t)) / (o.a ** 2 * o.L);
-  });
-  const closed = nestedShells(per, ratios);
-  if (ctx.ends === "closed")
-    return { S: closed, attenuation_db: dbOf(closed), method: "closed can, axial: 1 + 4N·μt/D (Osborn N) with eddy-current excess of the exact cylinder" };
-  const S = openEndCombination(closed, inner.L, inner.a, "axial");
-  return { S, attenuation_db: dbOf(S), method: "open can, axial: 1 + 4N·μt/D with open-end leakage exp(−2.405·z/a)" };
-}
-
-function fluxPath(ctx: Ctx): FluxPath {
-  if (ctx.shape === "cylinder") return ctx.orientation === "axial" ? "cylinder-axial" : "cylinder-transverse";
-  return ctx.shape;
-}
-
-function describe(l: Layer): string {
-  return `Layer ${l.index + 1} (${l.material ? l.material.id : `μr ${l.mu}`}, ${l.t} mm)`;
-}
-
-function requireDim(dims: PredictionInput["dimensions_mm"], key: keyof PredictionInput["dimensions_mm"]): number {
-  const v = dims?.[key];
-  if (!finitePositive(v)) throw new PredictionInputError(`dimensions_mm.${key}`, `dimensions_mm.${key} must be a positive number of millimetres.`);
-  return v;
-}
-
-export function predictShield(input: PredictionInput, materials: MaterialLookup = materialLibrary): PredictionResult {
+function prepare(input: PredictionInput, materials: MaterialLookup, model: BuildModel): Prepared {
   const lookup = lookupFn(materials);
   const shape = input.shape;
-  if (shape !== "cylinder" && shape !== "box" && shape !== "sphere")
-    throw new PredictionInputError("shape", "shape must be cylinder, box or sphere.");
-  const f = input.field?.frequency_hz;
-  if (!(typeof f === "number" && Number.isFinite(f) && f >= 0))
-    throw new PredictionInputError("field.frequency_hz", "field.frequency_hz must be 0 or more.");
-  const amplitude_uT = input.field.amplitude_uT;
-  if (!finitePositive(amplitude_uT)) throw new PredictionInputError("field.amplitude_uT", "field.amplitude_uT must be positive.");
-  if (!Array.isArray(input.layers) || input.layers.length === 0)
-    throw new PredictionInputError("layers", "Give at least one layer.");
-  const state: MaterialState = input.state ?? "annealed";
-  const ctx: Ctx = {
-    shape,
-    orientation: shape === "cylinder" ? (input.field.orientation ?? "transverse") : "transverse",
-    ends: input.ends ?? "closed",
-    f,
-  };
+  if (shape !== "cylinder" && shape !== "box" && shape !== "sphere") throw new PredictionInputError("shape", "Shape must be cylinder, box or sphere.");
+  const f = check("field.frequency_hz", "The frequency", input.field?.frequency_hz, INPUT_LIMITS.frequency_hz);
+  const amplitude_uT = check("field.amplitude_uT", "The field amplitude", input.field.amplitude_uT, INPUT_LIMITS.amplitude_uT);
+  if (!Array.isArray(input.layers) || input.layers.length === 0) throw new PredictionInputError("layers", "Give at least one layer.");
+  const method = input.method ?? METHODS_FOR[shape][0];
+  if (!METHODS_FOR[shape].includes(method))
+    throw new PredictionInputError("method", `A ${shape} is made ${METHODS_FOR[shape].map((m) => METHOD_WORDS[m]).join(" or ")} here, not ${method}.`);
+  const ends = shape === "cylinder" ? (input.ends ?? "closed") : "closed";
+  const ctx: ShapeCtx = { shape, orientation: shape === "cylinder" ? (input.field.orientation ?? "transverse") : "transverse", ends, f };
+  const construction = constructionOf(shape, ends);
 
-  // Inside geometry of the innermost layer
+  const d = input.dimensions_mm ?? {};
   let a: number, L = 0, box: [number, number, number] = [0, 0, 0];
   if (shape === "box") {
-    box = [requireDim(input.dimensions_mm, "width"), requireDim(input.dimensions_mm, "depth"), requireDim(input.dimensions_mm, "height")];
+    box = [
+      check("dimensions_mm.width", "The inside width", d.width, INPUT_LIMITS.dimension_mm),
+      check("dimensions_mm.depth", "The inside depth", d.depth, INPUT_LIMITS.dimension_mm),
+      check("dimensions_mm.height", "The inside height", d.height, INPUT_LIMITS.dimension_mm),
+    ];
     a = circumscribedRadius(...box);
   } else {
-    a = requireDim(input.dimensions_mm, "diameter") / 2;
-    if (shape === "cylinder") L = requireDim(input.dimensions_mm, "length");
+    a = check("dimensions_mm.diameter", "The inside diameter", d.diameter, INPUT_LIMITS.dimension_mm) / 2;
+    if (shape === "cylinder") L = check("dimensions_mm.length", "The inside length", d.length, INPUT_LIMITS.dimension_mm);
   }
 
-  // Geometry and material of each layer, innermost first
   const layers: Layer[] = input.layers.map((li, i) => {
-    if (!finitePositive(li.thickness_mm)) throw new PredictionInputError(`layers.${i}.thickness_mm`, "thickness_mm must be positive.");
-    const gap = li.gap_mm ?? 0;
-    if (!(Number.isFinite(gap) && gap >= 0)) throw new PredictionInputError(`layers.${i}.gap_mm`, "gap_mm must be 0 or more.");
+    const t = check(`layers.${i}.thickness_mm`, "The wall thickness", li.thickness_mm, INPUT_LIMITS.thickness_mm);
+    const gap = li.gap_mm === undefined ? 0 : check(`layers.${i}.gap_mm`, "The gap", li.gap_mm, INPUT_LIMITS.gap_mm);
     let material: MaterialProperties | null = null;
-    let mu = 1, rho = Infinity, sat: number | null = null;
-    let muSource: MuSource = "explicit";
+    let rho: number, sat: number | null, explicitMu: number | null = null;
     if (li.material != null) {
       const m = lookup(li.material);
       if (!m) throw new PredictionInputError(`layers.${i}.material`, `Unknown material "${li.material}".`);
       material = m;
       rho = m.resistivity_ohm_m;
       sat = m.saturation_T;
-      muSource = "material-curve";
     } else {
-      if (!(typeof li.mu_r === "number" && Number.isFinite(li.mu_r) && li.mu_r >= 1))
-        throw new PredictionInputError(`layers.${i}.mu_r`, "Give a material id or mu_r (1 or more).");
-      if (!finitePositive(li.resistivity_ohm_m))
-        throw new PredictionInputError(`layers.${i}.resistivity_ohm_m`, "resistivity_ohm_m must be positive.");
-      mu = li.mu_r;
-      rho = li.resistivity_ohm_m;
-      sat = li.saturation_T ?? null;
+      if (li.mu_r === undefined) throw new PredictionInputError(`layers.${i}.mu_r`, "Give a material id or mu_r (1 or more).");
+      explicitMu = check(`layers.${i}.mu_r`, "The relative permeability", li.mu_r, INPUT_LIMITS.mu_r);
+      rho = check(`layers.${i}.resistivity_ohm_m`, "The resistivity", li.resistivity_ohm_m, INPUT_LIMITS.resistivity_ohm_m);
+      sat = li.saturation_T == null ? null : check(`layers.${i}.saturation_T`, "The saturation", li.saturation_T, INPUT_LIMITS.saturation_T);
     }
-    const layer: Layer = { index: i, material, t: li.thickness_mm, a, L, box: [...box], mu, muSource, rho, sat, Bwall: 0 };
+    const fit = fitFor(model, material?.id ?? null, method, construction);
+    const layer: Layer = { index: i, material, t, a, L, box: [...box], rho, sat, explicitMu, ...(fit?.mu_effective !== undefined ? { fit } : {}) };
     // next layer's inside = this one's outside plus the gap
-    const grow = 2 * (li.thickness_mm + gap);
+    const grow = 2 * (t + gap);
     if (shape === "box") {
       box = [box[0] + grow, box[1] + grow, box[2] + grow];
       a = circumscribedRadius(...box);
     } else {
-      a += li.thickness_mm + gap;
+      a += t + gap;
       L += grow;
     }
     return layer;
   });
 
-  for (const [i, h] of (input.holes ?? []).entries()) {
-    if (!finitePositive(h.diameter_mm)) throw new PredictionInputError(`holes.${i}.diameter_mm`, "The hole diameter must be a positive number of millimetres.");
-    const collar = h.collarLength_mm ?? 0;
-    if (!(Number.isFinite(collar) && collar >= 0)) throw new PredictionInputError(`holes.${i}.collarLength_mm`, "The collar length must be 0 or more millimetres.");
-  }
+  const holes = input.holes ?? [];
+  holes.forEach((h, i) => {
+    check(`holes.${i}.diameter_mm`, "The hole diameter", h.diameter_mm, INPUT_LIMITS.holeDiameter_mm);
+    if (h.collarLength_mm !== undefined) check(`holes.${i}.collarLength_mm`, "The collar length", h.collarLength_mm, INPUT_LIMITS.collarLength_mm);
+  });
 
-  // Outermost first: the field a layer sees is the applied field reduced by the layers outside
-  // it; B_wall comes from the μ → ∞ estimate, then μ is read from the curve at that induction.
-  const B_applied = amplitude_uT * 1e-6;
-  const path = fluxPath(ctx);
-  for (let i = layers.length - 1; i >= 0; i--) {
-    const l = layers[i];
-    const outside = layers.slice(i + 1);
-    const Souter = outside.length ? Math.max(1, shapeShielding(ctx, outside).S.abs()) : 1;
-    const B0 = B_applied / Souter;
-    const D = 2 * (l.a + l.t);
-    const N = path === "cylinder-axial" ? demagnetizingFactor((l.L + l.t) / (2 * l.a + l.t)) : 1 / 3;
-    l.Bwall = wallFluxDensity_T(path, B0, D, l.t, N);
-    if (l.material) {
-      const choice = permeabilityFor(l.material, state, l.Bwall);
-      l.mu = choice.mu_r;
-      l.muSource = choice.muSource;
-    }
-  }
-
-  const walls = shapeShielding(ctx, layers);
-  const wallAttenuation_db = Math.max(0, walls.attenuation_db);
-  const holes = holeResults(input.holes ?? [], wallAttenuation_db);
-  const answer = holes.length ? holeLimit(walls, holes, insideArea_mm2(ctx, layers[0])) : walls;
-  const shieldingFactor = Math.max(1, Math.min(answer.S.abs(), Number.MAX_VALUE));
-  // A passive shell does not amplify a uniform field; the open-end and box combinations can read
-  // below 1 for near-transparent walls, so the figure is floored at 1 (0 dB).
-  const attenuation_db = Math.max(0, answer.attenuation_db);
-
-  const warnings: PredictionWarning[] = saturationWarnings(
-    layers.map((l) => ({ label: describe(l), wallFlux_T: l.Bwall, saturation_T: l.sat })),
-  );
-  warnings.push(...designWarnings(ctx, layers, input, wallAttenuation_db));
-  warnings.push(...holeWarnings(holes, wallAttenuation_db, attenuation_db));
-
-  const rough = shape === "box" || ctx.ends === "open" || ctx.orientation === "axial";
-  const fraction = shape === "box" ? 0.35 : rough ? 0.3 : 0.2;
-  const margin_db = Math.max(3, fraction * attenuation_db);
-  return {
-    shieldingFactor,
-    attenuation_db,
-    wallAttenuation_db,
-    holes,
-    layers: layers.map((l) => {
-      const d = skinDepth_m(l.rho, l.mu, f);
-      return {
-        index: l.index,
-        material: l.material ? l.material.id : null,
-        thickness_mm: l.t,
-        innerRadius_mm: l.a,
-        wallFluxDensity_T: l.Bwall,
-        saturation_T: l.sat,
-        saturationMargin: saturationMargin(l.sat, l.Bwall),
-        mu_r: l.mu,
-        muSource: l.muSource,
-        skinDepth_mm: Number.isFinite(d) ? d * 1000 : null,
-      };
-    }),
-    warnings,
-    method: answer.method,
-    band: {
-      low_db: Math.max(0, attenuation_db - margin_db),
-      high_db: attenuation_db,
-      margin_db,
-      basis: `measured shields fall short of ideal formulas (seams, lids, handling): low = predicted − ${Math.round(fraction * 100)} % of the dB figure, at least 3 dB [practice]`,
-    },
-    estimate: true,
-    ...(answer.boxEstimates ? { boxEstimates: answer.boxEstimates } : {}),
-  };
+  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model };
 }
 
-// ---- Cable holes and their collars -------------------------------------------------------
-// A collar (chimney) of length L round a hole of diameter d is a tube below cut-off: the field
-// that enters it decays as exp(−j·L/a), a = d/2. The weak case is taken throughout, the field
-// along the collar's axis (j = 2.405 for a high-μ wall at low frequency), because where the
-// collar points relative to the field is rarely known at the design stage. [derived]
+/**
+ * μ and the walls' field together: start from each alloy's low-field design μ, solve, read μ
+ * again at each wall's mean flux, and repeat until μ settles (at low induction it never moves:
+ * one solve). Later passes move halfway in log μ so that a wall near saturation cannot swing.
+ */
+function settle(p: Prepared): Settled {
+  const { ctx, layers, B0 } = p;
+  let choice = chooseMu(p, layers.map(() => 0), false);
+  let mus = choice.map((c) => c.mu_r);
+  let core = solveCore(ctx, layers, mus, true);
+  for (let pass = 1; pass < MAX_PASSES; pass++) {
+    const next = chooseMu(p, core.fields!.map((w) => w.mean * B0), false);
+    if (next.every((c, i) => Math.abs(c.mu_r - mus[i]) <= MU_SETTLED * mus[i])) {
+      choice = next;
+      break;
+    }
+    choice = next;
+    mus = next.map((c, i) => (pass === 1 ? c.mu_r : Math.sqrt(c.mu_r * mus[i])));
+    core = solveCore(ctx, layers, mus, true);
+  }
+  return { core, mus, sources: choice.map((c) => c.muSource), means: core.fields!.map((w) => w.mean * B0) };
+}
 
-function holeResults(holes: HoleInput[], wall_db: number): HoleResult[] {
-  const target_db = Math.min(wall_db, HOLE_TARGET_MAX_DB);
-  return holes.map((h, index) => {
-    const collarLength_mm = h.collarLength_mm ?? 0;
-    return {
-      index,
-      diameter_mm: h.diameter_mm,
-      collarLength_mm,
-      collarAttenuation_db: collarAttenuation_db(collarLength_mm, h.diameter_mm, "axial"),
-      neededCollarLength_mm: collarLengthFor_mm(target_db, h.diameter_mm, "axial"),
-    };
-  });
+/** The seamless figure, ln|S|, with the library's design μ where a shop fit replaced it. */
+function idealLn(p: Prepared, s: Settled): number {
+  if (!p.layers.some((l) => l.fit)) return lnCombine([s.core.lnClosed, s.core.openLeak > 0 ? -Math.log(s.core.openLeak) : Infinity]);
+  const design = chooseMu(p, s.means, true).map((c) => c.mu_r);
+  const core = solveCore(p.ctx, p.layers, design, false);
+  return lnCombine([core.lnClosed, core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity]);
+}
+
+function termsFor(p: Prepared, mus: number[]): JointTerms {
+  // a fitted ceiling is looked up by the outermost layer's alloy: it meets the field first
+  const outer = p.layers[p.layers.length - 1];
+  const fitted = fitFor(p.model, outer.material?.id ?? null, p.method, p.construction)?.ceiling_db;
+  return jointTerms({ ctx: p.ctx, layers: p.layers, mus, model: p.model, method: p.method, construction: p.construction, fittedCeiling_db: fitted });
+}
+
+/** The as-built ln|S| (holes included) with the library layers' μ scaled by k and the scenario's joints and ceiling. */
+function bandLn(p: Prepared, s: Settled, terms: JointTerms, lnKadens: number[], k: number, scenario: Scenario, lnHoles: number): number {
+  const factors = p.layers.map((l) => (l.material ? k : 1));
+  const core = scaleCore(p.ctx, s.core, p.layers, s.mus, factors, lnKadens);
+  return lnCombine([combineWalls(core, terms, scenario), lnHoles]);
+}
+
+/** Each layer's μ at the given mean wall flux (the library's design value when `design`, without a shop fit). */
+function chooseMu(p: Prepared, means: number[], design: boolean): { mu_r: number; muSource: MuSource }[] {
+  return p.layers.map((l, i) =>
+    l.material ? permeabilityFor(l.material, p.state, means[i], design ? undefined : l.fit?.mu_effective) : { mu_r: l.explicitMu!, muSource: "explicit" as MuSource },
+  );
 }
 
 /** Inside surface of the innermost layer, the wall the holes are compared with. */
-function insideArea_mm2(ctx: Ctx, inner: Layer): number {
-  if (ctx.shape === "sphere") return 4 * Math.PI * inner.a ** 2;
-  if (ctx.shape === "box") {
+function insideArea_mm2(p: Prepared): number {
+  const inner = p.layers[0];
+  if (p.ctx.shape === "sphere") return 4 * Math.PI * inner.a ** 2;
+  if (p.ctx.shape === "box") {
     const [w, d, h] = inner.box;
     return 2 * (w * d + w * h + d * h);
   }
   const D = 2 * inner.a;
-  return Math.PI * D * inner.L + (ctx.ends === "closed" ? 2 * (Math.PI * D * D) / 4 : 0);
+  return Math.PI * D * inner.L + (p.ctx.ends === "closed" ? 2 * (Math.PI * D * D) / 4 : 0);
 }
 
-/**
- * Holes do limit the reported figure. Each hole is a leak beside the walls, and the leaks add:
- *   1/|S_eff| = 1/|S_walls| + Σ_i (A_hole,i / A_wall)·exp(−j·L_i/a_i)
- * with A_wall the innermost layer's inside surface and j = 2.405. The area ratio stands for the
- * share of the enclosure's surface the hole replaces (a plain hole, L = 0, lets through its share
- * of the outside field; a small hole in a large shield then costs little); the collar's decay
- * multiplies it. Magnitudes are added (in phase, the worst case), the walls' phase is kept, as
- * for the open ends. A collar long enough to reach the walls' figure on its own costs under
- * 0.1 dB, so the needed length below is a length with margin. An estimate: the real leakage
- * depends on where the hole sits in the field. [derived]
- */
-function holeLimit(walls: ShapeAnswer, holes: HoleResult[], wallArea_mm2: number): ShapeAnswer {
-  const leak = holes.reduce((sum, h) => {
-    const share = Math.min(1, (Math.PI * h.diameter_mm ** 2) / 4 / wallArea_mm2);
-    return sum + share * Math.exp(-(h.collarAttenuation_db * Math.LN10) / 20);
-  }, 0);
-  const S = walls.S.div(1 + leak * walls.S.abs());
-  return { ...walls, S, attenuation_db: dbOf(S), method: `${walls.method}; cable-hole leakage through collars exp(−2.405·L/a)` };
+/** The collar's decay constant: a tube of the innermost layer's material, weak direction. */
+function collarRoot(p: Prepared, mus: number[]) {
+  return (diameter_mm: number) => decayRoot("weak", regimeOf(p.layers[0], mus[0], p.ctx.f, diameter_mm / 2));
 }
 
-function holeWarnings(holes: HoleResult[], wall_db: number, A: number): PredictionWarning[] {
-  const out: PredictionWarning[] = [];
-  for (const h of holes) {
-    if (h.collarLength_mm >= h.neededCollarLength_mm) continue;
-    const size = `Hole ${h.index + 1} (Ø ${fmtMm(h.diameter_mm)} mm)`;
-    const have = h.collarLength_mm > 0 ? `its ${fmtMm(h.collarLength_mm)} mm collar gives about ${h.collarAttenuation_db.toFixed(0)} dB` : "it has no collar";
-    const target = Math.min(wall_db, HOLE_TARGET_MAX_DB);
-    out.push({
-      code: "SHORT_COLLAR",
-      message: `${size}: ${have}, short of the ${target.toFixed(0)} dB the walls are predicted to give. Make the collar at least ${roundUp_mm(h.neededCollarLength_mm)} mm long (${fmtMm(h.neededCollarLength_mm / h.diameter_mm)} hole diameters), or the hole limits the shield.`,
+/** A figure as stated: finite, at least 0 dB, at most REPORT_LIMIT_DB (flagged beyond). */
+function figure(ln: number): Figure {
+  const db = Math.max(0, dbOfLn(ln));
+  const stated = Math.min(db, REPORT_LIMIT_DB);
+  return { shieldingFactor: 10 ** (stated / 20), attenuation_db: stated, beyondLimit: db > REPORT_LIMIT_DB };
+}
+
+const fmt = (x: number, digits = 3) => String(+x.toPrecision(digits));
+const tesla = (B: number) => (B >= 0.1 ? `${fmt(B)} T` : B >= 1e-4 ? `${fmt(B * 1000)} mT` : `${fmt(B * 1e6)} µT`);
+
+function muReason(l: Layer, source: MuSource, mean_T: number, state: MaterialState, p: Prepared): string {
+  if (!l.material) return "as you gave it";
+  if (l.material.saturation_T == null && l.material.relativePermeability.maximum <= 1) return "non-magnetic: μr = 1";
+  const limit = tesla(lowFieldLimit_T(l.material));
+  let why: string;
+  if (source === "shop") why = `the shop's effective low-field μ for ${l.material.id}, ${METHOD_WORDS[p.method]}, ${CONSTRUCTION_WORDS[p.construction]}, fitted to measured lots`;
+  else if (source === "initial") why = `the alloy's initial permeability (design value): the wall's mean flux, ${tesla(mean_T)}, is in the low-field range (up to ${limit}), where μ stays at its initial value`;
+  else why = `read from the alloy's μ(B) table at the wall's mean flux, ${tesla(mean_T)}, above the low-field range (${limit})`;
+  return state === "as-formed" ? `${why}; × ${l.material.asFormedFactor} as formed, before the final anneal` : why;
+}
+
+function fieldDirection(ctx: ShapeCtx): string {
+  if (ctx.shape === "sphere") return "in any direction: a sphere shields every direction alike";
+  if (ctx.shape === "box") return "in any direction, taken at its weakest: the trade rule with the largest inside side, and the lid joint and corner welds counted as if the field crossed them";
+  return ctx.orientation === "axial" ? "along the can's axis" : "across the can's axis";
+}
+
+const CAUSE_WORDS: Record<LossCause | "holes", string> = { ceiling: "the construction ceiling", "lid-joints": "the lid joint", welds: "the welds", holes: "the cable holes" };
+
+function summary(asBuilt_db: number, ideal: Figure, losses: AsBuiltSummary["losses"], a: { ceiling_db: number; construction: Construction; method: BuildMethod; layers: number; lid: AsBuiltSummary["lid"] }): string {
+  const idealText = ideal.beyondLimit ? `more than ${REPORT_LIMIT_DB} dB` : `${ideal.attenuation_db.toFixed(1)} dB`;
+  const diff = ideal.attenuation_db - asBuilt_db;
+  if (diff < 0.1) return `The built ${CONSTRUCTION_WORDS[a.construction]} should reach about the seamless shell's ${idealText}: the walls decide, not the construction.`;
+  const top = losses[0];
+  let cause = CAUSE_WORDS[top.cause];
+  if (top.cause === "ceiling") cause += ` of a ${METHOD_WORDS[a.method]} ${CONSTRUCTION_WORDS[a.construction]} (${a.ceiling_db.toFixed(0)} dB for ${a.layers} layer${a.layers === 1 ? "" : "s"}, a shop setting)`;
+  if (top.cause === "lid-joints" && a.lid) cause += ` (${fmt(a.lid.overlap_mm)} mm overlap at ${fmt(a.lid.clearance_mm)} mm clearance)`;
+  return `Built, it should reach about ${asBuilt_db.toFixed(1)} dB, ${ideal.beyondLimit ? "far" : `${diff.toFixed(1)} dB`} below the seamless shell's ${idealText}, limited mostly by ${cause}.`;
+}
+
+export function predictShield(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): PredictionResult {
+  const p = prepare(input, materials, build);
+  const { ctx, layers, B0 } = p;
+  const s = settle(p);
+  const lnIdeal = idealLn(p, s);
+  const ideal = figure(lnIdeal);
+
+  const terms = termsFor(p, s.mus);
+  const walls = asBuiltFrom(s.core, terms, NOMINAL, true);
+  const lnWalls = Math.min(walls.ln, lnIdeal);
+  const wallAttenuation_db = figure(lnWalls).attenuation_db;
+  const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
+  const area = insideArea_mm2(p);
+  const lnHoles = holes.length ? -Math.log(holeLeak(holes, area)) : Infinity;
+  const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
+  const built = figure(lnBuilt);
+
+  // the band: the same model with its parameters across their spread
+  const spread = build.spread;
+  // each layer's own thin-wall strength (across the axis the core already has it)
+  const lnKadens = ctx.shape === "cylinder" && ctx.orientation === "transverse" ? s.core.lnSingle : layers.map((l, i) => lnSingleKaden(ctx, l, s.mus[i]));
+  const lowLn = bandLn(p, s, terms, lnKadens, spread.muLow, { clearanceFactor: spread.clearanceFactor, ceilingShift_db: -spread.ceiling_db }, lnHoles);
+  const highLn = bandLn(p, s, terms, lnKadens, spread.muHigh, { clearanceFactor: 1 / spread.clearanceFactor, ceilingShift_db: spread.ceiling_db }, lnHoles);
+  const low = Math.min(built.attenuation_db, figure(lowLn).attenuation_db);
+  const high = Math.min(ideal.attenuation_db, Math.max(built.attenuation_db, figure(highLn).attenuation_db));
+
+  const losses: AsBuiltSummary["losses"] = (Object.entries(walls.losses) as [LossCause, number][])
+    .map(([cause, db]): AsBuiltSummary["losses"][number] => ({ cause, db }))
+    .concat(holes.length ? [{ cause: "holes" as const, db: Math.max(0, wallAttenuation_db - built.attenuation_db) }] : [])
+    .filter((x) => x.db >= 0.05)
+    .sort((x, y) => y.db - x.db);
+  const asBuilt: AsBuiltSummary = {
+    construction: p.construction,
+    method: p.method,
+    layers: layers.length,
+    ceiling_db: walls.ceiling_db,
+    lid: walls.lid,
+    losses,
+    summary: "",
+    source: layers.some((l) => l.fit) || build.calibration?.source === "shop" ? "shop" : "library",
+  };
+  asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
+
+  const layerResults: LayerResult[] = layers.map((l, i) => {
+    const w = s.core.fields![i];
+    const peak = Math.min(w.peak * B0, 1e6);
+    const d = skinDepth_m(l.rho, s.mus[i], ctx.f);
+    return {
+      index: l.index,
+      material: l.material ? l.material.id : null,
+      thickness_mm: l.t,
+      innerRadius_mm: l.a,
+      wallFluxDensity_T: peak,
+      wallFluxMean_T: Math.min(w.mean * B0, 1e6),
+      saturation_T: l.sat,
+      saturationMargin: saturationMargin(l.sat, peak),
+      mu_r: s.mus[i],
+      muSource: s.sources[i],
+      muReason: muReason(l, s.sources[i], s.means[i], p.state, p),
+      skinDepth_mm: Number.isFinite(d) ? d * 1000 : null,
+    };
+  });
+
+  const warnings: PredictionWarning[] = saturationWarnings(
+    layerResults.map((l, i) => ({ label: describe(layers[i]), wallFlux_T: l.wallFluxDensity_T, saturation_T: l.saturation_T })),
+    ctx.f > 0,
+  );
+  warnings.push(...designWarnings(ctx, layers, input, s.mus, ideal.attenuation_db));
+  warnings.push(...holeWarnings(holes, wallAttenuation_db, built.attenuation_db));
+  if (ideal.beyondLimit)
+    warnings.push({
+      code: "BEYOND_REPORT_LIMIT",
+      message: `The seamless shell's figure is beyond ${REPORT_LIMIT_DB} dB and is stated as ${REPORT_LIMIT_DB} dB: no measurement reaches there, and a built shield is limited long before by its construction.`,
     });
-  }
-  if (holes.length && wall_db - A >= HOLE_LIMITED_DB)
-    out.push({
-      code: "HOLE_LIMITED",
-      message: `The cable hole${holes.length === 1 ? "" : "s"} limit${holes.length === 1 ? "s" : ""} the shield: with ${holes.length === 1 ? "it" : "them"} the estimate is ${A.toFixed(1)} dB instead of the walls' ${wall_db.toFixed(1)} dB. Longer collars bring it back.`,
-    });
-  return out;
+
+  return {
+    shieldingFactor: built.shieldingFactor,
+    attenuation_db: built.attenuation_db,
+    beyondLimit: built.beyondLimit,
+    wallAttenuation_db,
+    ideal,
+    asBuilt,
+    holes,
+    layers: layerResults,
+    warnings,
+    method: s.core.method,
+    band: { low_db: low, high_db: high, margin_db: built.attenuation_db - low, basis: spread.basis },
+    fieldDirection: fieldDirection(ctx),
+    estimate: true,
+    ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
+    ...(build.calibration ? { calibration: build.calibration } : {}),
+  };
 }
 
-const fmtMm = (x: number) => String(+x.toPrecision(3));
-/** A length to ask for: rounded up (0.1 mm below 100 mm, else whole mm), so asking for it clears the warning. */
-export const roundUpLength_mm = (x: number): number => (x < 100 ? +(Math.ceil(x * 10) / 10).toFixed(1) : Math.ceil(x));
-const roundUp_mm = (x: number) => String(roundUpLength_mm(x));
+function describe(l: Layer): string {
+  return `Layer ${l.index + 1} (${l.material ? l.material.id : `μr ${l.explicitMu}`}, ${l.t} mm)`;
+}
 
-function designWarnings(ctx: Ctx, layers: Layer[], input: PredictionInput, A: number): PredictionWarning[] {
+function designWarnings(ctx: ShapeCtx, layers: Layer[], input: PredictionInput, mus: number[], ideal_db: number): PredictionWarning[] {
   const out: PredictionWarning[] = [];
-  for (const l of layers) {
-    const nickelIron = l.material ? l.material.id.startsWith("ni") : l.mu >= 5000;
+  for (const [i, l] of layers.entries()) {
+    const nickelIron = l.material ? l.material.id.startsWith("ni") : mus[i] >= 5000;
     if (nickelIron && l.t > NICKEL_IRON_FORMING_LIMIT_MM)
       out.push({
         code: "THICK_WALL",
         message: `${describe(l)} is thicker than nickel-iron is practically formed (about ${NICKEL_IRON_FORMING_LIMIT_MM} mm); consider more, thinner layers.`,
       });
   }
-  if (ctx.f > MAX_MODEL_FREQUENCY_HZ)
-    out.push({ code: "OUTSIDE_MODEL", message: `Above ${MAX_MODEL_FREQUENCY_HZ / 1000} kHz the permeability data and formulas are not reliable; treat the figure as a rough estimate.` });
   const thinForm = ctx.shape === "box" || ctx.orientation === "axial" || ctx.ends === "open";
   if (thinForm) {
     const thick = layers.find((l) => l.t > THIN_FORM_RADIUS_FRACTION * (ctx.shape === "box" ? Math.min(...l.box) / 2 : l.a));
@@ -500,14 +477,14 @@ function designWarnings(ctx: Ctx, layers: Layer[], input: PredictionInput, A: nu
   if (ctx.shape === "box")
     out.push({
       code: "BOX_ESTIMATE",
-      message: "Box figures are estimates: there is no exact formula for a box, and seams and lid joints usually dominate what a real box achieves.",
+      message: "Box figures are estimates: there is no exact formula for a box, and seams and lid joints usually dominate what a real box achieves. The figure is for the weakest field direction.",
     });
   if (ctx.shape === "cylinder" && ctx.ends === "open")
     out.push({
       code: "OPEN_END_ESTIMATE",
       message: "Open ends leak: the figure is an estimate for the middle of the can and falls off toward the ends.",
     });
-  if (layers.every((l) => l.mu < 1.5) && A < 20)
+  if (mus.every((mu) => mu < 1.5) && ideal_db < 20)
     out.push({
       code: "NON_MAGNETIC_LOW_FREQUENCY",
       message: "Only non-magnetic conductors: at this frequency they shield little, because their eddy currents are weak unless the wall is thick compared with the skin depth. Add a high-permeability layer.",
@@ -515,16 +492,30 @@ function designWarnings(ctx: Ctx, layers: Layer[], input: PredictionInput, A: nu
   return out;
 }
 
-/** Attenuation at each frequency, other inputs unchanged. */
-export function sweepAttenuation(
-  input: PredictionInput,
-  materials: MaterialLookup,
-  frequencies_hz: number[],
-): { frequency_hz: number; attenuation_db: number }[] {
-  return frequencies_hz.map((frequency_hz) => ({
-    frequency_hz,
-    attenuation_db: predictShield({ ...input, field: { ...input.field, frequency_hz } }, materials).attenuation_db,
-  }));
+export interface SweepPoint {
+  frequency_hz: number;
+  /** as built */
+  attenuation_db: number;
+  /** the seamless shell */
+  ideal_db: number;
+}
+
+/** Both figures at each frequency, other inputs unchanged (no band, no warnings: the chart's curve). */
+export function sweepAttenuation(input: PredictionInput, materials: MaterialLookup, frequencies_hz: number[], build: BuildModel = DEFAULT_BUILD_MODEL): SweepPoint[] {
+  const base = prepare({ ...input, field: { ...input.field, frequency_hz: 0 } }, materials, build);
+  return frequencies_hz.map((frequency_hz) => {
+    check("field.frequency_hz", "The frequency", frequency_hz, INPUT_LIMITS.frequency_hz);
+    const p: Prepared = { ...base, ctx: { ...base.ctx, f: frequency_hz } };
+    const s = settle(p);
+    const lnIdeal = idealLn(p, s);
+    const lnWalls = Math.min(combineWalls(s.core, termsFor(p, s.mus)), lnIdeal);
+    let lnBuilt = lnWalls;
+    if (p.holes.length) {
+      const holes = holeResults(p.holes, 0, collarRoot(p, s.mus));
+      lnBuilt = Math.min(lnCombine([lnWalls, -Math.log(holeLeak(holes, insideArea_mm2(p)))]), lnIdeal);
+    }
+    return { frequency_hz, attenuation_db: figure(lnBuilt).attenuation_db, ideal_db: figure(lnIdeal).attenuation_db };
+  });
 }
 
 /** n frequencies spaced evenly on a log scale from `from` to `to`, both included. */

@@ -1,5 +1,7 @@
-// Peak flux density in the wall from the μ → ∞ solution, and the warnings a design review
-// would raise. In a nested shield each layer sees the field the layers outside it let through.
+// The saturation warnings a design review would raise, from each wall's peak flux density (the
+// exact solution's field in the wall at the asked frequency: see exact.ts), and the μ → ∞
+// estimate that the axial can still needs. In a nested shield each layer sees the field the
+// layers outside it let through.
 
 export type WarningCode =
   | "NEAR_SATURATION"
@@ -11,7 +13,8 @@ export type WarningCode =
   | "OPEN_END_ESTIMATE"
   | "SHORT_COLLAR"
   | "HOLE_LIMITED"
-  | "NON_MAGNETIC_LOW_FREQUENCY";
+  | "NON_MAGNETIC_LOW_FREQUENCY"
+  | "BEYOND_REPORT_LIMIT";
 
 export interface PredictionWarning {
   code: WarningCode;
@@ -22,9 +25,10 @@ export interface PredictionWarning {
 export type FluxPath = "cylinder-transverse" | "cylinder-axial" | "sphere" | "box";
 
 /**
- * B_wall for applied (local) field B0 [derived]: cylinder across the field B0·D/t; sphere
- * 0.75·B0·D/t; closed can along the axis B0·D/(4·N·t); box as its circumscribed sphere
- * (D = the corner-to-corner diagonal). D is the layer's outer diameter (the flux it gathers).
+ * B_wall from the μ → ∞ solution for applied (local) field B0 [derived]: cylinder across the
+ * field B0·D/t; sphere 0.75·B0·D/t; closed can along the axis B0·D/(4·N·t); box as its
+ * circumscribed sphere (D = the corner-to-corner diagonal). D is the layer's outer diameter (the
+ * flux it gathers). The static estimate only: at AC the exact field is several times higher.
  */
 export function wallFluxDensity_T(path: FluxPath, B0_T: number, D: number, t: number, N = 1 / 3): number {
   switch (path) {
@@ -38,10 +42,13 @@ export function wallFluxDensity_T(path: FluxPath, B0_T: number, D: number, t: nu
   }
 }
 
+/** Margins above this are stated as this (the wall is far from saturation). */
+export const MAX_MARGIN = 1e9;
+
 /** saturation_T / B_wall; null where the material has no saturation (copper, aluminium). */
 export function saturationMargin(saturation_T: number | null, wallFlux_T: number): number | null {
   if (saturation_T == null) return null;
-  return wallFlux_T > 0 ? saturation_T / wallFlux_T : Number.MAX_VALUE;
+  return wallFlux_T > saturation_T / MAX_MARGIN ? saturation_T / wallFlux_T : MAX_MARGIN;
 }
 
 /** Keep B_wall at or below about a third of saturation. [practice] */
@@ -55,21 +62,22 @@ export interface LayerFlux {
   saturation_T: number | null;
 }
 
-/** NEAR_SATURATION, SATURATED and LAYER_ORDER for layers given innermost first. */
-export function saturationWarnings(layers: LayerFlux[]): PredictionWarning[] {
+/** NEAR_SATURATION, SATURATED and LAYER_ORDER for layers given innermost first; `ac`: the figures are AC peaks. */
+export function saturationWarnings(layers: LayerFlux[], ac = false): PredictionWarning[] {
   const out: PredictionWarning[] = [];
+  const where = ac ? " at its outer face (eddy currents crowd the flux there)" : "";
   layers.forEach((l) => {
     if (l.saturation_T == null) return;
-    const B = l.wallFlux_T.toPrecision(3);
+    const B = `${l.wallFlux_T.toPrecision(3)} T${where}`;
     if (l.wallFlux_T >= l.saturation_T) {
       out.push({
         code: "SATURATED",
-        message: `${l.label}: the wall would carry about ${B} T, at or above its saturation of ${l.saturation_T} T. A saturated wall stops shielding; use a thicker wall, a larger-saturation alloy outside, or another layer.`,
+        message: `${l.label}: the wall would carry about ${B}, at or above its saturation of ${l.saturation_T} T. A saturated wall stops shielding; use a thicker wall, a larger-saturation alloy outside, or another layer.`,
       });
     } else if (l.wallFlux_T > NEAR_SATURATION_FRACTION * l.saturation_T) {
       out.push({
         code: "NEAR_SATURATION",
-        message: `${l.label}: the wall would carry about ${B} T, more than a third of its saturation of ${l.saturation_T} T. Permeability drops near saturation, so the shield may do less than predicted.`,
+        message: `${l.label}: the wall would carry about ${B}, more than a third of its saturation of ${l.saturation_T} T. Permeability drops near saturation, so the shield may do less than predicted.`,
       });
     }
   });

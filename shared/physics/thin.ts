@@ -89,9 +89,41 @@ export function demagnetizingFactor(p: number): number {
 export const axialClosedCanDC = (mu: number, t: number, D: number, L: number): number =>
   1 + 4 * demagnetizingFactor(L / D) * ((mu * t) / D);
 
-/** Field decay constants in a tube for a high-μ wall at low frequency: exp(−j·z/a). [derived] */
+/**
+ * Field decay constants in a tube: exp(−j·z/a). A high-μ wall at low frequency holds the
+ * magnetic potential constant on it, so j is a zero of J_m: 3.832 (J1) with the field across
+ * the tube, 2.405 (J0) along it, the weak case. A good conductor at AC keeps the normal flux
+ * out, so j is a zero of J_m': 1.841 (J1') across, the weak case, and 3.832 (J0' = −J1) along. [derived]
+ */
 export const LEAKAGE_ROOT = { transverse: 3.832, axial: 2.405 } as const;
+export const CONDUCTOR_ROOT = { transverse: 1.841, axial: 3.832 } as const;
 export type FieldOrientation = keyof typeof LEAKAGE_ROOT;
+
+/**
+ * Which of the two a wall is: Kaden's K = k·R/μr sets the eddy-current term (K) against the
+ * flux-shunting one (1/K) in S = cosh(kt) + ½(K + 1/K)·sinh(kt); |k| = √2/δ. 0 at DC. [derived]
+ */
+export function wallRegime(radius_mm: number, skinDepth_mm: number, mu_r: number): number {
+  if (!(skinDepth_mm > 0) || !Number.isFinite(skinDepth_mm)) return 0;
+  return (Math.SQRT2 * radius_mm) / (skinDepth_mm * mu_r);
+}
+
+/** The magnetic wall's share: 1 where flux shunting rules (K ≪ 1), 0 where eddy currents do (K ≫ 1). */
+export const magneticShare = (K: number): number => 1 / (1 + K);
+
+/**
+ * The decay constant for a wall of regime K, moving from the high-μ root to the conductor's
+ * one as K passes 1 (an interpolation between the two limits: [practice]). `weak`: the smaller
+ * of the two orientations, for a hole or collar whose direction to the field is not known.
+ */
+export function decayRoot(orientation: FieldOrientation | "weak", K: number): number {
+  const w = magneticShare(K);
+  const across = w * LEAKAGE_ROOT.transverse + (1 - w) * CONDUCTOR_ROOT.transverse;
+  const along = w * LEAKAGE_ROOT.axial + (1 - w) * CONDUCTOR_ROOT.axial;
+  return orientation === "weak" ? Math.min(across, along) : orientation === "axial" ? along : across;
+}
+
+const rootOf = (r: FieldOrientation | number) => (typeof r === "number" ? r : LEAKAGE_ROOT[r]);
 
 /**
  * Open-ended can: leakage through the ends limits the field at the middle.
@@ -99,8 +131,8 @@ export type FieldOrientation = keyof typeof LEAKAGE_ROOT;
  * paths taken in phase, the worst case) so a better wall never reads worse. The phase of S_closed
  * is kept. An estimate. [derived]
  */
-export function openEndCombination(Sclosed: Complex, length: number, radius: number, orientation: FieldOrientation): Complex {
-  const leak = Math.exp((-LEAKAGE_ROOT[orientation] * (length / 2)) / radius);
+export function openEndCombination(Sclosed: Complex, length: number, radius: number, root: FieldOrientation | number): Complex {
+  const leak = Math.exp((-rootOf(root) * (length / 2)) / radius);
   return Sclosed.div(1 + leak * Sclosed.abs());
 }
 
@@ -112,13 +144,14 @@ export const circumscribedRadius = (w: number, d: number, h: number): number => 
 
 /**
  * Attenuation of a collar (chimney) of length L round a hole of diameter d:
- * 20·log10(exp(j·L/a)) = 8.686·j·L/a dB, a = d/2; orientation of the field to the collar axis. [derived]
+ * 20·log10(exp(j·L/a)) = 8.686·j·L/a dB, a = d/2; `root` is j, or the field's orientation to the
+ * collar's axis for a high-μ collar. [derived]
  */
-export function collarAttenuation_db(length_mm: number, diameter_mm: number, orientation: FieldOrientation): number {
-  return (20 / Math.LN10) * ((LEAKAGE_ROOT[orientation] * length_mm) / (diameter_mm / 2));
+export function collarAttenuation_db(length_mm: number, diameter_mm: number, root: FieldOrientation | number): number {
+  return (20 / Math.LN10) * ((rootOf(root) * length_mm) / (diameter_mm / 2));
 }
 
 /** Collar length needed to reach `attenuation_db` through a hole. */
-export function collarLengthFor_mm(attenuation_db: number, diameter_mm: number, orientation: FieldOrientation): number {
-  return (attenuation_db * (diameter_mm / 2) * Math.LN10) / (20 * LEAKAGE_ROOT[orientation]);
+export function collarLengthFor_mm(attenuation_db: number, diameter_mm: number, root: FieldOrientation | number): number {
+  return (attenuation_db * (diameter_mm / 2) * Math.LN10) / (20 * rootOf(root));
 }

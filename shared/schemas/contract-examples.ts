@@ -20,6 +20,7 @@ export const contractPredictionExample = deepFreeze({
   ],
   field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
   state: "annealed",
+  method: "drawn",
 });
 
 /** POST /api/blanks: the three example bodies. */

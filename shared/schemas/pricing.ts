@@ -3,6 +3,7 @@
  * validated before they reach a quote. Money is integer cents in the list's ISO 4217 currency.
  */
 import { z } from "zod";
+import { DEFAULT_CONSTRUCTION_SETTINGS, type ConstructionSettings } from "../physics/build-model";
 
 const cents = z.number().int().nonnegative();
 const percent = z.number().min(0).max(100);
@@ -38,6 +39,39 @@ export const quantityBreakSchema = z.object({
 });
 export type QuantityBreak = z.infer<typeof quantityBreakSchema>;
 
+const dbSetting = (what: string, min: number, max: number) =>
+  z
+    .number({ error: `${what} must be a number of dB.` })
+    .min(min, { error: `${what} is too small: at least ${min} dB.` })
+    .max(max, { error: `${what} is too large: at most ${max} dB.` });
+
+const ceilingSchema = z.object({
+  firstLayer_db: dbSetting("The ceiling for one layer", 20, 160),
+  perExtraLayer_db: dbSetting("What each further layer adds", 0, 60),
+});
+
+/**
+ * What the as-built prediction assumes of the shop's construction: the ceiling each
+ * construction levels off at (1/S = 1/S_ideal + 1/S_ceiling) and the lid fit. Optional in the
+ * document, so that versions saved before it existed still parse; read it through
+ * constructionSettingsOf, which gives the defaults from practice.
+ */
+export const constructionSettingsSchema = z.object({
+  ceilings: z.object({ "closed-can": ceilingSchema, "open-tube": ceilingSchema, box: ceilingSchema, sphere: ceilingSchema }),
+  lidClearance_mm: z
+    .number({ error: "The lid clearance must be a number of millimetres." })
+    .min(0.01, { error: "The lid clearance is too small: at least 0.01 mm." })
+    .max(5, { error: "The lid clearance is too large: at most 5 mm." }),
+  lidOverlapFraction: z
+    .number({ error: "The lid overlap must be a fraction of the length." })
+    .min(0.05, { error: "The lid overlap is too small: at least 0.05 of the length." })
+    .max(1, { error: "The lid overlap is too large: at most the whole length." }),
+  lidOverlapMin_mm: z
+    .number({ error: "The shortest lid overlap must be a number of millimetres." })
+    .min(1, { error: "The shortest lid overlap is too small: at least 1 mm." })
+    .max(500, { error: "The shortest lid overlap is too large: at most 500 mm." }),
+}) satisfies z.ZodType<ConstructionSettings>;
+
 export const priceListSchema = z.object({
   currency: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code, e.g. EUR"),
   materials: z.array(materialPriceSchema).min(1),
@@ -60,5 +94,11 @@ export const priceListSchema = z.object({
   fallbackUtilisation: z.number().gt(0).max(1),
   stockSheets: z.array(stockSheetSchema),
   formingLimits: z.array(formingLimitsSchema),
+  construction: constructionSettingsSchema.optional(),
 });
 export type PriceList = z.infer<typeof priceListSchema>;
+
+/** The construction settings of a price list version, the defaults from practice when it has none. */
+export function constructionSettingsOf(priceList: Pick<PriceList, "construction">): ConstructionSettings {
+  return priceList.construction ?? DEFAULT_CONSTRUCTION_SETTINGS;
+}

@@ -4,7 +4,8 @@
  * priceListSchema; the server merges the part into the current list and validates the whole.
  */
 import { z } from "zod";
-import { formingLimitsSchema, priceListSchema, stockSheetSchema, type FormingLimits, type PriceList, type StockSheet } from "./pricing";
+import type { ConstructionSettings } from "../physics/build-model";
+import { constructionSettingsSchema, formingLimitsSchema, priceListSchema, stockSheetSchema, type FormingLimits, type PriceList, type StockSheet } from "./pricing";
 
 type Ctx = z.RefinementCtx;
 function unique<T>(items: readonly T[], key: (item: T) => string, path: (i: number) => (string | number)[], message: string, ctx: Ctx) {
@@ -16,9 +17,9 @@ function unique<T>(items: readonly T[], key: (item: T) => string, path: (i: numb
   });
 }
 
-/** Everything of the price list except the stock sheets and forming limits. */
+/** Everything of the price list except the stock sheets, forming limits and construction settings. */
 export const priceRatesSchema = priceListSchema
-  .omit({ stockSheets: true, formingLimits: true })
+  .omit({ stockSheets: true, formingLimits: true, construction: true })
   .superRefine((v, ctx) => {
     unique(v.materials, (m) => m.materialId, (i) => ["materials", i, "materialId"], "this material is priced twice", ctx);
     unique(v.quantityBreaks, (b) => String(b.minQuantity), (i) => ["quantityBreaks", i, "minQuantity"], "two breaks start at the same quantity", ctx);
@@ -34,13 +35,17 @@ export const formingLimitsUpdateSchema = z
   .object({ formingLimits: z.array(formingLimitsSchema).max(100) })
   .superRefine((v, ctx) => unique(v.formingLimits, (f) => f.materialId, (i) => ["formingLimits", i, "materialId"], "this material has limits twice", ctx));
 
+/** The construction settings the as-built prediction reads (ceilings per construction, the lid fit). */
+export const constructionUpdateSchema = z.object({ construction: constructionSettingsSchema });
+
 export type PriceRates = z.infer<typeof priceRatesSchema>;
 export type PriceRatesInput = z.input<typeof priceRatesSchema>;
 export type StockSheetsUpdate = z.infer<typeof stockSheetsUpdateSchema>;
 export type FormingLimitsUpdate = z.infer<typeof formingLimitsUpdateSchema>;
+export type ConstructionUpdate = z.infer<typeof constructionUpdateSchema>;
 
 /** Which part of the list a version changed. */
-export const shopRateParts = ["seed", "price-list", "stock-sheets", "forming-limits"] as const;
+export const shopRateParts = ["seed", "price-list", "stock-sheets", "forming-limits", "construction"] as const;
 export type ShopRatePart = (typeof shopRateParts)[number];
 
 /** Who saved a version. */
@@ -57,9 +62,11 @@ export interface ShopRatesVersionJson {
   createdBy: ShopRatesAuthorJson | null;
 }
 
-/** GET /api/shop-rates and every save's answer: the current list in its three parts. */
+/** GET /api/shop-rates and every save's answer: the current list in its four parts. */
 export interface ShopRatesJson extends ShopRatesVersionJson {
-  priceList: Omit<PriceList, "stockSheets" | "formingLimits">;
+  priceList: Omit<PriceList, "stockSheets" | "formingLimits" | "construction">;
   stockSheets: StockSheet[];
   formingLimits: FormingLimits[];
+  /** what the as-built prediction assumes of the shop's construction (defaults until first saved) */
+  construction: ConstructionSettings;
 }

@@ -1,8 +1,9 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import type { BlankJson, BlankRequest } from "../../shared/schemas/blank";
 import type { DesignConfigurationInput, PriceEstimateJson } from "../../shared/schemas/price-estimate";
-import type { FormingLimitsUpdate, PriceRatesInput, ShopRatesJson, ShopRatesVersionJson, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionUpdate, FormingLimitsUpdate, PriceRatesInput, ShopRatesJson, ShopRatesVersionJson, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
 import { api } from "./client";
+import { predictionKeys } from "./predictions";
 
 /** POST /api/blanks: the engine's result plus the material it used. */
 export type BlankResponse = BlankJson;
@@ -73,7 +74,8 @@ export const shopRatesHistoryQueryOptions = queryOptions({
 type ShopRatesSave =
   | { part: "price-list"; body: PriceRatesInput }
   | { part: "stock-sheets"; body: StockSheetsUpdate }
-  | { part: "forming-limits"; body: FormingLimitsUpdate };
+  | { part: "forming-limits"; body: FormingLimitsUpdate }
+  | { part: "construction"; body: ConstructionUpdate };
 
 /** Saves one part as a new version; every estimate priced with the old list is stale after it. */
 export function useSaveShopRates() {
@@ -84,6 +86,8 @@ export function useSaveShopRates() {
       queryClient.setQueryData(shopRatesKeys.current(), saved);
       void queryClient.invalidateQueries({ queryKey: shopRatesKeys.all });
       void queryClient.invalidateQueries({ queryKey: priceEstimateKeys.all });
+      // the construction settings change the as-built predictions
+      if (saved.part === "construction") void queryClient.invalidateQueries({ queryKey: predictionKeys.all });
     },
   });
 }

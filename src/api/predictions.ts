@@ -1,12 +1,13 @@
 import { keepPreviousData, queryOptions } from "@tanstack/react-query";
-import type { PredictionResult } from "../../shared/physics/predict";
+import type { PredictionResult, SweepPoint } from "../../shared/physics/predict";
 import type { PredictionRequest } from "../../shared/schemas/prediction";
 import { api } from "./client";
 
-export type { PredictionResult };
-export interface SweepPoint {
-  frequency_hz: number;
-  attenuation_db: number;
+export type { PredictionResult, SweepPoint };
+/** The chart's frequency range, hertz, both ends included. */
+export interface SweepRange {
+  from_hz: number;
+  to_hz: number;
 }
 
 /** Points on the page's chart: enough for a smooth log-axis curve, cheap to compute. */
@@ -15,7 +16,7 @@ export const SWEEP_POINTS = 81;
 export const predictionKeys = {
   all: ["predictions"] as const,
   detail: (request: PredictionRequest) => [...predictionKeys.all, "detail", request] as const,
-  sweep: (request: PredictionRequest) => [...predictionKeys.all, "sweep", request] as const,
+  sweep: (request: PredictionRequest, range: SweepRange) => [...predictionKeys.all, "sweep", request, range] as const,
 };
 
 export const predictionQueryOptions = (request: PredictionRequest) =>
@@ -29,12 +30,12 @@ export const predictionQueryOptions = (request: PredictionRequest) =>
   });
 
 // The sweep sets every frequency itself, so the design's own frequency is left out of the key:
-// typing a new frequency does not refetch the curve.
-export const sweepQueryOptions = (request: PredictionRequest) => {
+// typing a new frequency does not refetch the curve (unless it widens the range).
+export const sweepQueryOptions = (request: PredictionRequest, range: SweepRange) => {
   const design = { ...request, field: { ...request.field, frequency_hz: 0 } };
   return queryOptions({
-    queryKey: predictionKeys.sweep(design),
-    queryFn: ({ signal }) => api.post<SweepPoint[]>("/api/predictions/sweep", { ...design, points: SWEEP_POINTS }, { signal, computation: true }),
+    queryKey: predictionKeys.sweep(design, range),
+    queryFn: ({ signal }) => api.post<SweepPoint[]>("/api/predictions/sweep", { ...design, points: SWEEP_POINTS, ...range }, { signal, computation: true }),
     placeholderData: keepPreviousData,
     staleTime: Infinity,
     retry: false,

@@ -7,6 +7,7 @@ import { QueryError } from "../components/query-error";
 import { PageHeader } from "../components/ui/panel";
 import { Loading } from "../components/ui/spinner";
 import { StatusNote } from "../components/ui/status-note";
+import { ConstructionForm } from "../features/shop-rates/construction-form";
 import { FormingLimitsForm } from "../features/shop-rates/forming-limits-form";
 import { PriceListForm } from "../features/shop-rates/price-list-form";
 import { ShopRatesHistory } from "../features/shop-rates/shop-rates-history";
@@ -25,7 +26,7 @@ export function Component() {
   const data = current.data;
   return (
     <>
-      <PageHeader title="Shop rates" lead="Material prices, operation rates, stock sheet sizes and forming limits. Every save is a new version; quotes keep the version they were priced with." />
+      <PageHeader title="Shop rates" lead="Material prices, operation rates, stock sheet sizes, forming limits and the construction limits predictions assume. Every save is a new version; quotes keep the version they were priced with." />
       {current.isPending && <Loading label="Loading the shop rates…" />}
       {current.isError && <QueryError error={current.error} onRetry={() => void current.refetch()} what="the shop rates" />}
       {data && (
@@ -42,6 +43,9 @@ export function Component() {
             </PanelBoundary>
             <PanelBoundary name="the forming limits">
               <FormingLimitsForm current={data} />
+            </PanelBoundary>
+            <PanelBoundary name="the construction limits">
+              <ConstructionForm current={data} />
             </PanelBoundary>
           </div>
           <PanelBoundary name="the versions">

@@ -34,11 +34,57 @@ describe("POST /api/predictions", () => {
       expect(l.mu_r).toBeGreaterThanOrEqual(1);
     }
     expect(b.layers[0].material).toBe("ni80");
-    expect(b.layers[0].muSource).toBe("material-curve");
+    expect(b.layers[0].muSource).toBe("initial");
     expect(Array.isArray(b.warnings)).toBe(true);
     expect(typeof b.method).toBe("string");
     expect(b.band.low_db).toBeLessThan(b.band.high_db);
     expect(b.estimate).toBe(true);
+    // the as-built headline and the exact seamless shell beside it
+    expect(b.ideal.attenuation_db).toBeCloseTo(20 * Math.log10(b.ideal.shieldingFactor), 6);
+    expect(b.attenuation_db).toBeLessThanOrEqual(b.ideal.attenuation_db);
+    expect(b.asBuilt).toMatchObject({ construction: "closed-can", method: "drawn", layers: 2 });
+    expect(typeof b.asBuilt.summary).toBe("string");
+    expect(b.calibration).toBeUndefined(); // no measured lots calibrate it yet
+  });
+
+  it("takes the construction method: a rolled can is its own construction, a bent cylinder is refused at `method`", async () => {
+    const rolled = await post(withBody((b) => ((b as Record<string, unknown>).method = "rolled")));
+    expect(rolled.status).toBe(200);
+    expect(rolled.body.asBuilt.method).toBe("rolled");
+    const { method: _m, ...noMethod } = structuredClone(example) as Body;
+    const drawn = await post(noMethod);
+    expect(drawn.body.asBuilt.method).toBe("drawn");
+    const bent = await post(withBody((b) => ((b as Record<string, unknown>).method = "bent")));
+    expect(bent.status).toBe(400);
+    expect(bent.body.error.fields).toHaveProperty("method");
+  });
+
+  it("makes no database query per request once the reference data is loaded", async () => {
+    const { sequelize } = app.locals.deps;
+    await post(example); // loads the materials and the construction settings
+    let queries = 0;
+    const count = () => void queries++;
+    sequelize.addHook("beforeQuery", "count-predictions", count);
+    try {
+      for (const f of [1, 7, 60, 600]) expect((await post(withBody((b) => (b.field.frequency_hz = f)))).status).toBe(200);
+      expect((await request(app).post("/api/predictions/sweep").send({ ...example, points: 20 })).status).toBe(200);
+    } finally {
+      sequelize.removeHook("beforeQuery", "count-predictions");
+    }
+    expect(queries).toBe(0);
+  });
+
+  it("every number is finite, and figures beyond the report limit are stated as 300 dB and flagged", async () => {
+    const layers = [0, 1, 2, 3, 4, 5].map(() => ({ mu_r: 1_000_000, resistivity_ohm_m: 1e-9, thickness_mm: 20, gap_mm: 5 }));
+    const res = await post({ ...example, dimensions_mm: { diameter: 500, length: 1000 }, layers, field: { frequency_hz: 100_000, amplitude_uT: 100, orientation: "transverse" } });
+    expect(res.status).toBe(200);
+    expect(res.text).not.toMatch(/Infinity|NaN/);
+    const numbers: unknown[] = [];
+    JSON.parse(res.text, (_k, v) => (typeof v === "number" && numbers.push(v), v));
+    expect(numbers.every((x) => Number.isFinite(x))).toBe(true);
+    expect(res.body.ideal).toMatchObject({ attenuation_db: 300, beyondLimit: true });
+    expect(res.body.attenuation_db).toBeLessThanOrEqual(300);
+    expect(res.body.warnings.map((w: { code: string }) => w.code)).toContain("BEYOND_REPORT_LIMIT");
   });
 
   it("an explicit mu_r is used as given, in either state", async () => {
@@ -63,9 +109,10 @@ describe("POST /api/predictions", () => {
   });
 
   it("the other shapes and directions answer too", async () => {
-    const box = await post({ ...example, shape: "box", dimensions_mm: { width: 80, depth: 60, height: 40 } });
+    const box = await post({ ...example, shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 } });
     expect(box.status).toBe(200);
     expect(box.body.warnings.map((w: { code: string }) => w.code)).toContain("BOX_ESTIMATE");
+    expect(box.body.fieldDirection).toMatch(/weakest/);
     const sphere = await post({ ...example, shape: "sphere", dimensions_mm: { diameter: 80 } });
     expect(sphere.status).toBe(200);
     const axial = await post(withBody((b) => (b.field.orientation = "axial")));
@@ -91,6 +138,7 @@ describe("POST /api/predictions", () => {
     ["zero hole diameter", { ...example, holes: [{ diameter_mm: 0, collarLength_mm: 10 }] }, "holes.0.diameter_mm"],
     ["negative collar", { ...example, holes: [{ diameter_mm: 8, collarLength_mm: 10 }, { diameter_mm: 8, collarLength_mm: -1 }] }, "holes.1.collarLength_mm"],
     ["hole wider than the can", { ...example, holes: [{ diameter_mm: 60 }] }, "holes.0.diameter_mm"],
+    ["a box drawn", { ...example, shape: "box", dimensions_mm: { width: 80, depth: 60, height: 40 } }, "method"],
   ];
   it.each(bad)("400 naming the field: %s", async (_name, body, field) => {
     const res = await post(body);
@@ -117,6 +165,22 @@ describe("POST /api/predictions", () => {
     expect(none.body.wallAttenuation_db).toBe(none.body.attenuation_db);
   });
 
+  const beyond: Array<[string, unknown, string, RegExp]> = [
+    ["resistivity 5e-324", withBody((b) => (b.layers[1].resistivity_ohm_m = 5e-324)), "layers.1.resistivity_ohm_m", /too small/],
+    ["resistivity 1e-300", withBody((b) => (b.layers[1].resistivity_ohm_m = 1e-300)), "layers.1.resistivity_ohm_m", /too small/],
+    ["resistivity 10", withBody((b) => (b.layers[1].resistivity_ohm_m = 10)), "layers.1.resistivity_ohm_m", /too large/],
+    ["μr 1e9", withBody((b) => (b.layers[1].mu_r = 1e9)), "layers.1.mu_r", /too large/],
+    ["a 1 nm wall", withBody((b) => (b.layers[0].thickness_mm = 1e-6)), "layers.0.thickness_mm", /too small/],
+    ["a 100 km can", withBody((b) => (b.dimensions_mm.length = 1e8)), "dimensions_mm.length", /too large/],
+    ["1 GHz", withBody((b) => (b.field.frequency_hz = 1e9)), "field.frequency_hz", /too large/],
+    ["1e-12 µT", withBody((b) => (b.field.amplitude_uT = 1e-12)), "field.amplitude_uT", /too small/],
+  ];
+  it.each(beyond)("400 saying too small or too large: %s", async (_name, body, field, word) => {
+    const res = await post(body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields[field]).toMatch(word);
+  });
+
   it("states the model's frequency range when refusing one", async () => {
     const res = await post(withBody((b) => (b.field.frequency_hz = 200_000)));
     expect(res.body.error.fields["field.frequency_hz"]).toMatch(/100000 Hz/);
@@ -141,13 +205,26 @@ describe("POST /api/predictions", () => {
 });
 
 describe("POST /api/predictions/sweep", () => {
-  it("gives attenuation at log-spaced frequencies from 1 Hz to 10 kHz", async () => {
+  it("gives both figures at log-spaced frequencies from 1 Hz to 10 kHz", async () => {
     const res = await request(app).post("/api/predictions/sweep").send({ ...example, points: 50 });
     expect(res.status).toBe(200);
     expect(res.body).toHaveLength(50);
     expect(res.body[0].frequency_hz).toBeCloseTo(1, 9);
     expect(res.body[49].frequency_hz).toBeCloseTo(10_000, 6);
     expect(res.body[49].attenuation_db).toBeGreaterThan(res.body[0].attenuation_db);
+    for (const p of res.body) expect(p.attenuation_db).toBeLessThanOrEqual(p.ideal_db);
+  });
+
+  it("over the range asked for", async () => {
+    const res = await request(app).post("/api/predictions/sweep").send({ ...example, points: 11, from_hz: 10, to_hz: 100_000 });
+    expect(res.status).toBe(200);
+    expect(res.body[0].frequency_hz).toBeCloseTo(10, 9);
+    expect(res.body[10].frequency_hz).toBeCloseTo(100_000, 6);
+    const bad = await request(app).post("/api/predictions/sweep").send({ ...example, from_hz: 500, to_hz: 400 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields).toHaveProperty("to_hz");
+    const low = await request(app).post("/api/predictions/sweep").send({ ...example, from_hz: 0 });
+    expect(low.body.error.fields.from_hz).toMatch(/too small/);
   });
 
   it("400 for bad points and bad designs", async () => {

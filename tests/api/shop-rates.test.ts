@@ -2,6 +2,7 @@ import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { seedShopRates } from "../../server/db/seed";
 import { Event, PriceListVersion } from "../../server/models";
+import { DEFAULT_CONSTRUCTION_SETTINGS } from "../../shared/physics/build-model";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
 
 const app = buildTestApp();
@@ -22,6 +23,7 @@ describe("shop rates", () => {
     expect((await request(app).put("/api/shop-rates/price-list").send({})).status).toBe(401);
     expect((await request(app).put("/api/shop-rates/stock-sheets").send({})).status).toBe(401);
     expect((await request(app).put("/api/shop-rates/forming-limits").send({})).status).toBe(401);
+    expect((await request(app).put("/api/shop-rates/construction").send({})).status).toBe(401);
   });
 
   it("403 for a customer and for shop staff who are not the planner", async () => {
@@ -31,6 +33,7 @@ describe("shop rates", () => {
       expect((await agent.get("/api/shop-rates/history")).status).toBe(403);
       const { agent: a2, csrf: c2 } = { agent, csrf };
       expect((await a2.put("/api/shop-rates/stock-sheets").set("X-CSRF-Token", c2).send({ stockSheets: [] })).status).toBe(403);
+      expect((await a2.put("/api/shop-rates/construction").set("X-CSRF-Token", c2).send({ construction: DEFAULT_CONSTRUCTION_SETTINGS })).status).toBe(403);
     }
   });
 
@@ -61,6 +64,45 @@ describe("shop rates", () => {
     res = await put("forming-limits", { formingLimits: [{ materialId: "ni80", firstDrawRatio: 3, redrawRatio: 1.3, processAnnealBetweenDraws: true }] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toHaveProperty("formingLimits.0.firstDrawRatio");
+    const badConstruction = structuredClone(DEFAULT_CONSTRUCTION_SETTINGS);
+    badConstruction.ceilings.box.firstLayer_db = 500;
+    badConstruction.lidClearance_mm = 0;
+    res = await put("construction", { construction: badConstruction });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields["construction.ceilings.box.firstLayer_db"]).toMatch(/too large/);
+    expect(res.body.error.fields["construction.lidClearance_mm"]).toMatch(/too small/);
+  });
+
+  it("the construction settings: defaults from practice until saved, a version of their own, and predictions use them at once", async () => {
+    const { agent, csrf } = await planner();
+    const before = (await agent.get("/api/shop-rates")).body;
+    expect(before.construction.ceilings["closed-can"].firstLayer_db).toBeGreaterThan(0);
+    const sphere = { shape: "sphere", dimensions_mm: { diameter: 80 }, layers: [{ material: "ni80", thickness_mm: 1 }, { material: "ni80", thickness_mm: 1 }], field: { frequency_hz: 1000, amplitude_uT: 100 } };
+    const ceilingNow = async () => (await request(app).post("/api/predictions").send(sphere)).body.asBuilt.ceiling_db as number;
+    const first = await ceilingNow();
+    expect(first).toBe(before.construction.ceilings.sphere.firstLayer_db + before.construction.ceilings.sphere.perExtraLayer_db);
+
+    // (other test files predict at the same time: a sphere's extra-layer step, put back at once)
+    const edited = structuredClone(before.construction);
+    edited.ceilings.sphere.perExtraLayer_db += 1;
+    const res = await agent.put("/api/shop-rates/construction").set("X-CSRF-Token", csrf).send({ construction: edited });
+    expect(res.status).toBe(200);
+    expect(res.body.part).toBe("construction");
+    expect(res.body.version).toBeGreaterThan(before.version);
+    expect(res.body.construction.ceilings.sphere.perExtraLayer_db).toBe(edited.ceilings.sphere.perExtraLayer_db);
+    expect(res.body.priceList).toEqual(before.priceList); // the other parts carry over
+    expect(await ceilingNow()).toBe(first + 1);
+    const event = await Event.findOne({ where: { action: "shop-rates.construction.updated", subjectId: String(res.body.version) } });
+    // the first save writes the whole section (versions before it had none), later ones the leaf
+    const paths = (event!.data as { changes: { path: string }[] }).changes.map((c) => c.path);
+    expect(paths.some((p) => p === "construction" || p === "construction.ceilings.sphere.perExtraLayer_db")).toBe(true);
+
+    // saving the rates keeps the construction settings
+    const rates = await agent.put("/api/shop-rates/price-list").set("X-CSRF-Token", csrf).send(res.body.priceList);
+    expect(rates.body.construction).toEqual(res.body.construction);
+    const back = await agent.put("/api/shop-rates/construction").set("X-CSRF-Token", csrf).send({ construction: before.construction });
+    expect(back.status).toBe(200);
+    expect(await ceilingNow()).toBe(first);
   });
 
   it("each edit makes a new version with who and when, and an event with the before/after difference", async () => {

@@ -5,6 +5,7 @@ import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 const h = useBrowser();
 
 const headline = (page: Page) => page.getByTestId("attenuation-db");
+const dbOf = (text: string | null) => Number(/([\d.]+) dB/.exec(text ?? "")![1]);
 async function signInAs(page: Page, email: string) {
   await h.context.clearCookies(); // whoever an earlier test left signed in
   await page.goto(`${h.baseUrl}/sign-in`);
@@ -32,6 +33,12 @@ async function journey(page: Page, who: string) {
   await page.getByTestId("cross-section").waitFor();
   await page.getByTestId("cautions").getByText(/pacemakers or other medical implants/i).waitFor();
   await page.getByTestId("cautions").getByText(/engineering estimates/i).waitFor();
+  // the built figure with its range, the seamless shell beside it, one sentence on the difference
+  await page.getByTestId("ideal-db").filter({ hasText: /dB/ }).waitFor();
+  await page.getByTestId("band").filter({ hasText: /likely \d+–\d+ dB/ }).waitFor();
+  await page.getByTestId("as-built-summary").filter({ hasText: /below the seamless shell's/ }).waitFor();
+  expect(dbOf(await headline(page).textContent())).toBeLessThan(dbOf(await page.getByTestId("ideal-db").textContent()));
+  await h.axe(page, "design check");
   await h.shot(page, `design-check-${who}-default`);
   let before = (await headline(page).textContent())!;
 
@@ -53,14 +60,16 @@ async function journey(page: Page, who: string) {
   await layer(page, 1).getByLabel(/material/i).selectOption("steel-lc");
   await changedFrom(page, before);
   const chart = page.getByTestId("attenuation-chart");
-  await expect.poll(() => chart.locator(".recharts-line").count(), { timeout: 10_000 }).toBe(2);
-  await chart.getByText("Variant A").first().waitFor();
+  // the design as built, its seamless shell (faint) and the variant as built
+  await expect.poll(() => chart.locator(".recharts-line").count(), { timeout: 10_000 }).toBe(3);
+  await chart.getByText("Variant A, as built").first().waitFor();
+  await chart.getByText("Seamless shell (ideal)").first().waitFor();
   await h.shot(page, `design-check-${who}-variant`);
 
   // a bad thickness: the message beside the field, the last figures kept
   const thickness = layer(page, 1).getByLabel(/wall thickness/i);
   await thickness.fill("0");
-  await layer(page, 1).getByText(/must be greater than 0 mm/i).waitFor();
+  await layer(page, 1).getByText(/wall thickness is too small/i).waitFor();
   expect(await thickness.getAttribute("aria-invalid")).toBe("true");
   await page.getByText(/check the inputs/i).first().waitFor();
   await headline(page).waitFor();
@@ -91,7 +100,7 @@ async function cableHoles(page: Page, who: string) {
   await hole(page, 1).getByLabel(/collar length/i).fill("5");
   await hole(page, 1).getByText("The collar is 0.5 hole diameters long.").waitFor();
   before = await changedFrom(page, before);
-  const short = warnings.getByText(/Hole 1 \(Ø 10 mm\): its 5 mm collar gives about 21 dB, short of the \d+ dB the walls are predicted to give\. Make the collar at least [\d.]+ mm long/);
+  const short = warnings.getByText(/Hole 1 \(Ø 10 mm\): its 5 mm collar gives about 21 dB, short of the \d+ dB the built walls are expected to give\. Make the collar at least [\d.]+ mm long/);
   await short.waitFor();
   await warnings.getByText(/the cable hole limits the shield/i).waitFor();
   const rows = page.getByTestId("hole-row");
@@ -117,7 +126,7 @@ async function cableHoles(page: Page, who: string) {
   // a bad diameter: the schema's message beside the field
   const diameter = hole(page, 1).getByLabel(/hole diameter/i);
   await diameter.fill("0");
-  await hole(page, 1).getByText(/hole diameter must be greater than 0 mm/i).waitFor();
+  await hole(page, 1).getByText(/hole diameter is too small/i).waitFor();
   expect(await diameter.getAttribute("aria-invalid")).toBe("true");
   await diameter.fill("10");
   await expect.poll(() => diameter.getAttribute("aria-invalid")).toBe("false");
@@ -227,10 +236,11 @@ describe("design check, as a customer engineer would use it", () => {
     await make.getByLabel(/^quantity/i).fill("50");
     await expect.poll(() => make.getByTestId("total-price").textContent(), { timeout: 10_000 }).not.toBe(total10);
     await make.getByText("Total for 50").waitFor();
-    // rolled and welded instead: a rectangle and two end discs per layer
-    await make.getByLabel(/how the can is made/i).selectOption("rolled");
+    // rolled and welded instead (a choice of the design: it sets the as-built figure too): a rectangle and two end discs per layer
+    await page.getByLabel(/how it is made/i).selectOption("rolled");
     await parts.nth(0).getByTestId("make-blank-size").filter({ hasText: /Rectangle .* \+ 2 discs/ }).waitFor();
-    await make.getByLabel(/how the can is made/i).selectOption("auto");
+    await page.getByTestId("as-built-summary").filter({ hasText: /rolled and seam-welded|the lid joint|the welds/ }).waitFor();
+    await page.getByLabel(/how it is made/i).selectOption("drawn");
     await parts.nth(1).getByTestId("make-blank-size").filter({ hasText: /Disc Ø/ }).waitFor();
     await make.getByTestId("total-price").waitFor();
     await make.scrollIntoViewIfNeeded();
@@ -250,7 +260,8 @@ describe("design check, as a customer engineer would use it", () => {
     expect(await page.getByLabel(/inside diameter/i).inputValue()).toBe("72");
     expect(await page.getByLabel(/inside height/i).inputValue()).toBe("142");
     expect(await page.getByLabel(/sheet thickness/i).inputValue()).toBe("1.5"); // layer 2 was added as a copy of the 1.5 mm wall
-    expect(await page.getByLabel(/inside corner radius/i).inputValue()).toBe("0");
+    // the shared 3 mm corner, grown by the 1 mm wall and 10 mm gap of the layer inside
+    expect(await page.getByLabel(/inside corner radius/i).inputValue()).toBe("14");
     expect(await page.getByLabel(/^material/i).inputValue()).toBe("ni50");
     await page.getByTestId("blank-size").filter({ hasText: disc }).waitFor();
     await page.getByRole("button", { name: /download dxf/i }).waitFor();
@@ -258,6 +269,93 @@ describe("design check, as a customer engineer would use it", () => {
     await h.shot(page, "flat-blank-from-design-check");
     expect(consoleErrors.join("\n")).toBe("");
     await page.getByRole("button", { name: /sign out/i }).click();
+    await page.close();
+  });
+});
+
+/** The figures once the debounce and the request are over. */
+async function settled(page: Page): Promise<void> {
+  await page.waitForTimeout(400);
+  await page.getByTestId("prediction").and(page.locator(":not([aria-busy])")).waitFor();
+}
+
+describe("what a built shield reaches, as a customer engineer would try it", () => {
+  it("one layer, three layers, 1 kHz, a saturating field, an open conducting tube, and the chart's range", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await page.goto(`${h.baseUrl}/design-check`);
+    await headline(page).filter({ hasText: /dB/ }).waitFor();
+    await settled(page);
+    const one = dbOf(await headline(page).textContent());
+    // the 1 mm 80Ni can, 50 × 120 mm, at 60 Hz: what built cans reach [practice], well below the seamless shell
+    expect(one).toBeGreaterThan(55);
+    expect(one).toBeLessThan(70);
+    await page.getByTestId("layer-bars").getByText(/initial permeability \(design value\)/).waitFor();
+    await h.shot(page, "design-check-one-layer");
+
+    // three layers: the built figure rises, and levels off at the nest's ceiling far below the ideal
+    await page.getByRole("button", { name: /add a layer outside/i }).click();
+    await page.getByRole("button", { name: /add a layer outside/i }).click();
+    await layer(page, 3).waitFor();
+    await settled(page);
+    await expect.poll(async () => dbOf(await headline(page).textContent()), { timeout: 10_000 }).toBeGreaterThan(one + 20);
+    const three = dbOf(await headline(page).textContent());
+    expect(dbOf(await page.getByTestId("ideal-db").textContent())).toBeGreaterThan(three + 20);
+    await page.getByTestId("as-built-summary").getByText(/ceiling/).waitFor();
+    await h.axe(page, "three layers");
+    await h.shot(page, "design-check-three-layers");
+
+    // 1 kHz: eddy currents lift the seamless shell; the built can stays at its ceiling
+    for (const n of [3, 2]) await page.getByRole("button", { name: `Remove layer ${n}` }).click();
+    await page.getByLabel(/^frequency/i).fill("1000");
+    await page.getByText("Attenuation at 1000 Hz, as built").waitFor();
+    await settled(page);
+    const kHz = dbOf(await headline(page).textContent());
+    expect(kHz).toBeGreaterThan(60);
+    expect(kHz).toBeLessThan(80);
+    expect(dbOf(await page.getByTestId("ideal-db").textContent())).toBeGreaterThan(kHz + 40);
+    await page.getByTestId("layer-bars").getByText(/Peak wall flux \(outer face\)/).waitFor();
+    await h.shot(page, "design-check-1khz");
+
+    // a saturating field: 5 mT at 60 Hz on the one 1 mm wall
+    await page.getByLabel(/^frequency/i).fill("60");
+    await page.getByLabel(/^unit$/i).selectOption("mT");
+    await page.getByLabel(/^peak field/i).fill("5");
+    await page.getByTestId("warnings").getByText(/at or above its saturation of 0\.77 T/).waitFor();
+    await page.getByTestId("layer-bars").getByText("saturated").waitFor();
+    await settled(page);
+    await h.axe(page, "saturating field");
+    await h.shot(page, "design-check-saturating");
+    await page.getByLabel(/^peak field/i).fill("0.1");
+
+    // an open aluminium tube 100 × 300 mm, 3 mm, at 10 kHz: its ends leak as a conductor's do, about 46 dB
+    await page.getByLabel(/inside diameter/i).fill("100");
+    await page.getByLabel(/inside length/i).fill("300");
+    await page.getByLabel(/^ends/i).selectOption("open");
+    await layer(page, 1).getByLabel(/material/i).selectOption("aluminium");
+    await layer(page, 1).getByLabel(/wall thickness/i).fill("3");
+    await page.getByLabel(/^frequency/i).fill("10000");
+    await page.getByTestId("warnings").getByText(/open ends leak/i).waitFor();
+    await expect.poll(async () => dbOf(await headline(page).textContent()), { timeout: 10_000 }).toBeLessThan(48);
+    await settled(page);
+    expect(dbOf(await headline(page).textContent())).toBeGreaterThan(44);
+    await page.getByText(/open-end leakage exp\(−1\.8\d\d·z\/a\)/).waitFor();
+    await h.shot(page, "design-check-open-aluminium-tube");
+
+    // the chart's range: the person's own, widened to take in the asked frequency; a bad value named
+    const chart = page.getByTestId("attenuation-chart");
+    await page.getByLabel(/^chart from/i).fill("100");
+    await page.getByLabel(/^chart to/i).fill("5000");
+    await page.getByTestId("chart-range-note").getByText(/widened to take in the asked 10 kHz/).waitFor();
+    await expect.poll(() => chart.getAttribute("aria-label")).toMatch(/from 100 Hz to 10 kHz/);
+    await page.getByLabel(/^chart from/i).fill("0");
+    await page.getByText(/Too small: at least 0\.01 Hz/).waitFor();
+    expect(await page.getByLabel(/^chart from/i).getAttribute("aria-invalid")).toBe("true");
+    await page.getByLabel(/^chart from/i).fill("10");
+    await expect.poll(() => chart.getAttribute("aria-label")).toMatch(/from 10 Hz to 10 kHz/);
+    await h.axe(page, "chart range");
+    await page.getByTestId("attenuation-chart").scrollIntoViewIfNeeded();
+    await h.shot(page, "design-check-chart-range");
+    expect(consoleErrors.join("\n")).toBe("");
     await page.close();
   });
 });

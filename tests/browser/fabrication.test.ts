@@ -149,6 +149,28 @@ describe("shop rates, as the planner", () => {
     await page.getByTestId("current-version").filter({ hasText: String(before + 1) }).waitFor();
     await page.getByRole("list", { name: /versions/i }).getByText(/Cas Lindqvist/).first().waitFor();
     await h.shot(page, "shop-rates-saved");
+
+    // the construction limits the predictions assume: a bad value named, then a change saved and put back
+    const construction = page.getByRole("form", { name: "Construction limits" });
+    const box = construction.getByRole("group", { name: /box with a slip-on lid/i }).getByLabel(/one layer/i);
+    const was = await box.inputValue();
+    await box.fill("900");
+    await construction.getByRole("button", { name: /save construction limits/i }).click();
+    await construction.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();
+    await construction.getByText(/too large: at most 160 dB/i).waitFor();
+    expect(await box.getAttribute("aria-invalid")).toBe("true");
+    await box.fill(String(Number(was) + 1));
+    await construction.getByRole("button", { name: /save construction limits/i }).click();
+    await construction.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();
+    await construction.getByText(new RegExp(`saved as version ${before + 2}\\. Predictions use it`, "i")).waitFor();
+    await page.getByRole("list", { name: /versions/i }).getByText(/construction limits/i).first().waitFor();
+    await h.axe(page, "shop rates");
+    await construction.scrollIntoViewIfNeeded();
+    await h.shot(page, "shop-rates-construction");
+    await construction.getByRole("button", { name: /back to the defaults/i }).click();
+    await construction.getByRole("button", { name: /save construction limits/i }).click();
+    await construction.getByRole("button", { name: new RegExp(`save as version ${before + 3}`, "i") }).click();
+    await construction.getByText(new RegExp(`saved as version ${before + 3}`, "i")).waitFor();
     expect(consoleErrors.join("\n")).toBe("");
     await page.close();
   });

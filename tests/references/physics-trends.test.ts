@@ -111,7 +111,8 @@ describe("trends [practice]", () => {
           const dims = shape === "box" ? { width: 60, depth: 50, height: 40 } : shape === "sphere" ? { diameter: 50 } : { diameter: 50, length: 120 };
           const mk = (th: number) => can([{ material, thickness_mm: th }], { shape: shape as PredictionInput["shape"], dimensions_mm: dims, ends: ends as "open" }, { frequency_hz: f, amplitude_uT: 10, orientation: orientation as "axial" });
           const r1 = predictShield(mk(t)), r2 = predictShield(mk(t * 1.3));
-          return r1.shieldingFactor >= 1 && r2.attenuation_db >= r1.attenuation_db - 1e-6 && Number.isFinite(r2.attenuation_db);
+          // 1e-3 dB: a figure held at a joint's or the ceiling's limit may move in the last digits
+          return r1.shieldingFactor >= 1 && r2.attenuation_db >= r1.attenuation_db - 1e-3 && r2.ideal.attenuation_db >= r1.ideal.attenuation_db - 1e-6 && Number.isFinite(r2.attenuation_db);
         },
       ),
       { numRuns: 200 },

@@ -37,6 +37,8 @@ export interface BrowserHarness {
    */
   newPage(): Promise<{ page: Page; consoleErrors: string[]; offMachine: string[] }>;
   shot(page: Page, name: string): Promise<void>;
+  /** axe-core on the page as it stands: throws listing the violations (WCAG 2.x A and AA rules) */
+  axe(page: Page, where: string): Promise<void>;
 }
 
 export function useBrowser(): BrowserHarness {
@@ -87,6 +89,9 @@ export function useBrowser(): BrowserHarness {
     h.shot = async (page, name) => {
       await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
       await expectAccessible(page, name);
+    };
+    h.axe = async (page, where) => {
+      await expectAccessible(page, where);
     };
   });
   afterAll(async () => {

@@ -4,8 +4,10 @@ import { blankRequestSchema } from "../../shared/schemas/blank";
 import { priceEstimateRequestSchema } from "../../shared/schemas/price-estimate";
 import { paths } from "../../src/config/paths";
 import { checkDraft, defaultDesign, newHole, newLayer, type DesignDraft } from "../../src/features/design-check/design-model";
-import { defaultMethod, flatBlankPrefill, layerBlankRequests, toPriceEstimateBody } from "../../src/features/design-check/make-model";
-import { formFromSearch } from "../../src/features/fabrication/flat-blank-calculator";
+import { flatBlankPrefill, layerBlankRequests, methodOf, toPriceEstimateBody, tooManyDraws } from "../../src/features/design-check/make-model";
+import { suggestKFactor } from "../../shared/fabrication/bend";
+import { DEFAULT_CORNER_RADIUS_MM, DEFAULT_SEAM_OVERLAP_MM } from "../../shared/construction-defaults";
+import { formFromSearch, initialBlankForm, suggestedK } from "../../src/features/fabrication/flat-blank-calculator";
 
 const requestOf = (d: DesignDraft) => {
   const r = checkDraft(d);
@@ -24,16 +26,17 @@ describe("design check → what it takes to make", () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.body).toEqual({
-      configuration: { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 120 }, layers: [{ material: "ni80", thickness_mm: 1, gap_mm: 5 }, { material: "ni50", thickness_mm: 1.5 }], cornerRadius_mm: 0, trim_mm: 0 },
+      configuration: { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 120 }, layers: [{ material: "ni80", thickness_mm: 1, gap_mm: 5 }, { material: "ni50", thickness_mm: 1.5 }], cornerRadius_mm: DEFAULT_CORNER_RADIUS_MM, trim_mm: 0 },
       quantity: 10,
     });
     expect(priceEstimateRequestSchema.safeParse(r.body).success).toBe(true);
     const rolled = toPriceEstimateBody(twoLayerCan(), "rolled", "3");
-    expect(rolled.ok && rolled.body.configuration).toMatchObject({ method: "rolled", seamOverlap_mm: 0 });
+    expect(rolled.ok && rolled.body.configuration).toMatchObject({ method: "rolled", seamOverlap_mm: DEFAULT_SEAM_OVERLAP_MM });
 
     const box = requestOf({ ...defaultDesign(), shape: "box" });
     const b = toPriceEstimateBody(box, "bent", "25");
-    expect(b.ok && b.body).toEqual({ configuration: { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, layers: [{ material: "ni80", thickness_mm: 1 }], kFactor: 0.44, lid: true }, quantity: 25 });
+    // bend radius and K from the shared defaults, as the engine takes them per layer
+    expect(b.ok && b.body).toEqual({ configuration: { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, layers: [{ material: "ni80", thickness_mm: 1 }], lid: true }, quantity: 25 });
     expect(b.ok && priceEstimateRequestSchema.safeParse(b.body).success).toBe(true);
   });
 
@@ -83,16 +86,35 @@ describe("design check → what it takes to make", () => {
     const parts = partsForDesign({ ...body.body.configuration, layers: body.body.configuration.layers.map((l) => ({ thickness_mm: l.thickness_mm, gap_mm: l.gap_mm })) } as Parameters<typeof partsForDesign>[0]);
     expect(parts.map((p) => p.blank.kind)).toEqual(["disc", "disc"]);
     const box = layerBlankRequests(requestOf({ ...defaultDesign(), shape: "box" }), "bent");
-    expect(box[0]).toMatchObject({ method: "bent", bendRadius_mm: 1, kFactor: 0.44, lidHeight_mm: 10 });
+    expect(box[0]).toMatchObject({ method: "bent", bendRadius_mm: 1, kFactor: suggestKFactor(1, 1), lidHeight_mm: 10 });
+    // the box's blanks are the engine's parts for the price, bend for bend
+    const boxBody = toPriceEstimateBody(requestOf({ ...defaultDesign(), shape: "box" }), "bent", "1");
+    if (!boxBody.ok) throw new Error("not priced");
+    const boxParts = partsForDesign({ ...boxBody.body.configuration, layers: [{ thickness_mm: 1 }] } as Parameters<typeof partsForDesign>[0]);
+    expect(boxParts[0].bendCount).toBe(4);
     expect(layerBlankRequests(requestOf({ ...defaultDesign(), shape: "sphere" }), "drawn")).toEqual([]);
   });
 
-  it("drawn while every layer takes at most four draws, else rolled; a box is bent; a sphere is not made", () => {
-    expect(defaultMethod("cylinder", [1, 3, 4])).toBe("drawn");
-    expect(defaultMethod("cylinder", [2, 5])).toBe("rolled");
-    expect(defaultMethod("cylinder", null)).toBe("drawn");
-    expect(defaultMethod("box", null)).toBe("bent");
-    expect(defaultMethod("sphere", [1])).toBeNull();
+  it("is made as the design says: a can drawn or rolled, a box bent, a sphere not made; more than four draws is flagged", () => {
+    expect(methodOf(twoLayerCan())).toBe("drawn");
+    expect(methodOf(requestOf({ ...defaultDesign(), method: "rolled" }))).toBe("rolled");
+    expect(methodOf(requestOf({ ...defaultDesign(), shape: "box" }))).toBe("bent");
+    expect(methodOf(requestOf({ ...defaultDesign(), shape: "sphere" }))).toBeNull();
+    expect(tooManyDraws([1, 3, 4])).toBeNull();
+    expect(tooManyDraws([2, 5])).toBe(5);
+    expect(tooManyDraws(null)).toBeNull();
+  });
+
+  it("the flat-blank page and the design check start from the same construction defaults (corner radius, seam overlap, bend radius and K-factor)", () => {
+    const one = requestOf(defaultDesign()); // 1 mm wall, as the flat-blank page's first thickness
+    const asForm = (b: Parameters<typeof flatBlankPrefill>[0]) => formFromSearch(new URL(paths.flatBlank.href(flatBlankPrefill(b)), "http://x").searchParams);
+    const drawn = asForm(layerBlankRequests(one, "drawn")[0]);
+    expect(drawn.cornerRadius).toBe(initialBlankForm.cornerRadius);
+    expect(drawn.trim).toBe(initialBlankForm.trim);
+    expect(asForm(layerBlankRequests(one, "rolled")[0]).seamOverlap).toBe(initialBlankForm.seamOverlap);
+    const box = asForm(layerBlankRequests(requestOf({ ...defaultDesign(), shape: "box" }), "bent")[0]);
+    expect(box.bendRadius).toBe(initialBlankForm.bendRadius);
+    expect(Number(box.kFactor)).toBe(suggestedK(initialBlankForm)); // the page's own "typical K" for that radius
   });
 
   it("a part's link opens the flat-blank page with the same inputs", () => {
@@ -100,9 +122,10 @@ describe("design check → what it takes to make", () => {
     const href = paths.flatBlank.href(flatBlankPrefill(outer));
     expect(href).toMatch(/^\/flat-blank\?/);
     const form = formFromSearch(new URL(href, "http://x").searchParams);
-    expect(form).toMatchObject({ kind: "cylinder-drawn", diameter: "62", length: "132", thickness: "1.5", cornerRadius: "0", trim: "0", material: "ni50" });
+    // the outer cup keeps the gap round the corner: the shared 3 mm plus the 6 mm of the layer inside
+    expect(form).toMatchObject({ kind: "cylinder-drawn", diameter: "62", length: "132", thickness: "1.5", cornerRadius: String(DEFAULT_CORNER_RADIUS_MM + 6), trim: "0", material: "ni50" });
     const [box] = layerBlankRequests(requestOf({ ...defaultDesign(), shape: "box" }), "bent");
-    expect(formFromSearch(new URL(paths.flatBlank.href(flatBlankPrefill(box)), "http://x").searchParams)).toMatchObject({ kind: "box-bent", width: "80", depth: "60", height: "40", bendRadius: "1", kFactor: "0.44" });
+    expect(formFromSearch(new URL(paths.flatBlank.href(flatBlankPrefill(box)), "http://x").searchParams)).toMatchObject({ kind: "box-bent", width: "80", depth: "60", height: "40", bendRadius: "1", kFactor: String(suggestKFactor(1, 1)) });
     // unknown kinds and keys are ignored; "none" is no material
     expect(formFromSearch(new URLSearchParams("kind=sphere&material=none&colour=red"))).toMatchObject({ kind: "box-bent", material: "" });
     expect(paths.flatBlank.href()).toBe("/flat-blank");

@@ -30,9 +30,9 @@ describe("design-check form → prediction body", () => {
     const r = checkDraft(d);
     expect(r.request).toBeNull();
     const { errors } = draftErrors(r.errors!);
-    expect(errors["layers.0.thickness"]).toMatch(/greater than 0 mm/);
+    expect(errors["layers.0.thickness"]).toMatch(/wall thickness is too small: at least 0.01 mm/i);
     expect(errors["layers.1.thickness"]).toBeTruthy();
-    expect(errors.frequency).toMatch(/cannot be negative/);
+    expect(errors.frequency).toMatch(/too small: at least 0 Hz \(0 is a static field\)/);
     expect(draftErrors({ "layers.2.material": "Unknown material", "dimensions_mm.width": "x", weird: "y" })).toEqual({ errors: { "layers.2.material": "Unknown material", width: "x" }, other: ["y"] });
   });
 
@@ -53,8 +53,8 @@ describe("design-check form → prediction body", () => {
     const r = checkDraft({ ...defaultDesign(), holes: [newHole("mm", { diameter: "0" }), newHole("mm", { collar: "-2" }), newHole("mm", { diameter: "60" })] });
     expect(r.request).toBeNull();
     const { errors } = draftErrors(r.errors!);
-    expect(errors["holes.0.diameter"]).toMatch(/hole diameter must be greater than 0 mm/i);
-    expect(errors["holes.1.collar"]).toMatch(/collar length cannot be negative/i);
+    expect(errors["holes.0.diameter"]).toMatch(/hole diameter is too small: at least 0.5 mm/i);
+    expect(errors["holes.1.collar"]).toMatch(/collar length is too small: at least 0 mm/i);
     expect(errors["holes.2.diameter"]).toMatch(/narrower than the shield's smallest inside size \(50 mm\)/);
     expect(checkDraft({ ...defaultDesign(), holes: [newHole("mm", { collar: "abc" })] }).errors).toHaveProperty(["holes.0.collarLength_mm"]);
     // the server's field names map to the same fields

@@ -38,7 +38,33 @@ describe("predictionRequestSchema", () => {
 
   it("accepts a sphere and a box with their own dimensions, and optional holes", () => {
     expect(fieldsOf({ ...clone(example), shape: "sphere", dimensions_mm: { diameter: 40 } })).toEqual({});
-    expect(fieldsOf({ ...clone(example), shape: "box", dimensions_mm: { width: 80, depth: 60, height: 40 }, holes: [{ diameter_mm: 8, collarLength_mm: 12 }] })).toEqual({});
+    expect(fieldsOf({ ...clone(example), shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, holes: [{ diameter_mm: 8, collarLength_mm: 12 }] })).toEqual({});
+  });
+
+  it("takes the construction method the shape is made by, and refuses another at `method`", () => {
+    expect(fieldsOf({ ...clone(example), method: "rolled" })).toEqual({});
+    const { method: _m, ...noMethod } = clone(example);
+    expect(fieldsOf(noMethod)).toEqual({});
+    expect(fieldsOf({ ...clone(example), method: "bent" })).toHaveProperty(["method"]);
+    expect(fieldsOf({ ...clone(example), shape: "box", method: "drawn", dimensions_mm: { width: 80, depth: 60, height: 40 } })).toHaveProperty(["method"]);
+  });
+
+  it("says \"too small\" or \"too large\" for values beyond physical sense, naming the field", () => {
+    const b = clone(example);
+    b.layers[1].resistivity_ohm_m = 5e-324;
+    expect(fieldsOf(b)["layers.1.resistivity_ohm_m"]).toMatch(/too small/);
+    b.layers[1].resistivity_ohm_m = 1e-300;
+    expect(fieldsOf(b)["layers.1.resistivity_ohm_m"]).toMatch(/too small/);
+    b.layers[1].resistivity_ohm_m = 5.8e-7;
+    b.layers[1].mu_r = 1e9;
+    expect(fieldsOf(b)["layers.1.mu_r"]).toMatch(/too large/);
+    expect(fieldsOf({ ...clone(example), dimensions_mm: { diameter: 1e7, length: 120 } })["dimensions_mm.diameter"]).toMatch(/too large/);
+    expect(fieldsOf({ ...clone(example), dimensions_mm: { diameter: 1e-300, length: 120 } })["dimensions_mm.diameter"]).toMatch(/too small/);
+    expect(fieldsOf({ ...clone(example), field: { ...example.field, frequency_hz: 1e9 } })["field.frequency_hz"]).toMatch(/too large/);
+    expect(fieldsOf({ ...clone(example), field: { ...example.field, amplitude_uT: 1e-12 } })["field.amplitude_uT"]).toMatch(/too small/);
+    const thin = clone(example);
+    thin.layers[0].thickness_mm = 1e-9;
+    expect(fieldsOf(thin)["layers.0.thickness_mm"]).toMatch(/too small/);
   });
 
   it("rejects zero and negative dimensions with the field path", () => {

@@ -3,20 +3,25 @@ import { useQueries, useQuery } from "@tanstack/react-query";
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
 import { ApiError } from "../../api/client";
 import { materialsQueryOptions } from "../../api/materials";
-import { predictionQueryOptions, sweepQueryOptions } from "../../api/predictions";
+import { predictionQueryOptions, sweepQueryOptions, type SweepPoint, type SweepRange } from "../../api/predictions";
 import { PanelBoundary } from "../../components/error-boundary";
 import { Button } from "../../components/ui/button";
 import { Panel } from "../../components/ui/panel";
+import { TextField } from "../../components/ui/field";
 import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { useDebounced } from "../../lib/use-debounced";
 import { AttenuationChart, SERIES_STYLE, type ChartSeries } from "./attenuation-chart";
+import { checkRange, defaultRange, type RangeDraft } from "./chart-range";
 import { Cautions } from "./cautions";
 import { CrossSection } from "./cross-section";
 import { DesignForm } from "./design-form";
 import { MakePanel } from "./make-panel";
 import { checkDraft, defaultDesign, describeDesign, draftErrors, type DesignDraft } from "./design-model";
 import { Headline, HoleTable, LayerBars, Warnings } from "./results";
+
+const builtPoints = (points: SweepPoint[]) => points.map((p) => ({ frequency_hz: p.frequency_hz, attenuation_db: p.attenuation_db }));
+const idealPoints = (points: SweepPoint[]) => points.map((p) => ({ frequency_hz: p.frequency_hz, attenuation_db: p.ideal_db }));
 
 interface Variant {
   label: "A" | "B";
@@ -42,10 +47,20 @@ export function DesignCheck() {
   const request = useDebounced(lastValid, 250);
 
   const prediction = useQuery({ ...predictionQueryOptions(request!), enabled: request !== null });
-  const sweep = useQuery({ ...sweepQueryOptions(request!), enabled: request !== null });
+
+  // the chart's range: as typed, widened to take in the asked frequency; the last good one meanwhile
+  const [rangeDraft, setRangeDraft] = useState<RangeDraft>(defaultRange);
+  const rangeCheck = checkRange(rangeDraft, request ? request.field.frequency_hz : null);
+  const [lastRange, setLastRange] = useState<SweepRange>(() => (rangeCheck.ok ? rangeCheck.range : { from_hz: 1, to_hz: 10_000 }));
+  const from = rangeCheck.ok ? rangeCheck.range.from_hz : null, to = rangeCheck.ok ? rangeCheck.range.to_hz : null;
+  useEffect(() => {
+    if (from !== null && to !== null) setLastRange({ from_hz: from, to_hz: to });
+  }, [from, to]);
+  const range = useDebounced(lastRange, 250);
+  const sweep = useQuery({ ...sweepQueryOptions(request!, range), enabled: request !== null });
 
   const [variants, setVariants] = useState<Variant[]>([]);
-  const variantSweeps = useQueries({ queries: variants.map((v) => sweepQueryOptions(v.request)) });
+  const variantSweeps = useQueries({ queries: variants.map((v) => sweepQueryOptions(v.request, range)) });
 
   const server = prediction.isError && prediction.error instanceof ApiError ? draftErrors(prediction.error.fields) : { errors: {}, other: [] };
   const client = checked.errors ? draftErrors(checked.errors) : { errors: {}, other: [] };
@@ -62,10 +77,13 @@ export function DesignCheck() {
     setVariants((vs) => [...vs, { label, request, description: describeDesign(request, nameOf), attenuation_db: result.attenuation_db }].sort((a, b) => a.label.localeCompare(b.label)));
   };
   const series: ChartSeries[] = [];
-  if (sweep.data) series.push({ name: "This design", points: sweep.data, ...SERIES_STYLE[0] });
+  if (sweep.data) {
+    series.push({ name: "This design, as built", points: builtPoints(sweep.data), ...SERIES_STYLE[0] });
+    series.push({ name: "Seamless shell (ideal)", points: idealPoints(sweep.data), ...SERIES_STYLE[0], dash: "6 3", faint: true });
+  }
   variants.forEach((v, i) => {
     const points = variantSweeps[i]?.data;
-    if (points) series.push({ name: `Variant ${v.label}`, points, ...SERIES_STYLE[v.label === "A" ? 1 : 2] });
+    if (points) series.push({ name: `Variant ${v.label}, as built`, points: builtPoints(points), ...SERIES_STYLE[v.label === "A" ? 1 : 2] });
   });
 
   return (
@@ -99,7 +117,7 @@ export function DesignCheck() {
               <div className={stale ? "stale space-y-6" : "space-y-6"} data-testid="prediction" aria-busy={prediction.isFetching || undefined}>
                 <Headline result={result} frequency={request.field.frequency_hz} />
                 <p className="text-meta text-flux-600">
-                  <strong className="font-semibold">Method:</strong> {result.method}. <strong className="font-semibold">Range:</strong> {result.band.basis}.
+                  <strong className="font-semibold">Method:</strong> {result.method}. <strong className="font-semibold">Likely range:</strong> {result.band.basis}.
                 </p>
                 <section className="space-y-3">
                   <h3 className="text-h4">Each layer</h3>
@@ -129,7 +147,34 @@ export function DesignCheck() {
               </Button>
             }
           >
-            {series.length > 0 ? <AttenuationChart series={series} frequency={frequency} /> : <p className="py-12 text-center text-flux-600">Working out the curve…</p>}
+            {series.length > 0 ? <AttenuationChart series={series} frequency={frequency} range={range} /> : <p className="py-12 text-center text-flux-600">Working out the curve…</p>}
+            <div className="mt-4 grid max-w-xl gap-3 sm:grid-cols-2" role="group" aria-label="Chart range">
+              <TextField
+                label="Chart from (Hz)"
+                name="chartFrom"
+                inputMode="decimal"
+                autoComplete="off"
+                value={rangeDraft.from}
+                error={rangeCheck.ok ? undefined : rangeCheck.errors.from}
+                onChange={(e) => setRangeDraft({ ...rangeDraft, from: e.target.value })}
+              />
+              <TextField
+                label="Chart to (Hz)"
+                name="chartTo"
+                inputMode="decimal"
+                autoComplete="off"
+                value={rangeDraft.to}
+                error={rangeCheck.ok ? undefined : rangeCheck.errors.to}
+                onChange={(e) => setRangeDraft({ ...rangeDraft, to: e.target.value })}
+              />
+            </div>
+            <p className="mt-2 text-meta text-flux-600" data-testid="chart-range-note">
+              {rangeCheck.ok && rangeCheck.widened && frequency !== null
+                ? `The chart is widened to take in the asked ${frequency >= 1000 ? `${+(frequency / 1000).toPrecision(4)} kHz` : `${+frequency.toPrecision(4)} Hz`}.`
+                : frequency === 0
+                  ? "At DC the figures are the curve's low-frequency end."
+                  : "The solid line is what a built shield of this construction is expected to reach; the pale dashed line is the seamless shell."}
+            </p>
             {variants.length > 0 ? (
               <ul className="mt-4 space-y-2" aria-label="Kept variants">
                 {variants.map((v) => (

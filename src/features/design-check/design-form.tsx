@@ -136,6 +136,23 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
           )}
         </div>
         <p className="text-meta text-flux-600">Inside dimensions of the innermost layer.</p>
+        {draft.shape === "cylinder" ? (
+          <SelectField
+            label="How it is made"
+            name="method"
+            value={draft.method}
+            error={errors.method}
+            hint="The construction sets what a built shield reaches: its welds, its lid joint, and the shop's ceiling for it."
+            onChange={(e) => set("method", e.target.value as DesignDraft["method"])}
+          >
+            <option value="drawn">Deep-drawn, seamless{draft.ends === "closed" ? ", slip-on lid" : ""}</option>
+            <option value="rolled">Rolled and seam-welded{draft.ends === "closed" ? ", welded bottom, slip-on lid" : ""}</option>
+          </SelectField>
+        ) : (
+          <p className="text-meta text-flux-600" data-testid="made-as">
+            {draft.shape === "box" ? "Made bent from a cross-shaped blank, corners welded, with a slip-on lid." : "Figured as two drawn halves welded together (the shop does not make spheres)."}
+          </p>
+        )}
       </Section>
 
       <Section title="Layers, innermost first">
@@ -265,7 +282,7 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
             <option value="axial">Along the axis (axial)</option>
           </SelectField>
         ) : (
-          <p className="text-meta text-flux-600">A {draft.shape} is treated the same in every direction.</p>
+          <p className="text-meta text-flux-600">{draft.shape === "box" ? "A box's figure is taken for its weakest field direction." : "A sphere shields every direction alike."}</p>
         )}
       </Section>
     </form>

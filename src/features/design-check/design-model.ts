@@ -50,6 +50,8 @@ export interface DesignDraft {
   fieldUnit: DesignFieldUnit;
   frequency: string;
   orientation: "transverse" | "axial";
+  /** how a can is made (a box is bent, a sphere of drawn halves): the construction the as-built figure assumes */
+  method: "drawn" | "rolled";
   /** cable holes, each with its collar (chimney); absent or empty: none */
   holes?: HoleDraft[];
   /** the exact millimetres behind figures produced by a unit switch (see the form's inUnit) */
@@ -89,6 +91,7 @@ export const defaultDesign = (): DesignDraft => ({
   fieldUnit: "uT",
   frequency: "60",
   orientation: "transverse",
+  method: "drawn",
 });
 
 // An empty box is sent as null and a typo as NaN, so the schema's own message says what is wrong.
@@ -130,6 +133,7 @@ export function toRequestBody(d: DesignDraft): Record<string, unknown> {
       orientation: d.shape === "cylinder" ? d.orientation : "transverse",
     },
     state: d.state,
+    ...(d.shape === "cylinder" ? { method: d.method } : d.shape === "box" ? { method: "bent" } : {}),
     ...(holes.length ? { holes } : {}),
   };
 }
@@ -148,7 +152,7 @@ export function draftField(path: string): string | null {
   const top: Record<string, string> = {
     "dimensions_mm.diameter": "diameter", "dimensions_mm.length": "length", "dimensions_mm.width": "width", "dimensions_mm.depth": "depth",
     "dimensions_mm.height": "height", "field.frequency_hz": "frequency", "field.amplitude_uT": "amplitude", "field.orientation": "orientation",
-    state: "state", ends: "ends", shape: "shape", layers: "layers", holes: "holes",
+    state: "state", ends: "ends", shape: "shape", layers: "layers", holes: "holes", method: "method",
   };
   return top[path] ?? null;
 }

@@ -4,8 +4,9 @@
 // sizes come from the server's engine and the price from its list; nothing is worked out here
 // except which layer is which size (the engine's own layerGrowth_mm).
 
-import { defaultLidHeight } from "../../../shared/fabrication/bent-box";
+import { suggestKFactor } from "../../../shared/fabrication/bend";
 import { layerGrowth_mm } from "../../../shared/fabrication/parts";
+import { DEFAULT_CORNER_RADIUS_MM, DEFAULT_SEAM_OVERLAP_MM, DEFAULT_TRIM_MM, defaultBendRadius_mm, defaultLidHeight } from "../../../shared/construction-defaults";
 import type { BlankRequest } from "../../../shared/schemas/blank";
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
 import { MAX_ESTIMATE_QUANTITY, type DesignConfigurationInput } from "../../../shared/schemas/price-estimate";
@@ -13,17 +14,26 @@ import type { FlatBlankPrefill } from "../../config/paths";
 
 export type MakeMethod = "drawn" | "rolled" | "bent";
 
-/** Beyond this many draws a can is rolled and seam-welded instead: cheaper tooling, fewer anneals. */
+/** Beyond this many draws a rolled and welded can is usually cheaper: fewer tools, fewer anneals. */
 export const MAX_DRAW_STAGES = 4;
-/** Bent boxes: the K-factor sent with every layer, so blank, link and price use the same one. */
-export const BOX_K_FACTOR = 0.44;
 
-/** Drawn while every layer takes at most MAX_DRAW_STAGES draws, else rolled; a box is bent; a sphere is not made here. */
-export function defaultMethod(shape: PredictionRequest["shape"], drawStagesPerLayer: readonly number[] | null): MakeMethod | null {
-  if (shape === "sphere") return null;
-  if (shape === "box") return "bent";
-  if (!drawStagesPerLayer) return "drawn";
-  return drawStagesPerLayer.every((n) => n <= MAX_DRAW_STAGES) ? "drawn" : "rolled";
+/** The method the design is made by: its own for a can, bent for a box; a sphere is not made here. */
+export function methodOf(request: PredictionRequest): MakeMethod | null {
+  if (request.shape === "sphere") return null;
+  if (request.shape === "box") return "bent";
+  return request.method ?? "drawn";
+}
+
+/** The most draws any layer needs, when a drawn can needs more than MAX_DRAW_STAGES; else null. */
+export function tooManyDraws(drawStagesPerLayer: readonly number[] | null): number | null {
+  if (!drawStagesPerLayer || drawStagesPerLayer.length === 0) return null;
+  const most = Math.max(...drawStagesPerLayer);
+  return most > MAX_DRAW_STAGES ? most : null;
+}
+
+/** A drawn cup's inside corner radius: the shared default grown with the layers inside, within what the cup allows. */
+function cornerRadius(diameter: number, length: number, add: number): number {
+  return Math.min(DEFAULT_CORNER_RADIUS_MM + add / 2, diameter / 2, length);
 }
 
 /** Each layer's blank request, sized from that layer's inside (the inner layers' walls and gaps added). */
@@ -36,12 +46,13 @@ export function layerBlankRequests(request: PredictionRequest, method: MakeMetho
     const material = layer.material ? { material: layer.material } : {};
     if (request.shape === "box") {
       const height = d.height + add;
-      // bend radius = the sheet thickness, as the engine tools a nest's boxes; the lid at its default height
-      return { shape: "box", method: "bent", dimensions_mm: { width: d.width + add, depth: d.depth + add, height }, thickness_mm: t, bendRadius_mm: t, kFactor: BOX_K_FACTOR, lidHeight_mm: defaultLidHeight(height), ...material };
+      // the shared defaults: bend radius one thickness, the typical K for it; the lid at its default height
+      const R = defaultBendRadius_mm(t);
+      return { shape: "box", method: "bent", dimensions_mm: { width: d.width + add, depth: d.depth + add, height }, thickness_mm: t, bendRadius_mm: R, kFactor: suggestKFactor(R, t), lidHeight_mm: defaultLidHeight(height), ...material };
     }
     const dimensions_mm = { diameter: d.diameter + add, length: d.length + add };
-    if (method === "rolled") return { shape: "cylinder", method: "rolled", dimensions_mm, thickness_mm: t, seamOverlap_mm: 0, ...material };
-    return { shape: "cylinder", method: "drawn", dimensions_mm, thickness_mm: t, cornerRadius_mm: 0, trim_mm: 0, ...material };
+    if (method === "rolled") return { shape: "cylinder", method: "rolled", dimensions_mm, thickness_mm: t, seamOverlap_mm: DEFAULT_SEAM_OVERLAP_MM, ...material };
+    return { shape: "cylinder", method: "drawn", dimensions_mm, thickness_mm: t, cornerRadius_mm: cornerRadius(dimensions_mm.diameter, dimensions_mm.length, add), trim_mm: DEFAULT_TRIM_MM, ...material };
   });
 }
 
@@ -81,12 +92,13 @@ export function toPriceEstimateBody(request: PredictionRequest, method: MakeMeth
   // every hole goes with the design: a collar is a rolled tube on each layer, priced as a part;
   // a plain hole (0 mm collar) is cut in the blank and costs no part of its own
   const holes = request.holes?.length ? { holes: request.holes.map((h) => ({ diameter_mm: h.diameter_mm, collarLength_mm: h.collarLength_mm })) } : {};
+  // the engine takes each layer's bend radius and K from the same shared defaults as the blanks above
   const configuration: DesignConfigurationInput =
     request.shape === "box"
-      ? { shape: "box", method: "bent", dimensions_mm: { width: d.width, depth: d.depth, height: d.height }, layers, kFactor: BOX_K_FACTOR, lid: true, ...holes }
+      ? { shape: "box", method: "bent", dimensions_mm: { width: d.width, depth: d.depth, height: d.height }, layers, lid: true, ...holes }
       : method === "rolled"
-        ? { shape: "cylinder", method: "rolled", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, seamOverlap_mm: 0, ...holes }
-        : { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, cornerRadius_mm: 0, trim_mm: 0, ...holes };
+        ? { shape: "cylinder", method: "rolled", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, seamOverlap_mm: DEFAULT_SEAM_OVERLAP_MM, ...holes }
+        : { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: d.diameter, length: d.length }, layers, cornerRadius_mm: cornerRadius(d.diameter, d.length, 0), trim_mm: DEFAULT_TRIM_MM, ...holes };
   return { ok: true, body: { configuration, quantity } };
 }
 

@@ -8,12 +8,12 @@ import { ApiError } from "../../api/client";
 import { blankQueryOptions, priceEstimateQueryOptions, type BlankResponse } from "../../api/fabrication";
 import { fmtMm } from "../../components/drawing/drawing";
 import { PriceBreakdown } from "../../components/pricing/price-breakdown";
-import { SelectField, TextField } from "../../components/ui/field";
+import { TextField } from "../../components/ui/field";
 import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { paths } from "../../config/paths";
 import { useDebounced } from "../../lib/use-debounced";
-import { defaultMethod, flatBlankPrefill, layerBlankRequests, MAX_DRAW_STAGES, toPriceEstimateBody, type MakeMethod } from "./make-model";
+import { flatBlankPrefill, layerBlankRequests, methodOf, toPriceEstimateBody, tooManyDraws, type MakeMethod } from "./make-model";
 
 const METHOD_WORDS: Record<MakeMethod, string> = { drawn: "Deep-drawn can", rolled: "Rolled and seam-welded can", bent: "Bent box" };
 
@@ -40,18 +40,14 @@ const kg = (x: number) => `${x.toFixed(3)} kg`;
 /** What the design takes to make: one part per layer, its blank, forming and mass; signed in, the price. */
 export function MakePanel({ request }: { request: PredictionRequest }) {
   const me = useQuery(meQueryOptions);
-  const [chosen, setChosen] = useState<"drawn" | "rolled" | "auto">("auto");
   const [quantity, setQuantity] = useState("10");
-  const cylinder = request.shape === "cylinder";
-
-  // the draws every layer would need decide the default method for a can
-  const drawn = useQueries({ queries: cylinder ? layerBlankRequests(request, "drawn").map((b) => ({ ...blankQueryOptions(b), retry: false })) : [] });
-  const drawStages = cylinder && drawn.every((q) => q.data?.method === "drawn") ? drawn.map((q) => (q.data?.method === "drawn" ? q.data.drawStages.length : 0)) : null;
-  const automatic = defaultMethod(request.shape, drawStages);
-  const method = cylinder && chosen !== "auto" ? chosen : automatic;
+  // made as the design says (its construction also sets the as-built figure)
+  const method = methodOf(request);
 
   const requests: BlankRequest[] = method ? layerBlankRequests(request, method) : [];
   const blanks = useQueries({ queries: requests.map((b) => ({ ...blankQueryOptions(b), retry: false })) });
+  const draws = method === "drawn" && blanks.every((q) => q.data?.method === "drawn") ? blanks.map((q) => (q.data?.method === "drawn" ? q.data.drawStages.length : 0)) : null;
+  const manyDraws = tooManyDraws(draws);
 
   const signedIn = Boolean(me.data);
   const priceBody = useDebounced(toPriceEstimateBody(request, method, quantity), 300);
@@ -78,34 +74,30 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
   const collared = (request.holes ?? []).filter((h) => h.collarLength_mm > 0);
   const collarParts = estimate.data && !estimate.isPlaceholderData ? estimate.data.parts.filter((p) => p.role === "collar") : [];
   const collarMass = collarParts.reduce((sum, p) => sum + (p.mass_kg ?? 0) * p.quantityPerAssembly, 0);
-  const fetching = blanks.some((q) => q.isFetching) || drawn.some((q) => q.isFetching);
+  const fetching = blanks.some((q) => q.isFetching);
 
   return (
     <div className="space-y-5" data-testid="make-panel">
       <div className="flex flex-wrap items-end justify-between gap-4">
-        {cylinder ? (
-          <div className="w-full max-w-sm">
-            <SelectField
-              label="How the can is made"
-              name="makeMethod"
-              value={chosen}
-              onChange={(e) => setChosen(e.target.value as typeof chosen)}
-              hint={automatic === "rolled" ? `Rolled: a drawn can would need more than ${MAX_DRAW_STAGES} draws.` : `Drawn while it takes ${MAX_DRAW_STAGES} draws or fewer.`}
-            >
-              <option value="auto">Shop's choice ({automatic === "rolled" ? "rolled and welded" : "deep-drawn"})</option>
-              <option value="drawn">Deep-drawn from a disc</option>
-              <option value="rolled">Rolled and seam-welded, two end discs</option>
-            </SelectField>
-          </div>
-        ) : (
-          <p className="text-flux-700">Each box layer is bent from a cross-shaped blank, with a bent lid.</p>
-        )}
+        <p className="text-flux-700" data-testid="make-method">
+          {method === "bent"
+            ? "Each box layer is bent from a cross-shaped blank, corners welded, with a bent lid."
+            : method === "rolled"
+              ? "Each layer is rolled and seam-welded, with a welded bottom disc and a slip-on lid disc."
+              : "Each layer is deep-drawn from a disc, with a slip-on lid."}{" "}
+          Change it under “How it is made” in the design.
+        </p>
         {fetching && (
           <span className="flex items-center gap-2 text-meta text-flux-600" aria-live="polite">
             <Spinner /> Working out the blanks…
           </span>
         )}
       </div>
+      {manyDraws !== null && (
+        <StatusNote tone="caution" word="Many draws">
+          A drawn can needs {manyDraws} draws here, with process anneals between them; rolled and seam-welded is usually cheaper for a can this deep.
+        </StatusNote>
+      )}
 
       <ol className="space-y-3" aria-label="Parts, one per layer" data-testid="make-parts">
         {requests.map((b, i) => {
@@ -221,7 +213,7 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
       )}
       <p className="text-meta text-flux-600">
         Blank sizes, masses and prices are estimates from the shop's formulas and current price list; the quote and the drawings checked by the shop are the ones that count.
-        {cylinder && request.ends === "open" ? " The can is priced with its closed end(s) as made; an open-ended tube is quoted on request." : ""}
+        {request.shape === "cylinder" && request.ends === "open" ? " The can is priced with its closed end(s) as made; an open-ended tube is quoted on request." : ""}
       </p>
     </div>
   );

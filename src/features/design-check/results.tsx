@@ -24,29 +24,47 @@ export function marginWord(l: Pick<LayerResult, "saturation_T" | "saturationMarg
   return { word: "ample", tone: "ok" };
 }
 
+const db = (figure: { attenuation_db: number; beyondLimit: boolean }) => (figure.beyondLimit ? `over ${figure.attenuation_db.toFixed(0)} dB` : `${figure.attenuation_db.toFixed(1)} dB`);
+
+/** The built figure as the headline with its likely range; the seamless shell beside it, smaller, and one sentence on the difference. */
 export function Headline({ result, frequency }: { result: PredictionResult; frequency: number }) {
-  const { band } = result;
+  const { band, ideal, asBuilt } = result;
   return (
-    <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3" aria-live="polite">
-      <div>
-        <p className="text-meta text-flux-600">Attenuation at {frequency === 0 ? "DC (static)" : `${fmt(frequency, 4)} Hz`}</p>
-        <p className="font-display text-h1 text-flux-950" data-testid="attenuation-db">
-          {result.attenuation_db.toFixed(1)} dB
-        </p>
+    <div className="space-y-3" aria-live="polite">
+      <div className="grid items-end gap-x-8 gap-y-4 sm:grid-cols-2 lg:grid-cols-[auto_auto_1fr]">
+        <div>
+          <p className="text-meta text-flux-600">Attenuation at {frequency === 0 ? "DC (static)" : `${fmt(frequency, 4)} Hz`}, as built</p>
+          <p className="font-display text-h1 text-flux-950" data-testid="attenuation-db">
+            {db(result)}
+          </p>
+          <p className="text-meta text-flux-700" data-testid="band">
+            likely {band.low_db.toFixed(0)}–{band.high_db.toFixed(0)} dB
+          </p>
+        </div>
+        <div>
+          <p className="text-meta text-flux-600">Shielding factor (outside ÷ inside)</p>
+          <p className="font-display text-h3 text-flux-950" data-testid="shielding-factor">
+            {formatFactor(result.shieldingFactor)}
+          </p>
+        </div>
+        <div className="border-l-2 border-nickel-300 pl-4" data-testid="ideal">
+          <p className="text-meta text-flux-600">Seamless shell (ideal)</p>
+          <p className="font-display text-h4 text-flux-700" data-testid="ideal-db">
+            {db(ideal)}
+          </p>
+        </div>
       </div>
-      <div>
-        <p className="text-meta text-flux-600">Shielding factor (outside ÷ inside)</p>
-        <p className="font-display text-h2 text-flux-950" data-testid="shielding-factor">
-          {formatFactor(result.shieldingFactor)}
-        </p>
-      </div>
-      <div>
-        <p className="text-meta text-flux-600">Likely range once built</p>
-        <p className="font-display text-h3 text-flux-900" data-testid="band">
-          {band.low_db.toFixed(0)}–{band.high_db.toFixed(0)} dB
-        </p>
-        <p className="text-meta text-flux-600">Real shields fall short of the formulas (seams, lids, handling).</p>
-      </div>
+      {result.warnings.some((w) => w.code === "SATURATED") && (
+        <StatusNote tone="danger" word="Saturates">
+          A wall saturates in this field, so the figures above do not hold: see the warnings below.
+        </StatusNote>
+      )}
+      <p className="text-flux-800" data-testid="as-built-summary">
+        {asBuilt.summary}
+      </p>
+      <p className="text-meta text-flux-600">
+        The figures hold for a field {result.fieldDirection}. They are engineering estimates, not a guarantee: the measured values on the lot's certificate rule, and safety-critical uses need your own qualified review.
+      </p>
     </div>
   );
 }
@@ -80,9 +98,10 @@ export function LayerBars({ result, materialName }: { result: PredictionResult; 
               </div>
             )}
             <p className="text-meta text-flux-600">
-              Wall flux {tesla(l.wallFluxDensity_T)}
+              {l.skinDepth_mm != null ? "Peak wall flux (outer face) " : "Wall flux "}
+              {tesla(l.wallFluxDensity_T)}
               {l.saturation_T != null ? ` of ${l.saturation_T} T saturation` : ""} · μr used {Math.round(l.mu_r).toLocaleString("en-GB")} (
-              {l.muSource === "explicit" ? "as you gave it" : "from the alloy's μ(B) curve at this flux"}
+              {l.muReason}
               {l.skinDepth_mm != null ? `) · skin depth ${fmt(l.skinDepth_mm, 3)} mm` : ")"}
             </p>
           </li>
@@ -143,9 +162,9 @@ export function HoleTable({ result }: { result: PredictionResult }) {
       </ScrollX>
       <p className="text-meta text-flux-600" data-testid="hole-summary">
         {lost >= 0.05
-          ? `The walls alone give about ${result.wallAttenuation_db.toFixed(1)} dB; leakage through the holes takes that to ${result.attenuation_db.toFixed(1)} dB, the figure above.`
+          ? `The built walls alone give about ${result.wallAttenuation_db.toFixed(1)} dB; leakage through the holes takes that to ${result.attenuation_db.toFixed(1)} dB, the figure above.`
           : `The holes cost less than 0.1 dB here: the walls decide the figure above.`}{" "}
-        Collar figures take the weak case, the field along the collar; needed lengths aim at the walls' figure (at most 200 dB). Estimates, like every figure here.
+        Collar figures take the weak direction of the field; needed lengths aim at the built walls' figure. Estimates, like every figure here.
       </p>
     </div>
   );

@@ -2,6 +2,7 @@ import { useEffect, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { useSearchParams } from "react-router-dom";
 import { PRESS_WORK_CAUTION, suggestKFactor } from "../../../shared/fabrication";
+import { DEFAULT_CORNER_RADIUS_MM, DEFAULT_SEAM_OVERLAP_MM, DEFAULT_TRIM_MM, defaultBendRadius_mm } from "../../../shared/construction-defaults";
 import type { BlankRequest } from "../../../shared/schemas/blank";
 import { meQueryOptions } from "../../api/auth";
 import { flatBlankPrefillKeys } from "../../config/paths";
@@ -39,10 +40,13 @@ export interface BlankForm {
 
 type FieldName = Exclude<keyof BlankForm, "kind"> | "kind";
 
-const initial: BlankForm = {
+/** The page's first values: the shop's construction defaults, the same the design check's parts use (K left empty: the typical K for the radius). */
+export const initialBlankForm: BlankForm = {
   kind: "box-bent", width: "80", depth: "60", height: "40", diameter: "50", length: "60", thickness: "1",
-  bendRadius: "1.5", kFactor: "", cornerRadius: "3", trim: "0", seamOverlap: "6", material: "ni80",
+  bendRadius: String(defaultBendRadius_mm(1)), kFactor: "", cornerRadius: String(DEFAULT_CORNER_RADIUS_MM), trim: String(DEFAULT_TRIM_MM),
+  seamOverlap: String(DEFAULT_SEAM_OVERLAP_MM), material: "ni80",
 };
+const initial = initialBlankForm;
 
 const kinds: readonly PartKind[] = ["box-bent", "cylinder-drawn", "cylinder-rolled"];
 
