@@ -41,6 +41,7 @@ node --import tsx server/cli/migrate.ts
 node --import tsx server/cli/seed.ts
 
 node --import tsx fake-services/mail/index.ts & children+=($!)
+node --import tsx fake-services/payments/index.ts & children+=($!)
 node --import tsx server/index.ts & children+=($!)
 
 for _ in $(seq 1 60); do curl -fsS "http://127.0.0.1:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.5; done
@@ -51,6 +52,7 @@ cat <<TEXT
     design check     $APP_URL/design-check
     flat blank       $APP_URL/flat-blank
     mail inbox       http://127.0.0.1:$MAIL_WEB_PORT   (every mail the app sends lands here)
+    payments         http://127.0.0.1:$PAYMENTS_PORT   (local stand-in: no money moves)
     database         postgres://postgres@127.0.0.1:$PGPORT/fluxwright
 
   Demo sign-ins (password: ${DEMO_PASSWORD:-fluxwright-demo})

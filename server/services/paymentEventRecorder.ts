@@ -1,0 +1,124 @@
+import { QueryTypes, type Transaction } from "sequelize";
+import { z } from "zod";
+import { documentNumber } from "../../shared/schemas/documents";
+import type { Mailer } from "../jobs/mailer";
+import { CheckoutSession, Order, Payment, Quote, User, WebhookEvent, recordEvent } from "../models";
+import { invoiceIssuer } from "./invoiceIssuer";
+import { paymentReceivedMail } from "./mail-texts";
+
+/** What the app reads of a payment-service event; the rest is kept as it came. */
+export const paymentEventSchema = z.object({
+  id: z.string().min(1).max(255),
+  type: z.string().min(1).max(100),
+  data: z.object({ object: z.record(z.string(), z.unknown()) }),
+});
+export type PaymentEvent = z.infer<typeof paymentEventSchema>;
+
+const sessionObject = z.object({
+  id: z.string(),
+  amount_total: z.number().int().nullable().optional(),
+  currency: z.string().nullable().optional(),
+  payment_status: z.string().optional(),
+  payment_intent: z.union([z.string(), z.object({ id: z.string() })]).nullable().optional(),
+});
+const intentObject = z.object({
+  id: z.string(),
+  metadata: z.record(z.string(), z.string()).optional(),
+  last_payment_error: z.object({ message: z.string().optional() }).nullable().optional(),
+});
+
+export type PaymentEventOutcome =
+  | "duplicate" | "processed" | "ignored" | "not_paid" | "unknown_session" | "unknown_order" | "amount_mismatch" | "order_not_payable";
+
+/**
+ * Records a verified payment-service event once and acts on it, in one transaction: the event id
+ * is inserted first (a replay, even a concurrent one, finds it and changes nothing), then a paid
+ * checkout whose amount and currency match its order marks the order paid, adds the payment and the
+ * invoice, and queues the mail. A mismatch leaves the order unpaid and is kept for the planner.
+ */
+export async function paymentEventRecorder(props: { event: PaymentEvent; mailer: Mailer; appUrl: string; transaction: Transaction; now?: Date }): Promise<PaymentEventOutcome> {
+  const { event, transaction } = props;
+  const handled = ["checkout.session.completed", "checkout.session.async_payment_succeeded", "checkout.session.expired", "payment_intent.payment_failed"];
+  const first = await WebhookEvent.sequelize!.query(
+    `insert into webhook_events (id, type, outcome, payload) values ($1, $2, $3, $4) on conflict (id) do nothing returning id`,
+    { bind: [event.id, event.type, handled.includes(event.type) ? "received" : "ignored", JSON.stringify(event)], type: QueryTypes.SELECT, transaction },
+  );
+  if (first.length === 0) return "duplicate";
+  if (!handled.includes(event.type)) return "ignored";
+
+  const outcome = async (result: PaymentEventOutcome, orderId: string | null = null): Promise<PaymentEventOutcome> => {
+    await WebhookEvent.update({ outcome: result, orderId }, { where: { id: event.id }, transaction });
+    return result;
+  };
+
+  if (event.type === "payment_intent.payment_failed") {
+    const intent = intentObject.safeParse(event.data.object);
+    const orderId = intent.success ? intent.data.metadata?.orderId : undefined;
+    const order = orderId && z.uuid().safeParse(orderId).success ? await Order.findByPk(orderId, { transaction }) : null;
+    if (!order) return outcome("unknown_order");
+    await recordEvent(
+      { actor: null, organizationId: order.organizationId, action: "payment.declined", subject: { type: "order", id: order.id }, data: { eventId: event.id, message: intent.data?.last_payment_error?.message ?? null } },
+      transaction,
+    );
+    return outcome("processed", order.id);
+  }
+
+  const parsed = sessionObject.safeParse(event.data.object);
+  if (!parsed.success) return outcome("ignored");
+  const object = parsed.data;
+  const session = await CheckoutSession.findByPk(object.id, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!session) return outcome("unknown_session");
+  const order = await Order.findByPk(session.orderId, { transaction, lock: transaction.LOCK.UPDATE });
+  if (!order) return outcome("unknown_order");
+
+  if (event.type === "checkout.session.expired") {
+    if (session.status === "open") {
+      session.status = "expired";
+      await session.save({ transaction });
+    }
+    return outcome("processed", order.id);
+  }
+
+  if (object.payment_status !== "paid") return outcome("not_paid", order.id);
+  const received = { received_cents: object.amount_total ?? null, receivedCurrency: object.currency?.toUpperCase() ?? null };
+  const expected = { expected_cents: order.totalCents, expectedCurrency: order.currency };
+  if (received.received_cents !== order.totalCents || received.receivedCurrency !== order.currency) {
+    await recordEvent({ actor: null, organizationId: order.organizationId, action: "payment.mismatch", subject: { type: "order", id: order.id }, data: { eventId: event.id, sessionId: session.id, ...expected, ...received } }, transaction);
+    return outcome("amount_mismatch", order.id);
+  }
+  if (order.status !== "awaiting_payment" || (await Payment.findOne({ where: { checkoutSessionId: session.id, kind: "payment" }, transaction }))) {
+    // money for an order that is paid or cancelled: nothing changes here, the planner sorts it out
+    await recordEvent({ actor: null, organizationId: order.organizationId, action: "payment.unexpected", subject: { type: "order", id: order.id }, data: { eventId: event.id, sessionId: session.id, status: order.status, ...received } }, transaction);
+    return outcome("order_not_payable", order.id);
+  }
+
+  const now = props.now ?? new Date();
+  const intentId = typeof object.payment_intent === "string" ? object.payment_intent : (object.payment_intent?.id ?? null);
+  const payment = await Payment.create(
+    { orderId: order.id, kind: "payment", status: "succeeded", amountCents: order.totalCents, currency: order.currency, providerReference: intentId, checkoutSessionId: session.id, reason: null, createdById: null, createdAt: now },
+    { transaction },
+  );
+  session.status = "complete";
+  await session.save({ transaction });
+  order.status = "paid";
+  order.paidAt = now;
+  await order.save({ transaction });
+  const invoice = await invoiceIssuer({ order, payment, transaction, now });
+  await recordEvent(
+    { actor: null, organizationId: order.organizationId, action: "order.paid", subject: { type: "order", id: order.id }, data: { eventId: event.id, paymentId: payment.id, amount_cents: payment.amountCents, currency: payment.currency, invoiceNumber: invoice.number } },
+    transaction,
+  );
+  const buyer = order.createdById ? await User.findByPk(order.createdById, { transaction }) : null;
+  const quote = await Quote.findByPk(order.quoteId, { transaction, attributes: ["id", "leadTimeWorkingDays"] });
+  if (buyer) {
+    await props.mailer.enqueue(
+      paymentReceivedMail({
+        to: buyer.email, name: buyer.name, orderNumber: documentNumber("order", order.number), link: `${props.appUrl}/orders/${order.id}`,
+        amount_cents: payment.amountCents, currency: payment.currency, invoiceNumber: documentNumber("invoice", invoice.number), invoiceId: invoice.id,
+        leadTime_workingDays: quote?.leadTimeWorkingDays ?? 0,
+      }),
+      transaction,
+    );
+  }
+  return outcome("processed", order.id);
+}
