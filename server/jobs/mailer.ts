@@ -83,7 +83,8 @@ export function createMailer(opts: {
     async idle(timeoutMs = 20_000) {
       await Promise.all([...inserting]);
       const until = Date.now() + timeoutMs;
-      while (Date.now() < until && (await queue.pending([MAIL_QUEUE])) > 0) await new Promise((r) => setTimeout(r, 50));
+      const busy = () => Promise.race([queue.pending([MAIL_QUEUE]), new Promise<number>((r) => setTimeout(() => r(1), Math.max(0, until - Date.now())))]).catch(() => 0);
+      while (Date.now() < until && (await busy()) > 0) await new Promise((r) => setTimeout(r, 50));
     },
   };
 }

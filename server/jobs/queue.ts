@@ -49,13 +49,29 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
   boss.on("error", (err) => logger.warn({ err }, "job queue error"));
   const name = (base: string) => `${config.JOB_QUEUE_PREFIX}${base}`;
   const workers = new Map<string, string[]>();
-  let stopped = false;
 
+  // Started in the background and retried while the database is away: requests that queue a job
+  // need the database anyway, so they wait for `ready` like they would for their transaction.
+  let stopped = false;
+  let interruptWait = () => {};
   const ready = (async () => {
-    await boss.start();
-    for (const q of props.queues) await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+    for (let attempt = 0; ; attempt++) {
+      if (stopped) throw new Error("the job queue was stopped before it started");
+      try {
+        await boss.start();
+        for (const q of props.queues) await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+        return;
+      } catch (err) {
+        if (attempt === 0) logger.error({ err }, "the job queue could not start; retrying every 5 s");
+        await boss.stop({ graceful: false, wait: true, timeout: 1000 }).catch(() => {});
+        await new Promise<void>((r) => {
+          const t = setTimeout(r, 5000);
+          interruptWait = () => (clearTimeout(t), r());
+        });
+      }
+    }
   })();
-  ready.catch((err) => logger.error({ err }, "the job queue did not start"));
+  ready.catch(() => {});
 
   const wake = (base: string) => {
     for (const id of workers.get(base) ?? []) boss.notifyWorker(id);
@@ -96,7 +112,8 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
     async stop() {
       if (stopped) return;
       stopped = true;
-      await ready.catch(() => {});
+      interruptWait();
+      if (!(await ready.then(() => true, () => false))) return;
       await boss.stop({ graceful: true, wait: true, timeout: 5000 }).catch((err) => logger.warn({ err }, "job queue stop"));
     },
   };

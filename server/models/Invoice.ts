@@ -1,10 +1,11 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, literal, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
 import { centsColumn } from "./money";
 
 /** The invoice of a paid order, numbered when the payment arrived. */
 export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttributes<Invoice>> {
   declare id: CreationOptional<string>;
-  declare number: number;
+  /** from the document sequence, assigned by the insert */
+  declare number: CreationOptional<number>;
   declare orderId: string;
   declare paymentId: string;
   declare amountCents: number;
@@ -15,7 +16,7 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
     Invoice.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        number: { type: DataTypes.INTEGER, allowNull: false, unique: true },
+        number: { type: DataTypes.INTEGER, allowNull: false, unique: true, defaultValue: literal("nextval('invoice_number_seq')") },
         orderId: { type: DataTypes.UUID, allowNull: false, unique: true },
         paymentId: { type: DataTypes.UUID, allowNull: false },
         amountCents: centsColumn("amountCents"),

@@ -1,4 +1,4 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import { DataTypes, Model, literal, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { OrderStatus } from "../../shared/schemas/order";
 import { centsColumn } from "./money";
 import type { Organization } from "./Organization";
@@ -8,7 +8,8 @@ import type { User } from "./User";
 /** A customer's order of one quote; the money is the quote's, copied so the order stands alone. */
 export class Order extends Model<InferAttributes<Order>, InferCreationAttributes<Order>> {
   declare id: CreationOptional<string>;
-  declare number: number;
+  /** from the document sequence, assigned by the insert */
+  declare number: CreationOptional<number>;
   declare organizationId: string;
   declare createdById: string | null;
   declare quoteId: string;
@@ -34,7 +35,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
     Order.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        number: { type: DataTypes.INTEGER, allowNull: false, unique: true },
+        number: { type: DataTypes.INTEGER, allowNull: false, unique: true, defaultValue: literal("nextval('order_number_seq')") },
         organizationId: { type: DataTypes.UUID, allowNull: false },
         createdById: { type: DataTypes.UUID, allowNull: true },
         quoteId: { type: DataTypes.UUID, allowNull: false, unique: true },

@@ -1,4 +1,4 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
+import { DataTypes, Model, literal, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { PriceBuildUp } from "../../shared/fabrication";
 import type { PredictionResult } from "../../shared/physics/predict";
 import type { QuoteBlank, QuoteConfiguration, QuoteStatus } from "../../shared/schemas/quote";
@@ -9,7 +9,8 @@ import type { User } from "./User";
 /** A priced configuration, frozen: nothing but the reminder stamp changes after it is made. */
 export class Quote extends Model<InferAttributes<Quote>, InferCreationAttributes<Quote>> {
   declare id: CreationOptional<string>;
-  declare number: number;
+  /** from the document sequence, assigned by the insert */
+  declare number: CreationOptional<number>;
   declare organizationId: string;
   declare createdById: string | null;
   declare designId: string | null;
@@ -50,7 +51,7 @@ export class Quote extends Model<InferAttributes<Quote>, InferCreationAttributes
     Quote.init(
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
-        number: { type: DataTypes.INTEGER, allowNull: false, unique: true },
+        number: { type: DataTypes.INTEGER, allowNull: false, unique: true, defaultValue: literal("nextval('quote_number_seq')") },
         organizationId: { type: DataTypes.UUID, allowNull: false },
         createdById: { type: DataTypes.UUID, allowNull: true },
         designId: { type: DataTypes.UUID, allowNull: true },

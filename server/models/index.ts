@@ -22,7 +22,6 @@ export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
-export { nextNumber } from "./sequences";
 
 let bound: Sequelize | undefined;
 

@@ -1,7 +1,6 @@
 import { Router } from "express";
 import { Op, fn, col, where as sqlWhere, type WhereOptions } from "sequelize";
 import { designCompareSchema, designCreateSchema, designDuplicateSchema, designListQuerySchema, designUpdateSchema, type DesignComparisonJson } from "../../shared/schemas/design";
-import { priceListSchema } from "../../shared/schemas/pricing";
 import type { AppDeps } from "../deps";
 import { NotFoundError } from "../errors";
 import { containsPattern, parseInput, recordId } from "../middleware/validate";
@@ -13,7 +12,7 @@ import { presentDesign } from "../presenters/design";
 import { designDeleter, designDuplicator, designSaver } from "../services/designSaver";
 import { materialCatalog } from "../services/materialCatalog";
 import { priceAndPredict } from "../services/quoteBuilder";
-import { currentShopRates } from "../services/shopRatesUpdater";
+import { currentPriceList } from "../services/shopRatesUpdater";
 
 const withCreator = { include: [{ model: User, as: "createdBy" }] };
 const sortColumns = { updatedAt: "updatedAt", createdAt: "createdAt", name: "name" } as const;
@@ -66,8 +65,8 @@ export function designsRouter({ sequelize }: AppDeps): Router {
       authorize(actor, "read", designPolicy, d);
       return d;
     });
-    const rates = await currentShopRates();
-    const priceList = priceListSchema.parse(rates.data);
+    const rates = await currentPriceList();
+    const priceList = rates.data;
     const catalog = await materialCatalog();
     const body: DesignComparisonJson = {
       priceListVersion: rates.version,

@@ -114,11 +114,12 @@ export function ordersRouter(deps: AppDeps): Router {
     if (!isStaff(actor)) conditions.push({ organizationId: actor.organizationId });
     if (query.status) conditions.push({ status: query.status });
     if (query.q) {
-      const n = parseDocumentNumber(query.q);
+      const ref = parseDocumentNumber(query.q);
       const text = containsPattern(query.q);
       conditions.push({
         [Op.or]: [
-          ...(n !== null ? [{ number: n }, { "$quote.number$": n }] : []),
+          ...(ref && ref.kind !== "quote" ? [{ number: ref.n }] : []),
+          ...(ref && ref.kind !== "order" ? [{ "$quote.number$": ref.n }] : []),
           { purchaseOrder: { [Op.iLike]: text } },
           ...(isStaff(actor) ? [{ "$organization.name$": { [Op.iLike]: text } }] : []),
         ],

@@ -10,7 +10,7 @@ import { requireUser } from "../middleware/security";
 import { Design, Organization, Quote, User } from "../models";
 import { designPolicy } from "../policies/design";
 import { quotePolicy } from "../policies/quote";
-import { authorize, isStaff, requireRole, type Actor } from "../policies/utils";
+import { authorize, isStaff, requireRole } from "../policies/utils";
 import { presentQuote, presentQuoteSummary } from "../presenters/quote";
 import { quoteBuilder } from "../services/quoteBuilder";
 
@@ -34,9 +34,10 @@ export async function loadQuote(id: unknown, transaction?: Transaction): Promise
   return quote;
 }
 
-async function withRelations(quote: Quote, actor: Actor, transaction?: Transaction): Promise<Quote> {
-  quote.organization = (await Organization.findByPk(quote.organizationId, { transaction })) ?? undefined;
-  quote.createdBy = actor.id === quote.createdById ? (actor as User) : await User.findByPk(quote.createdById ?? "", { transaction });
+/** A new quote's organisation and author for its answer (the signed-in user comes with its organisation). */
+async function withRelations(quote: Quote, actor: User, transaction?: Transaction): Promise<Quote> {
+  quote.organization = actor.organization?.id === quote.organizationId ? actor.organization : ((await Organization.findByPk(quote.organizationId, { transaction })) ?? undefined);
+  quote.createdBy = actor;
   quote.orderId = null;
   return quote;
 }
@@ -72,11 +73,11 @@ export function quotesRouter({ sequelize }: AppDeps): Router {
       conditions.push({ expiresAt: { [query.status === "open" ? Op.gt : Op.lte]: new Date() } });
     }
     if (query.q) {
-      const n = parseDocumentNumber(query.q);
+      const ref = parseDocumentNumber(query.q);
       const text = containsPattern(query.q);
       conditions.push({
         [Op.or]: [
-          ...(n !== null ? [{ number: n }] : []),
+          ...(ref && (ref.kind === null || ref.kind === "quote") ? [{ number: ref.n }] : []),
           ...(isStaff(actor) ? [{ "$organization.name$": { [Op.iLike]: text } }] : []),
           literal(`exists (select 1 from designs d where d.id = "Quote"."design_id" and d.name ilike ${sequelize.escape(text)})`),
         ],

@@ -5,17 +5,17 @@ import { NotFoundError } from "../errors";
 import { parseInput, recordId } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
 import { Organization, ShopSettings, recordEvent } from "../models";
-import { authorize, definePolicy, isAdmin, isOwnOrganization, requireRole } from "../policies/utils";
+import { authorize, definePolicy, isAdmin, isOwnOrganization, isStaff, requireRole } from "../policies/utils";
 
 const presentShop = (s: ShopSettings): ShopSettingsJson => ({
   name: s.name, address: s.address, email: s.email, phone: s.phone, taxId: s.taxId, mailFrom: s.mailFrom, quoteTerms: s.quoteTerms, updatedAt: s.updatedAt.toISOString(),
 });
 const presentOrgSettings = (o: Organization): OrganizationSettingsJson => ({ id: o.id, name: o.name, kind: o.kind, paperSize: o.paperSize });
 
-/** An organisation's own settings: its members and the planner. */
+/** An organisation's own settings: its members change them (and the planner); the shop's staff may read them. */
 const organizationSettingsPolicy = definePolicy<Organization, "read" | "update">({
   name: "organization",
-  see: (actor, org) => isAdmin(actor) || isOwnOrganization(actor, { organizationId: org.id }),
+  see: (actor, org) => isStaff(actor) || isOwnOrganization(actor, { organizationId: org.id }),
   can: { read: () => true, update: (actor, org) => isAdmin(actor) || (actor.role === "customer" && actor.organizationId === org.id) },
 });
 

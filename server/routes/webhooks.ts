@@ -2,7 +2,7 @@ import express, { Router } from "express";
 import Stripe from "stripe";
 import type { AppDeps } from "../deps";
 import { AppError } from "../errors";
-import { paymentEventRecorder, paymentEventSchema } from "../services/paymentEventRecorder";
+import { paymentEventRecorder, paymentEventSchema, paymentEventTriage } from "../services/paymentEventRecorder";
 
 /**
  * Events from the payment service. The signature (Stripe-Signature: t=…,v1=HMAC-SHA256 of
@@ -25,7 +25,9 @@ export function webhooksRouter({ sequelize, config, mailer, logger }: AppDeps): 
     }
     const parsed = paymentEventSchema.safeParse(verified);
     if (!parsed.success) throw new AppError(400, "MALFORMED_EVENT", "The event lacks an id, a type or data.object.");
-    const outcome = await sequelize.transaction((transaction) => paymentEventRecorder({ event: parsed.data, mailer, appUrl: config.appUrl, transaction }));
+    const outcome =
+      (await paymentEventTriage(parsed.data)) ??
+      (await sequelize.transaction((transaction) => paymentEventRecorder({ event: parsed.data, mailer, appUrl: config.appUrl, transaction })));
     if (outcome !== "processed" && outcome !== "duplicate" && outcome !== "ignored") logger.warn({ eventId: parsed.data.id, type: parsed.data.type, outcome }, "payment event needs a look");
     res.json({ received: true, outcome });
   });

@@ -3,7 +3,7 @@ import { documentNumber } from "../../shared/schemas/documents";
 import type { OrderCreateInput } from "../../shared/schemas/order";
 import { AppError, ConflictError } from "../errors";
 import type { Mailer } from "../jobs/mailer";
-import { Order, nextNumber, recordEvent, type Quote } from "../models";
+import { Order, recordEvent, type Quote } from "../models";
 import type { Actor } from "../policies/utils";
 import { orderReceivedMail } from "./mail-texts";
 
@@ -42,10 +42,8 @@ export async function orderPlacer(props: {
     throw ConflictError("QUOTE_ALREADY_ORDERED", `Quote ${documentNumber("quote", quote.number)} has already been ordered.`);
   }
   checkRequestedDate(input.requestedDate, now);
-  const number = await nextNumber("order_number_seq", transaction);
   const order = await Order.create(
     {
-      number,
       organizationId: quote.organizationId,
       createdById: actor.id,
       quoteId: quote.id,
@@ -72,6 +70,7 @@ export async function orderPlacer(props: {
       subject: { type: "order", id: order.id },
       data: { number: order.number, quoteId: quote.id, quoteNumber: quote.number, total_cents: order.totalCents, currency: order.currency },
       ip: props.ip,
+      at: now,
     },
     transaction,
   );

@@ -27,6 +27,36 @@ const intentObject = z.object({
   last_payment_error: z.object({ message: z.string().optional() }).nullable().optional(),
 });
 
+const HANDLED = ["checkout.session.completed", "checkout.session.async_payment_succeeded", "checkout.session.expired", "payment_intent.payment_failed"];
+
+/**
+ * The answer for the events that need no transaction, in one statement: a replay (already
+ * recorded), a type the app does not act on, or a checkout session it never opened are recorded
+ * once and answered. Returns null when the event needs paymentEventRecorder's transaction.
+ */
+export async function paymentEventTriage(event: PaymentEvent): Promise<PaymentEventOutcome | null> {
+  const handled = HANDLED.includes(event.type);
+  const sessionId = event.type.startsWith("checkout.session.") && typeof event.data.object.id === "string" ? event.data.object.id : null;
+  if (handled && sessionId === null) {
+    const seen = await WebhookEvent.count({ where: { id: event.id } });
+    return seen ? "duplicate" : null;
+  }
+  const [row] = await WebhookEvent.sequelize!.query<{ seen: boolean; recorded: string | null }>(
+    `with existing as (select 1 from webhook_events where id = $1),
+          ins as (
+            insert into webhook_events (id, type, outcome, payload)
+            select $1, $2, $3, $4
+            where not exists (select 1 from existing)
+              and ($5 or not exists (select 1 from checkout_sessions where id = $6))
+            on conflict (id) do nothing
+            returning outcome)
+     select exists (select 1 from existing) as seen, (select outcome from ins) as recorded`,
+    { bind: [event.id, event.type, handled ? "unknown_session" : "ignored", JSON.stringify(event), !handled, sessionId ?? ""], type: QueryTypes.SELECT },
+  );
+  if (row.seen) return "duplicate";
+  return (row.recorded as PaymentEventOutcome | null) ?? null;
+}
+
 export type PaymentEventOutcome =
   | "duplicate" | "processed" | "ignored" | "not_paid" | "unknown_session" | "unknown_order" | "amount_mismatch" | "order_not_payable";
 
@@ -38,7 +68,7 @@ export type PaymentEventOutcome =
  */
 export async function paymentEventRecorder(props: { event: PaymentEvent; mailer: Mailer; appUrl: string; transaction: Transaction; now?: Date }): Promise<PaymentEventOutcome> {
   const { event, transaction } = props;
-  const handled = ["checkout.session.completed", "checkout.session.async_payment_succeeded", "checkout.session.expired", "payment_intent.payment_failed"];
+  const handled = HANDLED;
   const first = await WebhookEvent.sequelize!.query(
     `insert into webhook_events (id, type, outcome, payload) values ($1, $2, $3, $4) on conflict (id) do nothing returning id`,
     { bind: [event.id, event.type, handled.includes(event.type) ? "received" : "ignored", JSON.stringify(event)], type: QueryTypes.SELECT, transaction },
@@ -105,7 +135,7 @@ export async function paymentEventRecorder(props: { event: PaymentEvent; mailer:
   await order.save({ transaction });
   const invoice = await invoiceIssuer({ order, payment, transaction, now });
   await recordEvent(
-    { actor: null, organizationId: order.organizationId, action: "order.paid", subject: { type: "order", id: order.id }, data: { eventId: event.id, paymentId: payment.id, amount_cents: payment.amountCents, currency: payment.currency, invoiceNumber: invoice.number } },
+    { actor: null, organizationId: order.organizationId, action: "order.paid", subject: { type: "order", id: order.id }, data: { eventId: event.id, paymentId: payment.id, amount_cents: payment.amountCents, currency: payment.currency, invoiceNumber: invoice.number }, at: now },
     transaction,
   );
   const buyer = order.createdById ? await User.findByPk(order.createdById, { transaction }) : null;

@@ -1,14 +1,14 @@
 import type { Transaction } from "sequelize";
 import type { FabricatedPart, PriceBuildUp } from "../../shared/fabrication";
 import { predictShield, PredictionInputError, type PredictionInput, type PredictionResult } from "../../shared/physics";
-import { priceListSchema, type PriceList } from "../../shared/schemas/pricing";
+import type { PriceList } from "../../shared/schemas/pricing";
 import type { QuoteBlank, QuoteBlankPart, QuoteConfiguration } from "../../shared/schemas/quote";
 import { ValidationError } from "../errors";
-import { Quote, nextNumber, recordEvent } from "../models";
+import { Quote, recordEvent } from "../models";
 import type { Actor } from "../policies/utils";
 import { materialCatalog, type MaterialCatalog } from "./materialCatalog";
 import { designPrice } from "./priceEstimator";
-import { currentShopRates } from "./shopRatesUpdater";
+import { currentPriceList } from "./shopRatesUpdater";
 
 const DAY_MS = 86_400_000;
 
@@ -67,13 +67,11 @@ export async function quoteBuilder(props: {
   const { transaction } = props;
   const now = props.now ?? new Date();
   const catalog = await materialCatalog();
-  const rates = await currentShopRates(transaction);
-  const priceList = priceListSchema.parse(rates.data); // an older version gets today's defaults for fields it lacks
+  const rates = await currentPriceList(transaction);
+  const priceList = rates.data;
   const priced = priceAndPredict({ configuration: props.configuration, quantity: props.quantity, priceList, catalog });
-  const number = await nextNumber("quote_number_seq", transaction);
   const quote = await Quote.create(
     {
-      number,
       organizationId: props.organizationId,
       createdById: props.actor.id,
       designId: props.designId ?? null,
@@ -105,6 +103,7 @@ export async function quoteBuilder(props: {
       subject: { type: "quote", id: quote.id },
       data: { number: quote.number, total_cents: quote.totalCents, currency: quote.currency, priceListVersion: rates.version, designId: quote.designId, requotedFromId: quote.requotedFromId },
       ip: props.ip,
+      at: now,
     },
     transaction,
   );

@@ -39,6 +39,26 @@ export async function currentShopRates(transaction?: Transaction, lock = false):
   return current;
 }
 
+/** Parsed documents by version id: a version never changes, so its parse can be kept. */
+const parsedVersions = new Map<string, PriceList>();
+
+/**
+ * The current version's id, number and parsed document (defaults filled in for fields an older
+ * version lacks). Only the small id row is read per call; the document is parsed once per version.
+ */
+export async function currentPriceList(transaction?: Transaction): Promise<{ id: string; version: number; data: PriceList }> {
+  const head = await PriceListVersion.findOne({ attributes: ["id", "version"], order: [["version", "DESC"]], transaction });
+  if (!head) throw new AppError(503, "SHOP_RATES_MISSING", "No price list has been set up yet; run the demo seed or ask the planner.");
+  let data = parsedVersions.get(head.id);
+  if (!data) {
+    const row = await PriceListVersion.findByPk(head.id, { attributes: ["data"], transaction });
+    data = priceListSchema.parse(row!.data);
+    if (parsedVersions.size > 20) parsedVersions.clear();
+    parsedVersions.set(head.id, data);
+  }
+  return { id: head.id, version: head.version, data };
+}
+
 /**
  * Replaces one part of the current price list by inserting the next version, and records the
  * before/after difference as an event in the same transaction. The current row is locked so two

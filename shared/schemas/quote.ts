@@ -26,21 +26,15 @@ export const quantitySchema = z
 type Known<T> = { [K in keyof T as string extends K ? never : K]: T[K] };
 export type QuoteConfiguration = Known<DesignConfiguration> & PredictionRequest & { requiredAttenuation_db: number };
 
-const designKeys = Object.keys(designConfigurationSchema.shape);
-
-/** Keep what either engine knows (and nothing else a client sent along), so a stored configuration is clean. */
-function clean(value: Record<string, unknown>): QuoteConfiguration {
-  const prediction = predictionRequestSchema.parse(value) as Record<string, unknown>;
-  const out: Record<string, unknown> = {};
-  for (const key of designKeys) if (value[key] !== undefined) out[key] = value[key];
-  Object.assign(out, prediction, { requiredAttenuation_db: value.requiredAttenuation_db });
-  return out as QuoteConfiguration;
-}
-
+/**
+ * Both engines' schemas over the same object, each keeping only the fields it knows (the
+ * fabrication schema is loose on its own; here it strips), so a stored configuration holds nothing
+ * a client sent along.
+ */
 export const quoteConfigurationSchema = z
-  .intersection(designConfigurationSchema, predictionRequestSchema)
+  .intersection(designConfigurationSchema.strip(), predictionRequestSchema)
   .and(z.object({ requiredAttenuation_db: requiredAttenuationSchema }))
-  .transform((v) => clean(v as Record<string, unknown>));
+  .transform((v) => v as QuoteConfiguration);
 
 export type QuoteConfigurationInput = z.input<typeof quoteConfigurationSchema>;
 

@@ -21,7 +21,7 @@ export function testConfig(overrides: Record<string, string> = {}) {
     APP_URL: "http://127.0.0.1:4100",
     RATE_LIMIT_SIGN_IN: "1000",
     PAYMENTS_PORT: String(inject("paymentsPort")),
-    UPLOAD_DIR: path.join(tmpdir(), "fluxwright-test-uploads"),
+    UPLOAD_DIR: path.join(tmpdir(), "fluxwright-test-uploads", randomUUID().slice(0, 8)),
     MAIL_RETRY_DELAY_SECONDS: "1",
     ...overrides,
   });
