@@ -40,6 +40,14 @@ ensure_chromium() {
   fi
 }
 
+# pdftotext and pdfinfo: the tests read the PDFs the app renders with an extractor of their own.
+ensure_poppler() {
+  if ! command -v pdftotext >/dev/null; then
+    log "installing poppler-utils from Debian (PDF checks in the tests)"
+    apt_install poppler-utils
+  fi
+}
+
 # The cluster lives in .data/ of the checkout when the postgres user can reach it, else in a
 # folder of its own under the temporary folder, named after a hash of the checkout path.
 pg_root_for() { # $1 = name (start|test)

@@ -21,7 +21,7 @@ export function drawCrossSection(doc: Doc, c: QuoteConfiguration, x: number, y: 
   let hx = box ? d.width / 2 : d.diameter / 2;
   let hy = box ? d.depth / 2 : d.diameter / 2;
   const rings = c.layers.map((l, i) => {
-    const ring = { hx, hy, t: l.thickness_mm, material: l.material ?? "" };
+    const ring = { hx, hy, t: l.thickness_mm, material: l.material ?? l.pricedAs ?? "" };
     hx += l.thickness_mm + (i < c.layers.length - 1 ? (l.gap_mm ?? 0) : 0);
     hy += l.thickness_mm + (i < c.layers.length - 1 ? (l.gap_mm ?? 0) : 0);
     return ring;

@@ -95,7 +95,9 @@ export async function renderQuotePdf(q: QuoteDocumentData): Promise<Buffer> {
     ],
     q.configuration.layers.map((l, i) => [
       String(i + 1),
-      q.materialNames.get(l.material ?? "") ?? l.material ?? "",
+      l.material
+        ? (q.materialNames.get(l.material) ?? l.material)
+        : `µr ${num(l.mu_r ?? 1, 0)}, ${l.resistivity_ohm_m} Ω·m as given, made in ${q.materialNames.get(l.pricedAs ?? "") ?? l.pricedAs}`,
       `${num(l.thickness_mm, 3)} mm`,
       i < q.configuration.layers.length - 1 ? `${num(l.gap_mm ?? 0, 3)} mm` : "-",
     ]),

@@ -2,7 +2,7 @@ import type { Transaction } from "sequelize";
 import type { FabricatedPart, PriceBuildUp } from "../../shared/fabrication";
 import { predictShield, PredictionInputError, type PredictionInput, type PredictionResult } from "../../shared/physics";
 import type { PriceList } from "../../shared/schemas/pricing";
-import type { QuoteBlank, QuoteBlankPart, QuoteConfiguration } from "../../shared/schemas/quote";
+import { forFabrication, type QuoteBlank, type QuoteBlankPart, type QuoteConfiguration } from "../../shared/schemas/quote";
 import { ValidationError } from "../errors";
 import { Quote, recordEvent } from "../models";
 import type { Actor } from "../policies/utils";
@@ -44,7 +44,7 @@ export interface Priced {
 /** Prediction, blanks and price of a configuration at a quantity: pure, given the catalog and the list. */
 export function priceAndPredict(props: { configuration: QuoteConfiguration; quantity: number; priceList: PriceList; catalog: MaterialCatalog }): Priced {
   const prediction = predictionOf(props.configuration, props.catalog);
-  const { parts, price } = designPrice({ configuration: props.configuration, quantity: props.quantity, priceList: props.priceList });
+  const { parts, price } = designPrice({ configuration: forFabrication(props.configuration), quantity: props.quantity, priceList: props.priceList });
   return { prediction, ...blankOf(parts), price };
 }
 

@@ -2,9 +2,12 @@
  * Quotes: what a customer asks to be priced (POST /api/quotes) and the answers about quotes.
  * A quote's configuration is the prediction body plus the forming method, the blank fields and
  * the attenuation the customer needs; both engines' schemas check it, so a field wrong for either
- * is named, and a configuration that passes can be predicted, blanked and priced.
+ * is named, and a configuration that passes can be predicted, blanked and priced. A layer given by
+ * its own μr and resistivity (as the prediction allows) is made in the closest library alloy,
+ * named in its `pricedAs`.
  */
 import { z } from "zod";
+import { materialLibrary } from "../physics/materials";
 import type { PredictionResult } from "../physics/predict";
 import type { PersonRef } from "./list";
 import { listQuerySchema } from "./list";
@@ -24,7 +27,58 @@ export const quantitySchema = z
 
 /** the named fields of a loose object type, without its index signature */
 type Known<T> = { [K in keyof T as string extends K ? never : K]: T[K] };
-export type QuoteConfiguration = Known<DesignConfiguration> & PredictionRequest & { requiredAttenuation_db: number };
+type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
+
+/**
+ * A layer as the prediction takes it (a library material, or its own μr and resistivity), plus,
+ * for a layer given by its properties, the library alloy it is made and priced in.
+ */
+export type QuoteLayer = PredictionRequest["layers"][number] & { pricedAs?: string };
+export type QuoteConfiguration = Omit<Known<DesignConfiguration>, "layers"> &
+  DistributiveOmit<PredictionRequest, "layers"> & { layers: QuoteLayer[]; requiredAttenuation_db: number };
+
+/**
+ * The library alloy closest to a layer given by its own properties: for a magnetic layer the one
+ * whose saturation (else initial μr) is nearest on a log scale, for a conductor the nearest
+ * resistivity. The shop makes and prices the layer in it; the prediction keeps the given values.
+ */
+export function closestLibraryMaterial(l: { mu_r?: unknown; resistivity_ohm_m?: unknown; saturation_T?: unknown }): string {
+  const num = (x: unknown) => (typeof x === "number" && Number.isFinite(x) && x > 0 ? x : undefined);
+  const mu = num(l.mu_r) ?? 1;
+  const magnetic = mu > 1.5;
+  const candidates = materialLibrary.filter((m) => m.relativePermeability.maximum > 1.5 === magnetic);
+  const gap = (a: number, b: number) => Math.abs(Math.log(a / b));
+  const score = (m: (typeof materialLibrary)[number]) => {
+    if (!magnetic) return gap(m.resistivity_ohm_m, num(l.resistivity_ohm_m) ?? m.resistivity_ohm_m);
+    const sat = num(l.saturation_T);
+    return sat && m.saturation_T ? gap(m.saturation_T, sat) : gap(m.relativePermeability.initial, mu);
+  };
+  return candidates.reduce((best, m) => (score(m) < score(best) ? m : best)).id;
+}
+
+const isRecord = (x: unknown): x is Record<string, unknown> => typeof x === "object" && x !== null && !Array.isArray(x);
+const explicit = (l: Record<string, unknown>) => l.material === undefined && (l.mu_r !== undefined || l.resistivity_ohm_m !== undefined);
+
+/** The fabrication side sees every layer as a library material (its `pricedAs` for a layer given by its properties). */
+function withMakingMaterial(value: unknown): unknown {
+  if (!isRecord(value) || !Array.isArray(value.layers)) return value;
+  return { ...value, layers: value.layers.map((l) => (isRecord(l) && explicit(l) ? { ...l, material: typeof l.pricedAs === "string" ? l.pricedAs : closestLibraryMaterial(l) } : l)) };
+}
+
+/** Back to the prediction's own layer: the making material of a property layer is its `pricedAs`. */
+function separateMakingMaterial(v: Record<string, unknown>): QuoteConfiguration {
+  const layers = (v.layers as Array<Record<string, unknown>>).map((l) => {
+    if (l.mu_r === undefined && l.resistivity_ohm_m === undefined) return l;
+    const { material, ...rest } = l;
+    return { ...rest, pricedAs: material };
+  });
+  return { ...v, layers } as unknown as QuoteConfiguration;
+}
+
+/** The configuration as the fabrication engine reads it: every layer in a library material. */
+export function forFabrication(c: QuoteConfiguration): DesignConfiguration {
+  return { ...c, layers: c.layers.map((l) => ({ material: (l.material ?? l.pricedAs)!, thickness_mm: l.thickness_mm, gap_mm: l.gap_mm })) } as DesignConfiguration;
+}
 
 /**
  * Both engines' schemas over the same object, each keeping only the fields it knows (the
@@ -32,9 +86,9 @@ export type QuoteConfiguration = Known<DesignConfiguration> & PredictionRequest 
  * a client sent along.
  */
 export const quoteConfigurationSchema = z
-  .intersection(designConfigurationSchema.strip(), predictionRequestSchema)
+  .intersection(z.preprocess(withMakingMaterial, designConfigurationSchema.strip()), predictionRequestSchema)
   .and(z.object({ requiredAttenuation_db: requiredAttenuationSchema }))
-  .transform((v) => v as QuoteConfiguration);
+  .transform((v) => separateMakingMaterial(v as Record<string, unknown>));
 
 export type QuoteConfigurationInput = z.input<typeof quoteConfigurationSchema>;
 

@@ -1,6 +1,7 @@
 import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { predictShield } from "../../shared/physics";
+import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 import { Event, Quote } from "../../server/models";
 import { materialCatalog } from "../../server/services/materialCatalog";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
@@ -86,6 +87,17 @@ describe("POST /api/quotes", () => {
     expect(await Event.count({ where: { action: "quote.created", subjectId: q.id, actorId: user.id } })).toBe(1);
     const second = await agent.post("/api/quotes").set("X-CSRF-Token", csrf).send({ configuration: configuration(), quantity: 1 });
     expect(Number(second.body.number.slice(2))).toBeGreaterThan(Number(q.number.slice(2)));
+  });
+
+  it("201 for the contract's prediction body (a library layer and one given by its μr) with a method and the attenuation needed; the frozen prediction is POST /api/predictions' answer", async () => {
+    const { agent, csrf } = await customer();
+    const body = { ...structuredClone(contractPredictionExample), method: "drawn", requiredAttenuation_db: 40 };
+    const res = await agent.post("/api/quotes").set("X-CSRF-Token", csrf).send({ configuration: body, quantity: 1 });
+    expect(res.status).toBe(201);
+    const predicted = await request(app).post("/api/predictions").send(contractPredictionExample);
+    expect(res.body.prediction.attenuation_db).toBe(predicted.body.attenuation_db);
+    expect(res.body.configuration.layers[1]).toMatchObject({ mu_r: 20000, pricedAs: "ni80" });
+    expect(res.body.blank.parts).toHaveLength(2);
   });
 });
 

@@ -1,12 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { defaultPriceList, partsForDesign, priceBuildUp } from "../../shared/fabrication";
-import { quoteConfigurationExample } from "../../shared/schemas/contract-examples";
+import { contractPredictionExample, quoteConfigurationExample } from "../../shared/schemas/contract-examples";
 import { designSummary } from "../../shared/schemas/design";
 import { documentNumber, parseDocumentNumber } from "../../shared/schemas/documents";
 import { orderCreateSchema, refundCreateSchema } from "../../shared/schemas/order";
 import { priceListSchema } from "../../shared/schemas/pricing";
-import { quoteConfigurationSchema, quoteCreateSchema } from "../../shared/schemas/quote";
+import { closestLibraryMaterial, forFabrication, quoteConfigurationSchema, quoteCreateSchema } from "../../shared/schemas/quote";
 import { sellingLines } from "../../server/presenters/quote";
 import { pdfText } from "../../server/documents/pdf";
 
@@ -23,9 +23,22 @@ describe("the quote configuration", () => {
   it("names the fields either engine refuses", () => {
     const r = quoteCreateSchema.safeParse({ configuration: { ...quoteConfigurationExample, method: "bent", layers: [{ material: "ni80", thickness_mm: 30 }], requiredAttenuation_db: -3 }, quantity: 1.5 });
     expect(paths(r)).toEqual(expect.arrayContaining(["configuration.method", "configuration.layers.0.thickness_mm", "configuration.requiredAttenuation_db", "quantity"]));
-    // a sphere cannot be formed here, an explicit-μ layer cannot be priced
+    // a sphere cannot be formed here
     expect(paths(quoteConfigurationSchema.safeParse({ ...quoteConfigurationExample, shape: "sphere", dimensions_mm: { diameter: 40 } }))).toContain("shape");
-    expect(paths(quoteConfigurationSchema.safeParse({ ...quoteConfigurationExample, layers: [{ mu_r: 20000, resistivity_ohm_m: 5.8e-7, thickness_mm: 1 }] }))).toContain("layers.0.material");
+  });
+
+  it("a layer given by its own properties keeps them for the prediction and is made in the closest library alloy", () => {
+    const parsed = quoteConfigurationSchema.parse({ ...contractPredictionExample, method: "drawn", requiredAttenuation_db: 40 });
+    expect(parsed.layers[0]).toEqual({ material: "ni80", thickness_mm: 1, gap_mm: 10 });
+    expect(parsed.layers[1]).toEqual({ mu_r: 20000, resistivity_ohm_m: 5.8e-7, saturation_T: 0.75, thickness_mm: 1, pricedAs: "ni80" });
+    expect(forFabrication(parsed).layers.map((l) => l.material)).toEqual(["ni80", "ni80"]);
+    // the same parsed again (a saved design sent back) stays the same
+    expect(quoteConfigurationSchema.parse(parsed)).toEqual(parsed);
+    expect(closestLibraryMaterial({ mu_r: 8000, saturation_T: 1.5 })).toBe("ni50");
+    expect(closestLibraryMaterial({ mu_r: 300, saturation_T: 2.1 })).toBe("steel-lc");
+    expect(closestLibraryMaterial({ mu_r: 1, resistivity_ohm_m: 2.8e-8 })).toBe("aluminium");
+    expect(closestLibraryMaterial({ mu_r: 1, resistivity_ohm_m: 1.7e-8 })).toBe("copper");
+    expect(paths(quoteConfigurationSchema.safeParse({ ...contractPredictionExample, method: "drawn", requiredAttenuation_db: 40, layers: [{ mu_r: 2000, thickness_mm: 1 }] }))).toContain("layers.0.resistivity_ohm_m");
   });
 
   it("summarises a design in one line", () => {
