@@ -90,6 +90,9 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   // Health first: probes poll it hard, and its tiny JSON answer needs no page-security headers,
   // request log, body parser or session.
   app.use("/api", healthRouter(deps));
+  // The payment service's events, likewise: a machine's JSON, verified on its raw bytes (so before
+  // any body parser), no session, no page-security headers; failures are still logged.
+  app.use("/api", webhooksRouter(deps));
 
   app.use(
     helmet({
@@ -129,7 +132,19 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const PgStore = connectPgSimple(session);
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
-  const store = new PgStore({ pool: sessionPool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  // Every answer moves a session's expiry on (rolling), which costs a write per signed-in request;
+  // once a minute per session is as good for an eight-hour expiry.
+  class ThrottledStore extends PgStore {
+    #touched = new Map<string, number>();
+    override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
+      const now = Date.now();
+      if (now - (this.#touched.get(sid) ?? 0) < 60_000) return void fn?.();
+      if (this.#touched.size > 50_000) this.#touched.clear();
+      this.#touched.set(sid, now);
+      super.touch(sid, sess, fn);
+    }
+  }
+  const store = new ThrottledStore({ pool: sessionPool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
   const sessionMiddleware = session({
     name: "fw.sid",
     secret: config.SESSION_SECRET,
@@ -143,8 +158,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const csrf = createCsrf({ secret: config.SESSION_SECRET, secure });
 
   const api = express.Router();
-  // The payment service's events are verified on their raw bytes: before the JSON parser, no session.
-  api.use(webhooksRouter(deps));
   api.use(express.json({ limit: "200kb" }));
 
   // Public computations and reference data: they change nothing, so they run before the session

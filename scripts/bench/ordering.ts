@@ -30,9 +30,25 @@ async function signIn(base: string): Promise<{ cookie: string; csrf: string }> {
 }
 
 async function quoteLatency(base: string, seconds: number): Promise<BenchRow[]> {
-  const { cookie, csrf } = await signIn(base);
+  // ten customers at once, each with a session of its own (one shared session would make every
+  // request wait on the same session row)
+  const sessions = await Promise.all(Array.from({ length: 10 }, () => signIn(base)));
+  let next = 0;
   const body = JSON.stringify({ configuration: quoteConfigurationExample, quantity: 10 });
-  const opts = { url: `${base}/api/quotes`, method: "POST" as const, connections: 10, headers: { "content-type": "application/json", cookie, "x-csrf-token": csrf }, body };
+  const opts = {
+    url: `${base}/api/quotes`,
+    connections: 10,
+    requests: [
+      {
+        method: "POST" as const,
+        setupRequest: (req: autocannon.Request, context: object) => {
+          const ctx = context as { session?: { cookie: string; csrf: string } };
+          const s = (ctx.session ??= sessions[next++ % sessions.length]);
+          return { ...req, body, headers: { "content-type": "application/json", cookie: s.cookie, "x-csrf-token": s.csrf } };
+        },
+      },
+    ],
+  };
   await autocannon({ ...opts, duration: 1 }); // warm-up
   const result = await autocannon({ ...opts, duration: seconds });
   if (result.non2xx > 0 || result.errors > 0) throw new Error(`quote creation: ${result.non2xx} answers were not 2xx, ${result.errors} errors`);

@@ -7,12 +7,13 @@ import { paymentEventRecorder, paymentEventSchema, paymentEventTriage } from "..
 /**
  * Events from the payment service. The signature (Stripe-Signature: t=…,v1=HMAC-SHA256 of
  * "t.rawbody") is checked on the raw bytes, so this router is mounted before the JSON parser; no
- * session, no CSRF token: the signature is the proof. Only this event marks an order paid,
+ * session, no CSRF token: the signature is the proof (server/app.ts mounts it before the request log). Only this event marks an order paid,
  * never the customer's browser coming back from the checkout page.
  */
 export function webhooksRouter({ sequelize, config, mailer, logger }: AppDeps): Router {
   const router = Router();
   router.post("/webhooks/stripe", express.raw({ type: () => true, limit: "256kb" }), async (req, res) => {
+    req.log = logger; // mounted before the request log: on-error logs through this
     const raw = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
     let verified: unknown;
     try {

@@ -1,6 +1,7 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
 import { documentNumber } from "../../shared/schemas/documents";
+import { batched } from "../db/batcher";
 import type { Mailer } from "../jobs/mailer";
 import { CheckoutSession, Order, Payment, Quote, User, WebhookEvent, recordEvent } from "../models";
 import { invoiceIssuer } from "./invoiceIssuer";
@@ -29,10 +30,46 @@ const intentObject = z.object({
 
 const HANDLED = ["checkout.session.completed", "checkout.session.async_payment_succeeded", "checkout.session.expired", "payment_intent.payment_failed"];
 
+interface TriageItem {
+  id: string;
+  type: string;
+  outcome: string;
+  payload: string;
+  /** record whatever the session (a type the app does not act on) */
+  always: boolean;
+  sessionId: string;
+}
+
 /**
- * The answer for the events that need no transaction, in one statement: a replay (already
- * recorded), a type the app does not act on, or a checkout session it never opened are recorded
- * once and answered. Returns null when the event needs paymentEventRecorder's transaction.
+ * One statement for a batch of events: each is recorded once unless it was seen before, or it
+ * names a checkout session the app knows (those need the transaction). Answers, per event,
+ * whether it was seen and what was recorded.
+ */
+const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null }>(async (items) => {
+  const rows = await WebhookEvent.sequelize!.query<{ id: string; seen: boolean; recorded: string | null }>(
+    `with input as (
+       select * from unnest($1::text[], $2::text[], $3::text[], $4::jsonb[], $5::bool[], $6::text[]) as t(id, type, outcome, payload, always, session_id)),
+     existing as (select w.id from webhook_events w where w.id in (select id from input)),
+     ins as (
+       insert into webhook_events (id, type, outcome, payload)
+       select i.id, i.type, i.outcome, i.payload from input i
+       where i.id not in (select id from existing)
+         and (i.always or not exists (select 1 from checkout_sessions s where s.id = i.session_id))
+       on conflict (id) do nothing
+       returning id, outcome)
+     select i.id, i.id in (select id from existing) as seen, (select outcome from ins where ins.id = i.id limit 1) as recorded from input i`,
+    {
+      bind: [items.map((i) => i.id), items.map((i) => i.type), items.map((i) => i.outcome), items.map((i) => i.payload), items.map((i) => i.always), items.map((i) => i.sessionId)],
+      type: QueryTypes.SELECT,
+    },
+  );
+  return rows.map((r) => ({ seen: r.seen, recorded: r.recorded }));
+});
+
+/**
+ * The answer for the events that need no transaction: a replay (already recorded), a type the app
+ * does not act on, or a checkout session it never opened are recorded once and answered; events
+ * arriving together share one statement. Returns null when the event needs paymentEventRecorder.
  */
 export async function paymentEventTriage(event: PaymentEvent): Promise<PaymentEventOutcome | null> {
   const handled = HANDLED.includes(event.type);
@@ -41,18 +78,7 @@ export async function paymentEventTriage(event: PaymentEvent): Promise<PaymentEv
     const seen = await WebhookEvent.count({ where: { id: event.id } });
     return seen ? "duplicate" : null;
   }
-  const [row] = await WebhookEvent.sequelize!.query<{ seen: boolean; recorded: string | null }>(
-    `with existing as (select 1 from webhook_events where id = $1),
-          ins as (
-            insert into webhook_events (id, type, outcome, payload)
-            select $1, $2, $3, $4
-            where not exists (select 1 from existing)
-              and ($5 or not exists (select 1 from checkout_sessions where id = $6))
-            on conflict (id) do nothing
-            returning outcome)
-     select exists (select 1 from existing) as seen, (select outcome from ins) as recorded`,
-    { bind: [event.id, event.type, handled ? "unknown_session" : "ignored", JSON.stringify(event), !handled, sessionId ?? ""], type: QueryTypes.SELECT },
-  );
+  const row = await triageBatch({ id: event.id, type: event.type, outcome: handled ? "unknown_session" : "ignored", payload: JSON.stringify(event), always: !handled, sessionId: sessionId ?? "" });
   if (row.seen) return "duplicate";
   return (row.recorded as PaymentEventOutcome | null) ?? null;
 }

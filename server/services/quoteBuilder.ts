@@ -1,10 +1,10 @@
-import type { Transaction } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import type { FabricatedPart, PriceBuildUp } from "../../shared/fabrication";
 import { predictShield, PredictionInputError, type PredictionInput, type PredictionResult } from "../../shared/physics";
 import type { PriceList } from "../../shared/schemas/pricing";
 import { forFabrication, type QuoteBlank, type QuoteBlankPart, type QuoteConfiguration } from "../../shared/schemas/quote";
 import { ValidationError } from "../errors";
-import { Quote, recordEvent } from "../models";
+import { Quote } from "../models";
 import type { Actor } from "../policies/utils";
 import { materialCatalog, type MaterialCatalog } from "./materialCatalog";
 import { designPrice } from "./priceEstimator";
@@ -48,10 +48,31 @@ export function priceAndPredict(props: { configuration: QuoteConfiguration; quan
   return { prediction, ...blankOf(parts), price };
 }
 
+// The quote and its event in one statement (atomic on its own, no transaction round trips: quote
+// creation is the customer's most frequent write), and only if the price list it was priced with
+// is still the current one; otherwise nothing is written and the caller prices again.
+const INSERT_QUOTE = `
+with head as (select id, version from price_lists order by version desc limit 1),
+q as (
+  insert into quotes (number, organization_id, created_by_id, design_id, requoted_from_id, configuration, prediction, blank, price,
+    price_list_id, price_list_version, quantity, unit_price_cents, total_cents, currency, mass_kg, lead_time_working_days,
+    validity_days, expires_at, created_at, updated_at)
+  select nextval('quote_number_seq'), $1, $2, $3, $4, $5, $6, $7, $8, head.id, head.version, $9, $10, $11, $12, $13, $14, $15, $16, $17, $17
+  from head where head.id = $18
+  returning id, number, organization_id, design_id, requoted_from_id, total_cents, currency, price_list_version),
+e as (
+  insert into events (actor_id, organization_id, action, subject_type, subject_id, data, ip, created_at)
+  select $2, q.organization_id, $19, 'quote', q.id::text,
+    jsonb_build_object('number', q.number, 'total_cents', q.total_cents, 'currency', q.currency, 'priceListVersion', q.price_list_version,
+      'designId', q.design_id, 'requotedFromId', q.requoted_from_id),
+    $20, $17
+  from q)
+select id, number from q`;
+
 /**
  * Prices a configuration with the current shop rates and freezes it as a quote: the prediction
  * answer, the blanks, the whole build-up with the price-list version it used, quantity, lead time
- * and validity. The number comes from the quote sequence; the event is written in the same transaction.
+ * and validity. The number comes from the quote sequence, the event is written with the quote.
  */
 export async function quoteBuilder(props: {
   actor: Actor;
@@ -61,51 +82,44 @@ export async function quoteBuilder(props: {
   designId?: string | null;
   requotedFromId?: string | null;
   ip: string | null;
-  transaction: Transaction;
+  /** the caller's, when the quote is part of a larger change; alone it needs none */
+  transaction?: Transaction;
   now?: Date;
 }): Promise<Quote> {
   const { transaction } = props;
   const now = props.now ?? new Date();
   const catalog = await materialCatalog();
-  const rates = await currentPriceList(transaction);
-  const priceList = rates.data;
-  const priced = priceAndPredict({ configuration: props.configuration, quantity: props.quantity, priceList, catalog });
-  const quote = await Quote.create(
-    {
-      organizationId: props.organizationId,
-      createdById: props.actor.id,
-      designId: props.designId ?? null,
-      requotedFromId: props.requotedFromId ?? null,
-      configuration: props.configuration,
-      prediction: priced.prediction,
-      blank: priced.blank,
-      price: priced.price,
-      priceListId: rates.id,
-      priceListVersion: rates.version,
-      quantity: props.quantity,
-      unitPriceCents: priced.price.unitPrice_cents,
-      totalCents: priced.price.total_cents,
-      currency: priced.price.currency,
-      massKg: priced.mass_kg,
-      leadTimeWorkingDays: priceList.leadTimeWorkingDays,
-      validityDays: priceList.quoteValidityDays,
-      expiresAt: new Date(now.getTime() + priceList.quoteValidityDays * DAY_MS),
-      createdAt: now,
-      updatedAt: now,
-    },
-    { transaction },
-  );
-  await recordEvent(
-    {
-      actor: props.actor,
-      organizationId: props.organizationId,
-      action: props.requotedFromId ? "quote.requoted" : "quote.created",
-      subject: { type: "quote", id: quote.id },
-      data: { number: quote.number, total_cents: quote.totalCents, currency: quote.currency, priceListVersion: rates.version, designId: quote.designId, requotedFromId: quote.requotedFromId },
-      ip: props.ip,
-      at: now,
-    },
-    transaction,
-  );
-  return quote;
+  for (let attempt = 0; attempt < 3; attempt++) {
+    const rates = await currentPriceList(transaction, { fresh: attempt > 0 });
+    const priceList = rates.data;
+    const priced = priceAndPredict({ configuration: props.configuration, quantity: props.quantity, priceList, catalog });
+    const json = (x: unknown) => JSON.stringify(x);
+    const expiresAt = new Date(now.getTime() + priceList.quoteValidityDays * DAY_MS);
+    const [row] = await Quote.sequelize!.query<{ id: string; number: number }>(INSERT_QUOTE, {
+      bind: [
+        props.organizationId, props.actor.id, props.designId ?? null, props.requotedFromId ?? null,
+        json(props.configuration), json(priced.prediction), json(priced.blank), json(priced.price),
+        props.quantity, priced.price.unitPrice_cents, priced.price.total_cents, priced.price.currency, priced.mass_kg,
+        priceList.leadTimeWorkingDays, priceList.quoteValidityDays, expiresAt, now,
+        rates.id, props.requotedFromId ? "quote.requoted" : "quote.created", props.ip,
+      ],
+      type: QueryTypes.SELECT,
+      transaction,
+    });
+    // the row as written, from what was sent (the answers need not travel back and be parsed again)
+    if (row)
+      return Quote.build(
+        {
+          id: row.id, number: row.number, organizationId: props.organizationId, createdById: props.actor.id, designId: props.designId ?? null,
+          requotedFromId: props.requotedFromId ?? null, configuration: props.configuration, prediction: priced.prediction, blank: priced.blank,
+          price: priced.price, priceListId: rates.id, priceListVersion: rates.version, quantity: props.quantity,
+          unitPriceCents: priced.price.unitPrice_cents, totalCents: priced.price.total_cents, currency: priced.price.currency, massKg: priced.mass_kg,
+          leadTimeWorkingDays: priceList.leadTimeWorkingDays, validityDays: priceList.quoteValidityDays, expiresAt, expiryReminderSentAt: null,
+          createdAt: now, updatedAt: now,
+        },
+        { isNewRecord: false, raw: true }, // raw: the timestamps are set as they are, not as on a new record
+      );
+    // the planner saved new rates meanwhile: price again with them
+  }
+  throw new Error("the price list kept changing while a quote was priced");
 }

@@ -2,7 +2,7 @@ import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { predictShield } from "../../shared/physics";
 import { contractPredictionExample } from "../../shared/schemas/contract-examples";
-import { Event, Quote } from "../../server/models";
+import { Event, PriceListVersion, Quote } from "../../server/models";
 import { materialCatalog } from "../../server/services/materialCatalog";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
 import { binary, buildQuote, configuration, ensureReferenceData, pdfPageSize, pdfText } from "../support/ordering";
@@ -98,6 +98,18 @@ describe("POST /api/quotes", () => {
     expect(res.body.prediction.attenuation_db).toBe(predicted.body.attenuation_db);
     expect(res.body.configuration.layers[1]).toMatchObject({ mu_r: 20000, pricedAs: "ni80" });
     expect(res.body.blank.parts).toHaveLength(2);
+  });
+
+  it("a price list saved by another process a moment ago is the one the quote uses (the insert checks, then prices again)", async () => {
+    const { agent, csrf } = await customer();
+    const first = await agent.post("/api/quotes").set("X-CSRF-Token", csrf).send({ configuration: configuration(), quantity: 1 });
+    // as another app process would save it: not through this process, so its remembered head is stale
+    const head = (await PriceListVersion.findOne({ order: [["version", "DESC"]] }))!;
+    const next = await PriceListVersion.create({ version: head.version + 1, part: "price-list", data: head.data, createdById: null });
+    const second = await agent.post("/api/quotes").set("X-CSRF-Token", csrf).send({ configuration: configuration(), quantity: 1 });
+    expect(second.status).toBe(201);
+    expect(second.body.priceListVersion).toBeGreaterThanOrEqual(next.version);
+    expect(second.body.priceListVersion).toBeGreaterThan(first.body.priceListVersion);
   });
 });
 
