@@ -72,6 +72,9 @@ describe("reading, renaming, duplicating and deleting designs", () => {
     expect(copy.body.configuration).toEqual(res.body.configuration ?? copy.body.configuration);
     res = await agent.get("/api/designs?q=alpha&sort=name&dir=asc");
     expect(res.body.items.map((d: { name: string }) => d.name)).toEqual(["Alpha can, thicker", "Alpha can, thicker (copy)"]);
+    res = await agent.get("/api/designs?sort=colour&pageSize=0");
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(["pageSize", "sort"]);
     res = await agent.get("/api/designs?q=100%25");
     expect(res.body.items).toEqual([]);
     res = await agent.get("/api/designs?pageSize=2&page=2&sort=name&dir=asc");
@@ -96,6 +99,8 @@ describe("POST /api/designs/compare", () => {
     const foreign = await save(other.agent, other.csrf, "Not yours");
     res = await agent.post("/api/designs/compare").set("X-CSRF-Token", csrf).send({ ids: [one.id, foreign.id] });
     expect(res.status).toBe(404);
+    const operator = await signIn(app, await buildUser({ role: "operator" }));
+    expect((await operator.agent.post("/api/designs/compare").set("X-CSRF-Token", operator.csrf).send({ ids: [one.id] })).status).toBe(403);
     res = await agent.post("/api/designs/compare").set("X-CSRF-Token", csrf).send({ ids: [one.id, two.id], quantity: 5 });
     expect(res.status).toBe(200);
     const [a, b] = res.body.items;

@@ -146,9 +146,14 @@ describe("PATCH /api/orders/:id and POST /api/orders/:id/cancel", () => {
     expect((await agent.post(`/api/orders/${paid.id}/cancel`).set("X-CSRF-Token", csrf)).status).toBe(409);
   });
 
-  it("cancelling an order awaiting payment: it can no longer be paid", async () => {
+  it("cancelling an order awaiting payment: 401, 404 across organisations, 403 for an operator; then it can no longer be paid", async () => {
     const { user, agent, csrf } = await customer();
     const order = await buildOrder(app, user);
+    expect((await request(app).post(`/api/orders/${order.id}/cancel`)).status).toBe(401);
+    const stranger = await customer();
+    expect((await stranger.agent.post(`/api/orders/${order.id}/cancel`).set("X-CSRF-Token", stranger.csrf)).status).toBe(404);
+    const operator = await staff("operator");
+    expect((await operator.agent.post(`/api/orders/${order.id}/cancel`).set("X-CSRF-Token", operator.csrf)).status).toBe(403);
     const first = await agent.post(`/api/orders/${order.id}/checkout`).set("X-CSRF-Token", csrf);
     expect(first.status).toBe(200);
     const res = await agent.post(`/api/orders/${order.id}/cancel`).set("X-CSRF-Token", csrf);
