@@ -85,6 +85,16 @@ describe("mail through the job queue", () => {
 });
 
 describe("quote expiry reminders", () => {
+  it("are scheduled hourly on the job queue when the process runs the schedules", async () => {
+    const scheduled = buildTestApp({ JOB_SCHEDULES: "1", JOB_QUEUE_PREFIX: `r${randomUUID().slice(0, 8)}-` });
+    const name = scheduled.locals.deps.jobs.name("quote-expiry-reminders");
+    const rows = await waitFor(async () => {
+      const [r] = await app.locals.deps.sequelize.query(`select cron from ${JOB_SCHEMA}.schedule where name = $1`, { bind: [name] });
+      return (r as Array<{ cron: string }>).length ? (r as Array<{ cron: string }>) : null;
+    }, 10_000, "the schedule");
+    expect(rows[0].cron).toBe("17 * * * *");
+  });
+
   it("quotes expiring within three days get one reminder each; ordered and later ones none", async () => {
     const { mailer, config, sequelize } = app.locals.deps;
     const day = 86_400_000;
