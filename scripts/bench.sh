@@ -13,5 +13,5 @@ pg_createdb "$port" fluxwright_bench
 export DATABASE_URL="postgres://postgres@127.0.0.1:$port/fluxwright_bench" NODE_ENV=production RATE_LIMIT_PUBLIC=0 LOG_LEVEL=silent
 node --import tsx server/cli/migrate.ts >/dev/null
 node --import tsx server/cli/seed.ts >/dev/null
-npx vite build --logLevel warn
+tool vite build --logLevel warn
 node --import tsx scripts/bench/run.ts "$@"

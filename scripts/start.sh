@@ -1,12 +1,17 @@
 #!/usr/bin/env bash
-# `npm start`: everything a fresh clone needs, then the app on http://127.0.0.1:$PORT.
-# Ctrl-C stops what this script started (the database server included); data stays in the cluster.
+# `npm start`: everything a fresh clone needs, then the app on http://127.0.0.1:$PORT, in the shape
+# of a deployment: the client bundle in dist/, the server compiled to build/ and run by plain node
+# with NODE_ENV=production (set for that process only). Ctrl-C stops every process this script
+# started, the database server included; data stays in the cluster. Run again, it reuses what exists.
+# The stand-ins it runs beside the app: STAND_INS in scripts/lib/common.sh.
 source "$(dirname "$0")/lib/common.sh"
 
 export PORT=${PORT:-4100} PGPORT=${PGPORT:-54329} SMTP_PORT=${SMTP_PORT:-4125} MAIL_WEB_PORT=${MAIL_WEB_PORT:-4126}
 export PAYMENTS_PORT=${PAYMENTS_PORT:-4110}
-export NODE_ENV=${NODE_ENV:-production}
 export APP_URL=${APP_URL:-http://127.0.0.1:$PORT}
+# Whatever the caller's NODE_ENV says, npm installs every dependency and the tools run with their
+# defaults; only the server process gets NODE_ENV=production, below.
+unset NODE_ENV
 
 ensure_node_modules
 ensure_postgres_binaries
@@ -14,14 +19,19 @@ ensure_postgres_binaries
 PGROOT=$(pg_root_for "start-$PGPORT")
 started_pg=0
 children=()
+stopping=0
 cleanup() {
-  trap - INT TERM EXIT
+  [ $stopping = 1 ] && return
+  stopping=1
+  # A second Ctrl-C (or npm passing the first one on) must not cut the clean-up short.
+  trap '' INT TERM
   log "stopping"
   for pid in "${children[@]}"; do kill -TERM "$pid" 2>/dev/null || true; done
-  wait 2>/dev/null || true
+  wait "${children[@]}" 2>/dev/null || true
   if [ $started_pg = 1 ]; then pg_stop "$PGROOT"; log "PostgreSQL stopped (data kept in $PGROOT/data)"; fi
 }
-trap cleanup INT TERM EXIT
+trap 'cleanup; exit 130' INT TERM
+trap cleanup EXIT
 
 if ! runuser -u postgres -- "$(pg_bin)/pg_ctl" -D "$PGROOT/data" status >/dev/null 2>&1; then started_pg=1; fi
 pg_start "$PGROOT" "$PGPORT"
@@ -34,17 +44,30 @@ if [ -z "${SESSION_SECRET:-}" ]; then
 fi
 
 cd "$ROOT"
-log "building the client"
-npx vite build --logLevel warn
+if build_is_current; then
+  log "client and server builds are up to date (build skipped)"
+else
+  log "building the client (dist/) and the server (build/)"
+  build_all
+fi
 log "migrating the database"
-node --import tsx server/cli/migrate.ts
-node --import tsx server/cli/seed.ts
+node build/server/cli/migrate.js
+node build/server/cli/seed.js
 
-node --import tsx fake-services/mail/index.ts & children+=($!)
-node --import tsx fake-services/payments/index.ts & children+=($!)
-node --import tsx server/index.ts & children+=($!)
+for program in "${STAND_INS[@]}"; do
+  node --import tsx "$program" & children+=($!)
+done
+NODE_ENV=production node build/server/index.js & children+=($!)
 
-for _ in $(seq 1 60); do curl -fsS "http://127.0.0.1:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.5; done
+healthy=0
+for _ in $(seq 1 60); do
+  if curl -fsS "http://127.0.0.1:$PORT/api/health" 2>/dev/null | grep -q '"database":"up"'; then healthy=1; break; fi
+  sleep 0.5
+done
+if [ $healthy = 0 ]; then
+  log "the app did not answer on http://127.0.0.1:$PORT/api/health within 30 s; see the messages above"
+  exit 1
+fi
 cat <<TEXT
 
   Fluxwright is running.
@@ -64,4 +87,5 @@ cat <<TEXT
 
   Ctrl-C stops everything this command started.
 TEXT
+# Ends when any of them stops; the trap then stops the rest.
 wait -n "${children[@]}"

@@ -1,8 +1,9 @@
-// Prints the closing line of `npm test` from vitest's JSON report; the type check and the
-// client build count as one test each, so a broken build is never hidden behind green tests.
+// Prints the closing line of `npm test` from vitest's JSON report; the lint, the type check and the
+// builds count as one test each, so a broken build is never hidden behind green tests.
+// Usage: node scripts/test-summary.mjs REPORT.json LINT_RC TSC_RC BUILD_RC
 import { existsSync, readFileSync } from "node:fs";
 
-const [file, tscRc, buildRc] = process.argv.slice(2);
+const [file, ...stepRcs] = process.argv.slice(2);
 let passed = 0, failed = 0, skipped = 0;
 if (existsSync(file)) {
   const r = JSON.parse(readFileSync(file, "utf8"));
@@ -12,6 +13,6 @@ if (existsSync(file)) {
 } else {
   failed += 1; // vitest did not even report
 }
-for (const rc of [tscRc, buildRc]) Number(rc) === 0 ? passed++ : failed++;
+for (const rc of stepRcs) Number(rc) === 0 ? passed++ : failed++;
 console.log(`${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ""}`);
 process.exit(failed ? 1 : 0);

@@ -6,6 +6,7 @@ cd "$ROOT"
 export NODE_ENV=test CI=${CI:-}
 
 ensure_node_modules
+ensure_lint_modules
 ensure_postgres_binaries
 ensure_chromium
 ensure_poppler
@@ -23,15 +24,18 @@ export DATABASE_URL="postgres://postgres@127.0.0.1:$port/fluxwright_test"
 
 mkdir -p .test-results
 rm -f .test-results/vitest.json
+log "linting"
+lint_rc=0
+bash scripts/lint.sh || lint_rc=$?
 log "type-checking"
 tsc_rc=0
-npx tsc -p tsconfig.json || tsc_rc=$?
-log "building the client"
+tool tsc -p tsconfig.json || tsc_rc=$?
+log "building the client and the server"
 build_rc=0
-npx vite build --logLevel warn || build_rc=$?
+build_all || build_rc=$?
 
 rc=0
-npx vitest run --reporter=default --reporter=json --outputFile.json=.test-results/vitest.json "$@" || rc=$?
-node scripts/test-summary.mjs .test-results/vitest.json "$tsc_rc" "$build_rc" || rc=1
-[ $tsc_rc = 0 ] && [ $build_rc = 0 ] || rc=1
+tool vitest run --reporter=default --reporter=json --outputFile.json=.test-results/vitest.json "$@" || rc=$?
+node scripts/test-summary.mjs .test-results/vitest.json "$lint_rc" "$tsc_rc" "$build_rc" || rc=1
+[ $lint_rc = 0 ] && [ $tsc_rc = 0 ] && [ $build_rc = 0 ] || rc=1
 exit $rc

@@ -5,12 +5,12 @@ import session from "express-session";
 import helmet from "helmet";
 import { existsSync } from "node:fs";
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import pg from "pg";
 import pino, { type Logger } from "pino";
 import { pinoHttp } from "pino-http";
 import type { Sequelize } from "sequelize";
 import { createPassport } from "./auth/passport";
+import { projectRoot } from "./project-root";
 import { loadConfig, type Config } from "./config";
 import { getSequelize } from "./db/sequelize";
 import type { AppDeps } from "./deps";
@@ -38,7 +38,7 @@ import { priceEstimatesRouter } from "./routes/price-estimates";
 import { shopRatesRouter } from "./routes/shop-rates";
 import { usersRouter } from "./routes/users";
 
-const distDir = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../dist");
+const distDir = path.join(projectRoot, "dist");
 
 export interface CreateAppOptions {
   config?: Config;

@@ -1,8 +1,7 @@
 import path from "node:path";
-import { fileURLToPath } from "node:url";
 import { z } from "zod";
+import { projectRoot } from "./project-root";
 
-const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const flag = z.enum(["0", "1", "true", "false"]).transform((v) => v === "1" || v === "true");
 
 // Every setting the server reads, parsed once. Defaults suit a developer's machine;
@@ -27,7 +26,7 @@ const envSchema = z.object({
   STRIPE_SECRET_KEY: z.string().min(8).default("sk_test_fluxwright_local"),
   STRIPE_WEBHOOK_SECRET: z.string().min(8).default("whsec_fluxwright_local"),
   /** uploaded drawings live here, outside the built client (the web root) */
-  UPLOAD_DIR: z.string().default(path.join(root, ".data", "uploads")),
+  UPLOAD_DIR: z.string().default(path.join(projectRoot, ".data", "uploads")),
   /** first retry of a failed mail after this many seconds, doubling each time */
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(10),
   /** prefix of the job queues' names (tests give an app a queue of its own) */

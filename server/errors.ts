@@ -21,4 +21,5 @@ export const AuthenticationError = (message = "Sign in to continue.") => new App
 export const AuthorizationError = (message = "Your role may not do this.") => new AppError(403, "FORBIDDEN", message);
 export const NotFoundError = (what = "record") => new AppError(404, "NOT_FOUND", `No such ${what}.`);
 export const ConflictError = (code: string, message: string) => new AppError(409, code, message);
-export const GoneError = (code: string, message: string) => new AppError(410, code, message);
+/** A single-use link that was spent or has expired: asking again will not help, a new link will. */
+export const GoneError = (code: string, message: string, fields?: FieldErrors) => new AppError(410, code, message, fields);

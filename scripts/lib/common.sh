@@ -13,13 +13,62 @@ apt_install() {
   DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "$@" >/dev/null
 }
 
-# npm ci when node_modules is missing or older than the lock file.
+# The command-line tools the scripts call, all from the lock file. Each runs through `tool`, never
+# npx: npx would fetch whatever version the registry has when one is missing.
+DEV_TOOLS=(vite tsc tsx vitest rolldown)
+
+# Every dependency, devDependencies included whatever NODE_ENV or the npm configuration says: the
+# start, the build and the tests all need the development tools. Installs when node_modules is
+# missing, older than the lock file, or lacks one of the tools (an install that left them out).
 ensure_node_modules() {
-  if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
-    log "installing npm dependencies (npm ci)"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  local missing=()
+  for t in "${DEV_TOOLS[@]}"; do [ -x "$ROOT/node_modules/.bin/$t" ] || missing+=("$t"); done
+  if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ] || [ ${#missing[@]} -gt 0 ]; then
+    log "installing npm dependencies (npm ci --include=dev)"
+    (cd "$ROOT" && npm ci --include=dev --no-audit --no-fund --loglevel=error)
+  else
+    log "npm dependencies are installed (install skipped)"
   fi
 }
+
+# tool NAME ARGS…: runs the project's own copy of a command-line tool from node_modules/.bin.
+tool() {
+  local bin="$ROOT/node_modules/.bin/$1"
+  if [ ! -x "$bin" ]; then
+    printf '\033[1;31m[fluxwright]\033[0m %s is not installed in node_modules: run `npm ci --include=dev` in %s\n' "$1" "$ROOT" >&2
+    return 127
+  fi
+  shift
+  "$bin" "$@"
+}
+
+# The linter lives in a package of its own (scripts/lint: eslint and typescript-eslint, which needs
+# a TypeScript with the compiler API beside the project's TypeScript 7), with its own lock file.
+ensure_lint_modules() {
+  local dir="$ROOT/scripts/lint"
+  if [ ! -x "$dir/node_modules/.bin/eslint" ] || [ "$dir/package-lock.json" -nt "$dir/node_modules/.package-lock.json" ]; then
+    log "installing the linter (npm ci in scripts/lint)"
+    (cd "$dir" && npm ci --include=dev --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+# The builds `npm start` serves: the client bundle (dist/) and the compiled server (build/). Skipped
+# when nothing they are made from changed since the last build.
+BUILD_STAMP=build/.built
+build_is_current() {
+  [ -f "$ROOT/$BUILD_STAMP" ] && [ -f "$ROOT/dist/index.html" ] || return 1
+  [ -z "$(cd "$ROOT" && find server shared src index.html package.json package-lock.json vite.config.ts tailwind.config.ts tsconfig.json scripts/build-server.mjs -newer "$BUILD_STAMP" -print -quit 2>/dev/null)" ]
+}
+build_all() {
+  (cd "$ROOT" && tool vite build --logLevel warn && node scripts/build-server.mjs && touch "$BUILD_STAMP")
+}
+
+# The local stand-ins for hosted services that `npm start` and `npm run dev` run beside the app and
+# stop with it: one line each. (The tests start their own in tests/support/database-setup.ts.)
+STAND_INS=(
+  fake-services/mail/index.ts
+  fake-services/payments/index.ts
+)
 
 pg_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1; }
 

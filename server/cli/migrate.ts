@@ -1,4 +1,4 @@
-// Applies pending migrations: `node --import tsx server/cli/migrate.ts [down]`.
+// Applies pending migrations: `node build/server/cli/migrate.js [down]` (compiled) or `npm run migrate`.
 import { createMigrator } from "../db/migrator";
 import { closeSequelize, getSequelize } from "../db/sequelize";
 

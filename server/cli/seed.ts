@@ -1,9 +1,9 @@
-// Seeds the demo scenario once: `node --import tsx server/cli/seed.ts`.
+// Seeds the demo scenario once: `node build/server/cli/seed.js` (compiled) or `npm run seed`.
 import { loadConfig } from "../config";
 import { seedDemo } from "../db/seed";
 import { closeSequelize, getSequelize } from "../db/sequelize";
 
 const config = loadConfig();
 const { created } = await seedDemo(getSequelize(config.DATABASE_URL), { password: config.DEMO_PASSWORD, appUrl: config.appUrl });
-console.log(created.length ? `demo data created: ${created.length} records` : "demo data already present");
+console.log(created.length ? `demo data created: ${created.length} records` : "demo data already present (seed skipped)");
 await closeSequelize();

@@ -11,12 +11,15 @@ export interface Migration {
   down(qi: QueryInterface, sequelize: Sequelize): Promise<void>;
 }
 
-/** umzug over server/db/migrations/*.ts, imported by our own code so it works under tsx and vitest. */
+/**
+ * umzug over server/db/migrations/NNNN-*.ts, imported by our own code so it works under tsx and vitest;
+ * the compiled server (build/server/db/migrations/*.js) keeps the same names.
+ */
 export function createMigrator(sequelize: Sequelize) {
-  const files = readdirSync(migrationsDir).filter((f) => /^\d{4}-.+\.ts$/.test(f)).sort();
+  const files = readdirSync(migrationsDir).filter((f) => /^\d{4}-.+\.(ts|js)$/.test(f)).sort();
   return new Umzug({
     migrations: files.map((file) => ({
-      name: file.replace(/\.ts$/, ""),
+      name: file.replace(/\.(ts|js)$/, ""),
       async up() {
         const m: Migration = await import(path.join(migrationsDir, file));
         await m.up(sequelize.getQueryInterface(), sequelize);

@@ -37,7 +37,7 @@ export function pdfText(s: string): string {
     .replace(/≥/g, ">=")
     .replace(/≤/g, "<=")
     .replace(/≈/g, "~")
-    .replace(/[^\u0000-\u00ff\u0131\u0152\u0153\u02c6\u02dc\u2000-\u206f\u20ac\u2122\u2212]/g, "?");
+    .replace(/[^\n\t\u0020-\u00ff\u0131\u0152\u0153\u02c6\u02dc\u2000-\u206f\u20ac\u2122\u2212]/g, "?");
 }
 
 export type Doc = PDFKit.PDFDocument;

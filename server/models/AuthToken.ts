@@ -1,5 +1,6 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from "sequelize";
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from "sequelize";
 import type { Role } from "../../shared/schemas/auth";
+import type { Organization } from "./Organization";
 
 /** A single-use, expiring secret sent by mail: an invitation or a password reset. Only its SHA-256 is stored. */
 export class AuthToken extends Model<InferAttributes<AuthToken>, InferCreationAttributes<AuthToken>> {
@@ -15,6 +16,7 @@ export class AuthToken extends Model<InferAttributes<AuthToken>, InferCreationAt
   declare usedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare organization?: NonAttribute<Organization | null>;
 
   static initModel(sequelize: Sequelize) {
     AuthToken.init(

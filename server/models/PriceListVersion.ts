@@ -1,5 +1,5 @@
 import {
-  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize,
+  DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize, type Transaction,
 } from "sequelize";
 import type { PriceList } from "../../shared/schemas/pricing";
 import type { ShopRatePart } from "../../shared/schemas/shop-rates";
@@ -30,7 +30,17 @@ export class PriceListVersion extends Model<InferAttributes<PriceListVersion>, I
   }
 
   /** The highest version: the list quotes are priced with now. */
-  static current(options: { transaction?: import("sequelize").Transaction; lock?: boolean } = {}) {
-    return PriceListVersion.findOne({ order: [["version", "DESC"]], transaction: options.transaction, lock: options.lock ? options.transaction?.LOCK.UPDATE : undefined });
+  static current(options: { transaction?: Transaction } = {}) {
+    return PriceListVersion.findOne({ order: [["version", "DESC"]], transaction: options.transaction });
+  }
+
+  /**
+   * Holds the right to add the next version until the transaction ends. A row lock cannot do it:
+   * a waiting saver would wake on the old newest row and collide on its version number. The
+   * advisory lock is taken before the newest row is read, so each saver reads its predecessor's
+   * version and writes the one after it.
+   */
+  static async lockForNextVersion(transaction: Transaction): Promise<void> {
+    await PriceListVersion.sequelize!.query("select pg_advisory_xact_lock(hashtext('price_lists'))", { transaction });
   }
 }

@@ -18,10 +18,6 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare updatedAt: CreationOptional<Date>;
   declare organization?: NonAttribute<Organization>;
 
-  get isStaff(): NonAttribute<boolean> {
-    return this.role !== "customer";
-  }
-
   static initModel(sequelize: Sequelize) {
     User.init(
       {

@@ -32,6 +32,7 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [Organization, User, AuthToken, Event, StoredFile]) model.initModel(sequelize);
   Organization.hasMany(User, { foreignKey: "organizationId", as: "users" });
   User.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
+  AuthToken.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
   PriceListVersion.initModel(sequelize);
   PriceListVersion.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   Material.initModel(sequelize);

@@ -3,10 +3,9 @@ import type { User } from "../models";
 
 export type Actor = Pick<User, "id" | "role" | "organizationId">;
 
-// Small named predicates; policies are built from these so each rule reads as a sentence.
+// Small named predicates; policies are built from these so each rule reads as a sentence. Add one
+// (isStaff, isOwnOrganization…) with the first policy that needs it.
 export const isAdmin = (a: Actor) => a.role === "admin";
-export const isQa = (a: Actor) => a.role === "qa";
-export const isOperator = (a: Actor) => a.role === "operator";
 export const isStaff = (a: Actor) => a.role !== "customer";
 export const isCustomer = (a: Actor) => a.role === "customer";
 export const isOwnOrganization = (a: Actor, r: { organizationId?: string | null }) => r.organizationId != null && r.organizationId === a.organizationId;

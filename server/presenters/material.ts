@@ -1,5 +1,5 @@
-import type { MaterialJson } from "../../shared/schemas/material";
-import type { Material } from "../models";
+import type { MaterialChangeJson, MaterialJson, MaterialRecordJson } from "../../shared/schemas/material";
+import type { Event, Material } from "../models";
 
 export type { MaterialJson };
 
@@ -19,6 +19,20 @@ export function presentMaterial(m: Material): MaterialJson {
 }
 
 /** The admin's view adds the flag and the dates. */
-export function presentMaterialForAdmin(m: Material) {
+export function presentMaterialForAdmin(m: Material): MaterialRecordJson {
   return { ...presentMaterial(m), active: m.active, createdAt: m.createdAt.toISOString(), updatedAt: m.updatedAt.toISOString() };
+}
+
+/** One recorded edit of a material, with its author's name when the author still exists. */
+export function presentMaterialChange(e: Event, actorName: string | undefined): MaterialChangeJson {
+  const data = e.data as { changes?: MaterialChangeJson["changes"]; before?: unknown; after?: unknown };
+  return {
+    id: String(e.id),
+    action: e.action,
+    at: e.createdAt.toISOString(),
+    actor: e.actorId ? { id: e.actorId, name: actorName ?? "unknown" } : null,
+    changes: data.changes ?? [],
+    before: data.before ?? null,
+    after: data.after ?? null,
+  };
 }

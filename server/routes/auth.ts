@@ -4,17 +4,20 @@ import {
   invitationAcceptSchema, loginSchema, passwordChangeSchema, passwordResetConfirmSchema, passwordResetRequestSchema,
   profileSchema, registerSchema,
 } from "../../shared/schemas/auth";
-import { checkPassword, hashPassword } from "../auth/passwords";
 import type { AppDeps } from "../deps";
-import { AppError, AuthenticationError } from "../errors";
+import { AppError } from "../errors";
 import { parseInput } from "../middleware/validate";
 import { mailRateLimit, requireUser, signInRateLimits } from "../middleware/security";
-import { Organization, User, recordEvent } from "../models";
+import { Organization, type User } from "../models";
+import { presentInvitationPreview } from "../presenters/invitation";
 import { presentUser } from "../presenters/user";
 import { authTokenFinder } from "../services/authTokenFinder";
 import { invitationAccepter } from "../services/invitationAccepter";
 import { passwordResetMail, welcomeMail } from "../services/mail-texts";
+import { passwordChanger } from "../services/passwordChanger";
 import { passwordResetRequester, passwordResetter } from "../services/passwordResetter";
+import { profileUpdater } from "../services/profileUpdater";
+import { signInRecorder } from "../services/signInRecorder";
 import { userRegisterer } from "../services/userRegisterer";
 
 // Passport 0.7 regenerates the session on login and logout, so the client fetches a new CSRF token after either.
@@ -46,10 +49,7 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     });
     if (!user) throw new AppError(401, "INVALID_CREDENTIALS", "That e-mail and password do not match an account.");
     await logIn(req, user);
-    await sequelize.transaction(async (transaction) => {
-      await User.update({ lastSignInAt: new Date() }, { where: { id: user.id }, transaction });
-      await recordEvent({ actor: user, action: "user.signed_in", subject: { type: "user", id: user.id }, ip: req.ip ?? null }, transaction);
-    });
+    await sequelize.transaction((transaction) => signInRecorder({ user, ip: req.ip ?? null, transaction }));
     res.json({ user: presentUser(user) });
   });
 
@@ -73,8 +73,8 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
   router.get("/invitations/:token", async (req, res) => {
     const invitation = await authTokenFinder({ token: req.params.token, kind: "invitation" });
     if (!invitation) throw new AppError(404, "INVITATION_INVALID", "This invitation link has expired or was already used.");
-    const org = invitation.organizationId ? await Organization.findByPk(invitation.organizationId) : null;
-    res.json({ email: invitation.email, role: invitation.role, organizationName: org?.kind === "customer" ? org.name : null, expiresAt: invitation.expiresAt });
+    const organization = invitation.organizationId ? await Organization.findByPk(invitation.organizationId) : null;
+    res.json(presentInvitationPreview(invitation, organization));
   });
 
   router.post("/invitations/accept", async (req, res) => {
@@ -100,27 +100,13 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
 
   router.patch("/me", requireUser, async (req, res) => {
     const input = parseInput(profileSchema, req.body);
-    const user = req.user!;
-    await sequelize.transaction(async (transaction) => {
-      await User.update({ name: input.name }, { where: { id: user.id }, transaction });
-      await recordEvent({ actor: user, action: "user.profile_updated", subject: { type: "user", id: user.id }, data: { name: input.name }, ip: req.ip ?? null }, transaction);
-    });
-    user.name = input.name;
+    const user = await sequelize.transaction((transaction) => profileUpdater({ actor: req.user!, input, ip: req.ip ?? null, transaction }));
     res.json({ user: presentUser(user) });
   });
 
   router.post("/password", requireUser, ...signInRateLimits(config.RATE_LIMIT_SIGN_IN), async (req, res) => {
     const input = parseInput(passwordChangeSchema, req.body);
-    await sequelize.transaction(async (transaction) => {
-      const user = await User.findByPk(req.user!.id, { transaction, lock: transaction.LOCK.UPDATE });
-      if (!user?.passwordHash) throw AuthenticationError();
-      if (!(await checkPassword(input.currentPassword, user.passwordHash))) {
-        throw new AppError(400, "VALIDATION_FAILED", "The current password is not right.", { currentPassword: "is not right" });
-      }
-      user.passwordHash = await hashPassword(input.newPassword);
-      await user.save({ transaction });
-      await recordEvent({ actor: user, action: "password.changed", subject: { type: "user", id: user.id }, ip: req.ip ?? null }, transaction);
-    });
+    await sequelize.transaction((transaction) => passwordChanger({ actorId: req.user!.id, input, ip: req.ip ?? null, transaction }));
     res.status(204).end();
   });
 

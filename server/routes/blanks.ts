@@ -1,6 +1,6 @@
 import { Router } from "express";
 import { computeBlank, FabricationInputError, flatPatternDxf, flatPatternFilename, suggestKFactor, type BlankResult } from "../../shared/fabrication";
-import { blankRequestSchema, type BlankRequest } from "../../shared/schemas/blank";
+import { blankRequestSchema, type BlankJson, type BlankRequest } from "../../shared/schemas/blank";
 import type { AppDeps } from "../deps";
 import { ValidationError } from "../errors";
 import { parseInput } from "../middleware/validate";
@@ -30,11 +30,12 @@ export function blanksRouter({ publicLimit }: AppDeps): Router {
 
   router.post("/blanks", publicLimit, async (req, res) => {
     const { request, result, material } = await compute(req.body);
-    res.json({
+    const answer: BlankJson = {
       ...result,
       ...(material ? { material: { id: material.id, name: material.name, density_kg_m3: material.density_kg_m3 } } : {}),
       ...(request.method === "bent" ? { suggestedKFactor: suggestKFactor(request.bendRadius_mm, request.thickness_mm) } : {}),
-    });
+    };
+    res.json(answer);
   });
 
   router.post("/blanks/dxf", publicLimit, async (req, res) => {

@@ -7,7 +7,7 @@ import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
 import { Event, Material, User } from "../models";
 import { requireRole } from "../policies/utils";
-import { presentMaterialForAdmin } from "../presenters/material";
+import { presentMaterialChange, presentMaterialForAdmin } from "../presenters/material";
 import { invalidateMaterialCatalog, materialCatalog } from "../services/materialCatalog";
 import { materialCreator, materialUpdater } from "../services/materialSaver";
 
@@ -60,17 +60,7 @@ export function materialsAdminRouter({ sequelize }: AppDeps): Router {
     const events = await Event.findAll({ where: { subjectType: "material", subjectId: id }, order: [["createdAt", "DESC"], ["id", "DESC"]], limit });
     const actorIds = [...new Set(events.map((e) => e.actorId).filter((x): x is string => !!x))];
     const actors = new Map((actorIds.length ? await User.findAll({ where: { id: actorIds } }) : []).map((u) => [u.id, u.name]));
-    res.json({
-      items: events.map((e) => ({
-        id: String(e.id),
-        action: e.action,
-        at: e.createdAt.toISOString(),
-        actor: e.actorId ? { id: e.actorId, name: actors.get(e.actorId) ?? "unknown" } : null,
-        changes: (e.data as { changes?: unknown }).changes ?? [],
-        before: (e.data as { before?: unknown }).before ?? null,
-        after: (e.data as { after?: unknown }).after ?? null,
-      })),
-    });
+    res.json({ items: events.map((e) => presentMaterialChange(e, e.actorId ? actors.get(e.actorId) : undefined)) });
   });
 
   return router;

@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { priceEstimateRequestSchema } from "../../shared/schemas/price-estimate";
+import { priceEstimateRequestSchema, type PriceEstimateJson } from "../../shared/schemas/price-estimate";
 import type { AppDeps } from "../deps";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
@@ -18,7 +18,8 @@ export function priceEstimatesRouter(_deps: AppDeps): Router {
     const current = await currentShopRates();
     await materialCatalog(); // loaded, so the resolver reads the materials table
     const estimate = priceEstimator({ configuration: input.configuration, quantity: input.quantity, priceList: current.data });
-    res.json({ ...estimate, priceListVersion: current.version });
+    const answer: PriceEstimateJson = { ...estimate, priceListVersion: current.version };
+    res.json(answer);
   });
   return router;
 }

@@ -8,6 +8,7 @@ import { requireUser } from "../middleware/security";
 import { AuthToken, Organization, User } from "../models";
 import { organizationPolicy } from "../policies/organization";
 import { authorize, requireRole } from "../policies/utils";
+import { presentInvitation } from "../presenters/invitation";
 import { presentOrganization } from "../presenters/organization";
 import { presentUser } from "../presenters/user";
 import { invitationCreator } from "../services/invitationCreator";
@@ -44,9 +45,10 @@ export function usersRouter({ sequelize, mailer, config }: AppDeps): Router {
     requireRole(req.user!, "admin");
     const open = await AuthToken.findAll({
       where: { kind: "invitation", usedAt: { [Op.is]: null }, expiresAt: { [Op.gt]: new Date() } },
-      order: [["createdAt", "DESC"]], limit: 200,
+      include: [{ model: Organization, as: "organization" }],
+      order: [["expiresAt", "ASC"]], limit: 200,
     });
-    res.json({ items: open.map((t) => ({ id: t.id, email: t.email, role: t.role, organizationId: t.organizationId, expiresAt: t.expiresAt, createdAt: t.createdAt })) });
+    res.json({ items: open.map((t) => presentInvitation(t, t.organization)) });
   });
 
   router.post("/invitations", requireUser, async (req, res) => {
@@ -63,7 +65,7 @@ export function usersRouter({ sequelize, mailer, config }: AppDeps): Router {
         organizationName: organization.kind === "customer" ? organization.name : null, invitedBy: actor.name, expiresAt: invitation.expiresAt,
       }),
     );
-    res.status(201).json({ id: invitation.id, email: invitation.email, role: invitation.role, organizationId: invitation.organizationId, expiresAt: invitation.expiresAt });
+    res.status(201).json(presentInvitation(invitation, organization));
   });
 
   return router;

@@ -1,7 +1,7 @@
 import type { Transaction } from "sequelize";
 import type { InvitationAcceptInput } from "../../shared/schemas/auth";
 import { hashPassword } from "../auth/passwords";
-import { AppError } from "../errors";
+import { AppError, GoneError } from "../errors";
 import { Organization, User, recordEvent } from "../models";
 import { authTokenFinder } from "./authTokenFinder";
 
@@ -10,7 +10,7 @@ export async function invitationAccepter(props: { input: InvitationAcceptInput; 
   const { input, transaction } = props;
   const invitation = await authTokenFinder({ token: input.token, kind: "invitation", transaction });
   if (!invitation || !invitation.role || !invitation.organizationId) {
-    throw new AppError(410, "INVITATION_INVALID", "This invitation link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
+    throw GoneError("INVITATION_INVALID", "This invitation link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
   }
   if (await User.findOne({ where: { email: invitation.email }, transaction })) {
     throw new AppError(409, "EMAIL_TAKEN", "This person already has an account; sign in instead.");

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from "sequelize";
 import { hashPassword, newToken } from "../auth/passwords";
-import { AppError } from "../errors";
+import { GoneError } from "../errors";
 import { AuthToken, User, recordEvent } from "../models";
 import { authTokenFinder } from "./authTokenFinder";
 
@@ -27,7 +27,7 @@ export async function passwordResetter(props: { token: string; password: string;
   const { transaction } = props;
   const reset = await authTokenFinder({ token: props.token, kind: "password_reset", transaction });
   const user = reset?.userId ? await User.findByPk(reset.userId, { transaction, lock: transaction.LOCK.UPDATE }) : null;
-  if (!reset || !user) throw new AppError(410, "RESET_LINK_INVALID", "This reset link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
+  if (!reset || !user) throw GoneError("RESET_LINK_INVALID", "This reset link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
   user.passwordHash = await hashPassword(props.password);
   await user.save({ transaction });
   reset.usedAt = new Date();

@@ -1,8 +1,8 @@
 import {
   FabricationInputError, nestBlanks, partsForDesign, priceBuildUp,
-  type DesignConfig, type FabricatedPart, type NestBlank, type Placement, type PriceBuildUp,
+  type DesignConfig, type FabricatedPart, type NestBlank, type PriceBuildUp,
 } from "../../shared/fabrication";
-import type { DesignConfiguration } from "../../shared/schemas/price-estimate";
+import type { DesignConfiguration, NestingGroup, PriceEstimate } from "../../shared/schemas/price-estimate";
 import type { PriceList } from "../../shared/schemas/pricing";
 import { ValidationError } from "../errors";
 import { materialResolver } from "./materialResolver";
@@ -10,30 +10,6 @@ import { materialResolver } from "./materialResolver";
 /** Same sample size as the price build-up uses for its utilisation, so picture and price agree. */
 const NEST_SAMPLE_BLANKS = 400;
 const NEST_GAP_MM = 3;
-
-export interface NestingGroup {
-  materialId: string;
-  thickness_mm: number;
-  sheet: { width_mm: number; length_mm: number } | null;
-  /** copies of the assembly's blanks in the nested sample */
-  assembliesNested: number;
-  partsPerSheet: number;
-  /** sheets for the whole quantity; scaled from the sample when the quantity is larger */
-  sheets: number;
-  sheetsEstimated: boolean;
-  utilisation: number;
-  scrapFraction: number;
-  algorithm: string | null;
-  /** the first sheet's blanks, lower-left corners in mm, x across the sheet width */
-  placements: Array<Pick<Placement, "x" | "y" | "w" | "h" | "kind" | "rotated"> & { label: string }>;
-}
-
-export interface PriceEstimate {
-  parts: Array<Omit<FabricatedPart, "density_kg_m3" | "finishedPiece">>;
-  nesting: NestingGroup[];
-  price: PriceBuildUp;
-  currency: string;
-}
 
 const nestShape = (p: FabricatedPart, label: string): NestBlank =>
   p.blank.kind === "disc" ? { id: label, kind: "disc", diameter_mm: p.blank.diameter_mm } : { id: label, kind: "rectangle", length_mm: p.blank.length_mm, width_mm: p.blank.width_mm };

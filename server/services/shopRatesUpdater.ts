@@ -33,8 +33,8 @@ export function jsonDiff(before: unknown, after: unknown, path = "", out: DiffEn
 }
 
 /** The list that is current now, or a 503 when nobody has set one up (the seed does). */
-export async function currentShopRates(transaction?: Transaction, lock = false): Promise<PriceListVersion> {
-  const current = await PriceListVersion.current({ transaction, lock });
+export async function currentShopRates(transaction?: Transaction): Promise<PriceListVersion> {
+  const current = await PriceListVersion.current({ transaction });
   if (!current) throw new AppError(503, "SHOP_RATES_MISSING", "No price list has been set up yet; run the demo seed or ask the planner.");
   return current;
 }
@@ -67,12 +67,14 @@ export async function currentPriceList(transaction?: Transaction, opts: { fresh?
 
 /**
  * Replaces one part of the current price list by inserting the next version, and records the
- * before/after difference as an event in the same transaction. The current row is locked so two
- * planners saving at once get consecutive versions, never the same one.
+ * before/after difference as an event in the same transaction. Saves at the same moment take turns
+ * (PriceListVersion.lockForNextVersion): each lands as its own version on top of the one before, so
+ * a save of the stock sheets never undoes a price-list save made a moment earlier.
  */
 export async function shopRatesUpdater(props: { actor: Actor; change: ShopRatesChange; ip: string | null; transaction: Transaction }): Promise<{ version: PriceListVersion; diff: DiffEntry[] }> {
   const { actor, change, transaction } = props;
-  const current = await currentShopRates(transaction, true);
+  await PriceListVersion.lockForNextVersion(transaction);
+  const current = await currentShopRates(transaction);
   const before = current.data;
   const next: PriceList =
     change.part === "price-list"

@@ -4,6 +4,7 @@
  * Lengths mm; plain JSON numbers only (strings, NaN and infinities are rejected).
  */
 import { z } from "zod";
+import type { BlankResult } from "../fabrication";
 
 const positiveMm = z.number({ error: "must be a number of millimetres" }).positive({ error: "must be greater than zero" });
 const nonNegativeMm = z.number({ error: "must be a number of millimetres" }).nonnegative({ error: "must not be negative" });
@@ -102,3 +103,9 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
   }
   return out;
 }
+
+/** POST /api/blanks: the engine's result, the material it used for the mass, and for a bent box the typical K-factor. */
+export type BlankJson = BlankResult & {
+  material?: { id: string; name: string; density_kg_m3: number };
+  suggestedKFactor?: number;
+};

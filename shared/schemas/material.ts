@@ -85,3 +85,21 @@ export interface MaterialJson {
   asFormedFactor: number;
   sourceTags: Record<string, string>;
 }
+
+/** GET /api/materials/all, one row: the admin's view adds the flag and the dates. */
+export interface MaterialRecordJson extends MaterialJson {
+  active: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** GET /api/materials/:id/history, one recorded change, newest first. */
+export interface MaterialChangeJson {
+  id: string;
+  action: string;
+  at: string;
+  actor: { id: string; name: string } | null;
+  changes: Array<{ path: string; before: unknown; after: unknown }>;
+  before: unknown;
+  after: unknown;
+}

@@ -5,6 +5,7 @@
  * requiredAttenuation_db) without this schema knowing them.
  */
 import { z } from "zod";
+import type { FabricatedPart, Placement, PriceBuildUp } from "../fabrication";
 
 export const MAX_ESTIMATE_QUANTITY = 100_000;
 
@@ -85,3 +86,34 @@ export const priceEstimateRequestSchema = z.object({
 export type DesignConfiguration = z.infer<typeof designConfigurationSchema>;
 export type DesignConfigurationInput = z.input<typeof designConfigurationSchema>;
 export type PriceEstimateRequest = z.infer<typeof priceEstimateRequestSchema>;
+
+/** One alloy and gauge of a design nested on its stock sheet. */
+export interface NestingGroup {
+  materialId: string;
+  thickness_mm: number;
+  sheet: { width_mm: number; length_mm: number } | null;
+  /** copies of the assembly's blanks in the nested sample */
+  assembliesNested: number;
+  partsPerSheet: number;
+  /** sheets for the whole quantity; scaled from the sample when the quantity is larger */
+  sheets: number;
+  sheetsEstimated: boolean;
+  utilisation: number;
+  scrapFraction: number;
+  algorithm: string | null;
+  /** the first sheet's blanks, lower-left corners in mm, x across the sheet width */
+  placements: Array<Pick<Placement, "x" | "y" | "w" | "h" | "kind" | "rotated"> & { label: string }>;
+}
+
+/** The price of a design at a quantity, as priceEstimator works it out. */
+export interface PriceEstimate {
+  parts: Array<Omit<FabricatedPart, "density_kg_m3" | "finishedPiece">>;
+  nesting: NestingGroup[];
+  price: PriceBuildUp;
+  currency: string;
+}
+
+/** POST /api/price-estimates: the estimate and the shop-rates version it was priced with. */
+export interface PriceEstimateJson extends PriceEstimate {
+  priceListVersion: number;
+}

@@ -4,7 +4,7 @@
  * priceListSchema; the server merges the part into the current list and validates the whole.
  */
 import { z } from "zod";
-import { formingLimitsSchema, priceListSchema, stockSheetSchema } from "./pricing";
+import { formingLimitsSchema, priceListSchema, stockSheetSchema, type FormingLimits, type PriceList, type StockSheet } from "./pricing";
 
 type Ctx = z.RefinementCtx;
 function unique<T>(items: readonly T[], key: (item: T) => string, path: (i: number) => (string | number)[], message: string, ctx: Ctx) {
@@ -42,3 +42,24 @@ export type FormingLimitsUpdate = z.infer<typeof formingLimitsUpdateSchema>;
 /** Which part of the list a version changed. */
 export const shopRateParts = ["seed", "price-list", "stock-sheets", "forming-limits"] as const;
 export type ShopRatePart = (typeof shopRateParts)[number];
+
+/** Who saved a version. */
+export interface ShopRatesAuthorJson {
+  id: string;
+  name: string;
+}
+
+/** GET /api/shop-rates/history, one row: a version, what it changed, who and when. */
+export interface ShopRatesVersionJson {
+  version: number;
+  part: ShopRatePart;
+  createdAt: string;
+  createdBy: ShopRatesAuthorJson | null;
+}
+
+/** GET /api/shop-rates and every save's answer: the current list in its three parts. */
+export interface ShopRatesJson extends ShopRatesVersionJson {
+  priceList: Omit<PriceList, "stockSheets" | "formingLimits">;
+  stockSheets: StockSheet[];
+  formingLimits: FormingLimits[];
+}

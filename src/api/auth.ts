@@ -9,24 +9,12 @@ import type {
   RegisterInput,
   Role,
 } from "../../shared/schemas/auth";
+import type { InvitationPreviewJson, UserJson } from "../../shared/schemas/people";
 import { api, resetCsrfToken } from "./client";
 
 export type { Role };
-
-export interface User {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  organizationId: string | null;
-  organizationName: string | null;
-}
-
-export interface InvitationPreview {
-  email: string;
-  role: Role;
-  organizationName: string | null;
-}
+export type User = UserJson;
+export type InvitationPreview = InvitationPreviewJson;
 
 export const authKeys = {
   all: ["auth"] as const,

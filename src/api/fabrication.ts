@@ -1,17 +1,11 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
-import type { BlankResult } from "../../shared/fabrication";
-import type { BlankRequest } from "../../shared/schemas/blank";
-import type { DesignConfigurationInput } from "../../shared/schemas/price-estimate";
-import type { FormingLimits, PriceList, StockSheet } from "../../shared/schemas/pricing";
-import type { PriceBuildUp } from "../../shared/fabrication";
-import type { FormingLimitsUpdate, PriceRatesInput, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { BlankJson, BlankRequest } from "../../shared/schemas/blank";
+import type { DesignConfigurationInput, PriceEstimateJson } from "../../shared/schemas/price-estimate";
+import type { FormingLimitsUpdate, PriceRatesInput, ShopRatesJson, ShopRatesVersionJson, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
 import { api } from "./client";
 
 /** POST /api/blanks: the engine's result plus the material it used. */
-export type BlankResponse = BlankResult & {
-  material?: { id: string; name: string; density_kg_m3: number };
-  suggestedKFactor?: number;
-};
+export type BlankResponse = BlankJson;
 
 /** A request as the form builds it; the server validates it (numbers may still be missing). */
 export type BlankRequestDraft = Partial<BlankRequest> | Record<string, unknown>;
@@ -35,37 +29,8 @@ export const fetchFlatPatternDxf = (request: BlankRequestDraft) => api.post<stri
 
 // --- price estimate for a configuration and quantity (signed-in) ---
 
-export interface PricedPart {
-  layer: number;
-  role: string;
-  method: string;
-  materialId?: string;
-  thickness_mm: number;
-  quantityPerAssembly: number;
-  blank: { kind: "disc"; diameter_mm: number } | { kind: "rectangle" | "cross"; length_mm: number; width_mm: number };
-  area_mm2: number;
-  mass_kg?: number;
-}
-
-export interface NestingGroup {
-  materialId: string;
-  thickness_mm: number;
-  sheet: { width_mm: number; length_mm: number } | null;
-  partsPerSheet: number;
-  sheets: number;
-  sheetsEstimated: boolean;
-  utilisation: number;
-  scrapFraction: number;
-  placements: Array<{ label: string; kind: "rectangle" | "disc"; x: number; y: number; w: number; h: number; rotated: boolean }>;
-}
-
-export interface PriceEstimate {
-  parts: PricedPart[];
-  nesting: NestingGroup[];
-  price: PriceBuildUp;
-  currency: string;
-  priceListVersion: number;
-}
+export type PriceEstimate = PriceEstimateJson;
+export type NestingGroup = PriceEstimateJson["nesting"][number];
 
 export interface PriceEstimateRequestDraft {
   configuration: DesignConfigurationInput;
@@ -86,27 +51,8 @@ export const priceEstimateQueryOptions = (body: PriceEstimateRequestDraft) =>
 
 // --- the planner's shop rates ---
 
-export interface ShopRatesAuthor {
-  id: string;
-  name: string;
-}
-
-export interface ShopRates {
-  version: number;
-  part: ShopRatePart;
-  createdAt: string;
-  createdBy: ShopRatesAuthor | null;
-  priceList: Omit<PriceList, "stockSheets" | "formingLimits">;
-  stockSheets: StockSheet[];
-  formingLimits: FormingLimits[];
-}
-
-export interface ShopRatesVersion {
-  version: number;
-  part: ShopRatePart;
-  createdAt: string;
-  createdBy: ShopRatesAuthor | null;
-}
+export type ShopRates = ShopRatesJson;
+export type ShopRatesVersion = ShopRatesVersionJson;
 
 export const shopRatesKeys = {
   all: ["shop-rates"] as const,

@@ -1,15 +1,10 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
-import type { InvitationCreateInput, Role } from "../../shared/schemas/auth";
+import type { InvitationCreateInput } from "../../shared/schemas/auth";
+import type { InvitationJson } from "../../shared/schemas/people";
 import { api } from "./client";
 
-export interface Invitation {
-  id: string;
-  email: string;
-  role: Role;
-  expiresAt: string;
-  organizationName?: string | null;
-  acceptedAt?: string | null;
-}
+/** GET /api/invitations lists only open ones: not accepted, not replaced, not expired when asked. */
+export type Invitation = InvitationJson;
 
 export const invitationKeys = {
   all: ["invitations"] as const,
@@ -21,10 +16,10 @@ export const invitationsQueryOptions = queryOptions({
   queryFn: ({ signal }) => api.get<{ items: Invitation[] }>("/api/invitations", { signal }),
 });
 
-/** Pending: not accepted and not yet expired, soonest expiry first. */
+/** Still usable now (the list may have been fetched a while ago), soonest expiry first. */
 export function pendingInvitations(items: Invitation[], now: Date = new Date()): Invitation[] {
   return items
-    .filter((item) => !item.acceptedAt && new Date(item.expiresAt).getTime() > now.getTime())
+    .filter((item) => new Date(item.expiresAt).getTime() > now.getTime())
     .sort((a, b) => new Date(a.expiresAt).getTime() - new Date(b.expiresAt).getTime());
 }
 

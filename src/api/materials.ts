@@ -1,5 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
-import type { MaterialCreate, MaterialJson, MaterialUpdate } from "../../shared/schemas/material";
+import type { MaterialChangeJson, MaterialCreate, MaterialJson, MaterialRecordJson, MaterialUpdate } from "../../shared/schemas/material";
 import { api } from "./client";
 import { predictionKeys } from "./predictions";
 
@@ -7,19 +7,8 @@ import { predictionKeys } from "./predictions";
 export type MaterialSummary = MaterialJson;
 
 /** The admin's view of a row. */
-export interface MaterialRecord extends MaterialSummary {
-  active: boolean;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface MaterialChange {
-  id: string;
-  action: string;
-  at: string;
-  actor: { id: string; name: string } | null;
-  changes: Array<{ path: string; before: unknown; after: unknown }>;
-}
+export type MaterialRecord = MaterialRecordJson;
+export type MaterialChange = MaterialChangeJson;
 
 export const materialKeys = {
   all: ["materials"] as const,

@@ -1,11 +1,8 @@
 import { queryOptions } from "@tanstack/react-query";
+import type { OrganizationJson } from "../../shared/schemas/people";
 import { api } from "./client";
 
-export interface Organization {
-  id: string;
-  name: string;
-  kind: "shop" | "customer";
-}
+export type Organization = OrganizationJson;
 
 export const organizationKeys = {
   all: ["organizations"] as const,

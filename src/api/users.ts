@@ -1,22 +1,9 @@
 import { keepPreviousData, queryOptions } from "@tanstack/react-query";
-import type { Role } from "../../shared/schemas/auth";
+import type { PageJson, UserJson } from "../../shared/schemas/people";
 import { api } from "./client";
 
-export interface UserSummary {
-  id: string;
-  email: string;
-  name: string;
-  role: Role;
-  organizationName: string | null;
-  createdAt: string;
-}
-
-export interface Page<T> {
-  items: T[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type UserSummary = UserJson;
+export type Page<T> = PageJson<T>;
 
 export interface UserFilters {
   page: number;

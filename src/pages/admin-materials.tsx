@@ -12,6 +12,7 @@ import { StatusNote } from "../components/ui/status-note";
 import { MaterialForm } from "../features/materials-admin/material-form";
 import { MaterialHistory } from "../features/materials-admin/material-history";
 import { requireRole, warm } from "../lib/guards";
+import { ScrollX } from "../components/ui/scroll-x";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   await requireRole(queryClient, request, ["admin"]);
@@ -41,7 +42,7 @@ export function Component() {
             </StatusNote>
           )}
           <Panel title="Library" actions={<Button variant="secondary" onClick={() => { setSaved(null); setOpen("new"); }}>Add a material</Button>}>
-            <div className="overflow-x-auto">
+            <ScrollX label="the materials table">
               <table className="w-full text-left text-body">
                 <thead className="border-b border-nickel-300 text-meta text-flux-600">
                   <tr>
@@ -74,7 +75,7 @@ export function Component() {
                   ))}
                 </tbody>
               </table>
-            </div>
+            </ScrollX>
           </Panel>
           {open && (
             <div className="grid items-start gap-6 xl:grid-cols-[1fr_22rem]">

@@ -1,6 +1,15 @@
+import type { QueryClient } from "@tanstack/react-query";
+import { materialsQueryOptions } from "../api/materials";
 import { PageHeader } from "../components/ui/panel";
 import { PanelBoundary } from "../components/error-boundary";
 import { FlatBlankCalculator } from "../features/fabrication/flat-blank-calculator";
+import { warm } from "../lib/guards";
+
+// Public, like the design check; the material list comes from the server's library.
+export const makeLoader = (queryClient: QueryClient) => async () => {
+  await warm(queryClient.ensureQueryData(materialsQueryOptions));
+  return null;
+};
 
 export function Component() {
   return (

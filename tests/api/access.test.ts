@@ -55,14 +55,22 @@ describe.each<Role>(["customer", "operator", "qa"])("signed in as %s", (role) =>
 });
 
 describe("a second customer organisation", () => {
-  it("sees only its own people and nothing of the first one's", async () => {
+  it("reads nothing of the first one's: its own account only, and no list that would name the first one's people", async () => {
     const first = await buildOrganization();
-    await buildUser({ organizationId: first.id, name: "First Org Person" });
+    const firstPerson = await buildUser({ organizationId: first.id, name: "First Org Person" });
     const second = await buildOrganization();
     const { agent } = await signIn(app, await buildUser({ organizationId: second.id }));
-    const me = await agent.get("/api/auth/me");
-    expect(me.body.user.organizationId).toBe(second.id);
-    expect(JSON.stringify(me.body)).not.toContain(first.name);
-    expect((await agent.get("/api/users")).status).toBe(403);
+    for (const path of ["/api/auth/me", "/api/auth/session"]) {
+      const res = await agent.get(path);
+      expect(res.status).toBe(200);
+      expect(res.body.user.organizationId).toBe(second.id);
+      expect(res.body.user.organizationName).toBe(second.name);
+    }
+    // every signed-in route that lists people or organisations, each refused without a word of the first organisation
+    for (const path of ["/api/users", "/api/users?q=First%20Org", "/api/organizations", "/api/invitations"]) {
+      const res = await agent.get(path);
+      expect(res.status).toBe(403);
+      for (const secret of [first.name, first.id, firstPerson.email, firstPerson.id]) expect(res.text).not.toContain(secret);
+    }
   });
 });

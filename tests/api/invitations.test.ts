@@ -41,7 +41,17 @@ describe("POST /api/invitations", () => {
 
     const info = await request(app).get(`/api/auth/invitations/${token}`);
     expect(info.status).toBe(200);
-    expect(info.body).toMatchObject({ email, role: "customer", organizationName: customerOrg.name });
+    expect(info.body).toEqual({ email, role: "customer", organizationName: customerOrg.name, expiresAt: expect.any(String) });
+
+    // the planner's list names the organisation the person joins, as the invitation answered
+    const list = await agent.get("/api/invitations");
+    expect(list.status).toBe(200);
+    const listed = list.body.items.find((i: { email: string }) => i.email === email);
+    expect(listed).toEqual({
+      id: res.body.id, email, role: "customer", organizationId: customerOrg.id, organizationName: customerOrg.name,
+      expiresAt: res.body.expiresAt, createdAt: expect.any(String),
+    });
+    expect(res.body.organizationName).toBe(customerOrg.name);
 
     const invitee = request.agent(app);
     const accept = await invitee.post("/api/auth/invitations/accept").send({ token, name: "Invited Person", password: "a-long-password" });
@@ -52,6 +62,17 @@ describe("POST /api/invitations", () => {
     const twice = await request(app).post("/api/auth/invitations/accept").send({ token, name: "Again", password: "a-long-password" });
     expect(twice.status).toBe(410);
     expect((await request(app).get(`/api/auth/invitations/${token}`)).status).toBe(404);
+  });
+});
+
+describe("GET /api/invitations", () => {
+  it("lists a staff invitation without naming the shop", async () => {
+    const { agent, csrf } = await signIn(app, await admin());
+    const email = `staff-${Date.now()}@example.test`;
+    expect((await agent.post("/api/invitations").set("X-CSRF-Token", csrf).send({ email, role: "qa" })).status).toBe(201);
+    const listed = (await agent.get("/api/invitations")).body.items.find((i: { email: string }) => i.email === email);
+    expect(listed).toMatchObject({ email, role: "qa", organizationName: null });
+    expect(typeof listed.organizationId).toBe("string");
   });
 });
 

@@ -92,6 +92,10 @@ describe("material edits", () => {
 
     const listed = await request(app).get("/api/materials");
     expect(listed.body.map((x: { id: string }) => x.id)).toContain(m.id);
+    // at 1 kHz the wall's resistivity sets the eddy-current share of the shielding, so the edit below must show
+    const acDesign = { shape: "sphere", dimensions_mm: { diameter: 60 }, layers: [{ material: m.id, thickness_mm: 1 }], field: { frequency_hz: 1000, amplitude_uT: 50 } };
+    const predictedBefore = await request(app).post("/api/predictions").send(acDesign);
+    expect(predictedBefore.status).toBe(200);
 
     const body = { relativePermeability: m.relativePermeability, saturation_T: m.saturation_T, muCurve: m.muCurve, asFormedFactor: m.asFormedFactor, source: m.source, sourceTags: m.sourceTags, name: "Test nickel-iron, thinner data", resistivity_ohm_m: 0.5e-6, density_kg_m3: 8650 };
     res = await agent.put(`/api/materials/${m.id}`).set("X-CSRF-Token", csrf).send(body);
@@ -114,9 +118,11 @@ describe("material edits", () => {
     // the public list and the prediction see the edit at once
     const after = (await request(app).get("/api/materials")).body.find((x: { id: string }) => x.id === m.id);
     expect(after.density_kg_m3).toBe(8650);
-    const p = await request(app).post("/api/predictions").send({ shape: "sphere", dimensions_mm: { diameter: 60 }, layers: [{ material: m.id, thickness_mm: 1 }], field: { frequency_hz: 0, amplitude_uT: 50 } });
+    const p = await request(app).post("/api/predictions").send(acDesign);
     expect(p.status).toBe(200);
     expect(p.body.layers[0].material).toBe(m.id);
+    // lower resistivity (0.6 → 0.5 µΩ·m): a thinner skin depth, so the shell shields more [derived]
+    expect(p.body.shieldingFactor).toBeGreaterThan(predictedBefore.body.shieldingFactor * 1.01);
 
     // deactivated: gone from the public list and refused by predictions, still in the admin's list
     res = await agent.put(`/api/materials/${m.id}`).set("X-CSRF-Token", csrf).send({ ...body, active: false });

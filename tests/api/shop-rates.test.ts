@@ -1,7 +1,7 @@
 import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { seedShopRates } from "../../server/db/seed";
-import { Event } from "../../server/models";
+import { Event, PriceListVersion } from "../../server/models";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
 
 const app = buildTestApp();
@@ -101,12 +101,43 @@ describe("shop rates", () => {
     expect(history.status).toBe(200);
     const mine = history.body.items.filter((v: { createdBy: { id: string } | null }) => v.createdBy?.id === user.id);
     expect(mine.map((v: { part: string }) => v.part)).toEqual(["forming-limits", "stock-sheets", "price-list"]);
-    expect(history.body.items.at(-1)?.version ?? 1).toBeGreaterThanOrEqual(1);
-    for (const v of history.body.items) expect(typeof v.createdAt).toBe("string");
+    expect(mine.map((v: { version: number }) => v.version)).toEqual([f.body.version, s.body.version, res.body.version]);
+    // newest first, each version once
+    const versions = history.body.items.map((v: { version: number }) => v.version);
+    expect(versions).toEqual([...versions].sort((a, b) => b - a));
+    expect(new Set(versions).size).toBe(versions.length);
+    for (const v of history.body.items) expect(Number.isNaN(Date.parse(v.createdAt))).toBe(false);
+  });
+
+  it("three saves at the same moment each land as their own version, none lost", async () => {
+    const { user, agent, csrf } = await planner();
+    const current = (await agent.get("/api/shop-rates")).body;
+    const limits = structuredClone(current.formingLimits);
+    const sheets = [...current.stockSheets, { materialId: "ni50", thickness_mm: 1.5, width_mm: 600, length_mm: 1200 + Math.floor(Math.random() * 500) }];
+    const prices = structuredClone(current.priceList);
+    prices.marginPercent = (prices.marginPercent + 1) % 60;
+    limits[0].redrawRatio = 1.2;
+    const saves = await Promise.all([
+      agent.put("/api/shop-rates/price-list").set("X-CSRF-Token", csrf).send(prices),
+      agent.put("/api/shop-rates/stock-sheets").set("X-CSRF-Token", csrf).send({ stockSheets: sheets }),
+      agent.put("/api/shop-rates/forming-limits").set("X-CSRF-Token", csrf).send({ formingLimits: limits }),
+    ]);
+    expect(saves.map((r) => [r.status, r.body.error?.code])).toEqual([[200, undefined], [200, undefined], [200, undefined]]);
+    const versions = saves.map((r) => r.body.version as number);
+    expect(new Set(versions).size).toBe(3);
+    // none overwrote another: the last of the three holds all three changes
+    const last = (await PriceListVersion.findOne({ where: { version: Math.max(...versions) } }))!.data;
+    expect(last.marginPercent).toBe(prices.marginPercent);
+    expect(last.stockSheets).toEqual(sheets);
+    expect(last.formingLimits[0].redrawRatio).toBe(1.2);
+    // and each event names the version it came from, which is the one before it
+    const events = await Event.findAll({ where: { actorId: user.id }, order: [["id", "ASC"]] });
+    const steps = events.filter((e) => e.action.startsWith("shop-rates.")).map((e) => e.data as { fromVersion: number; toVersion: number });
+    expect(steps).toHaveLength(3);
+    for (const step of steps) expect(step.toVersion).toBe(step.fromVersion + 1);
   });
 
   it("the database refuses to change an old version", async () => {
-    const { PriceListVersion } = await import("../../server/models");
     const first = await PriceListVersion.findOne({ order: [["version", "ASC"]] });
     await expect(PriceListVersion.update({ part: "price-list" }, { where: { id: first!.id } })).rejects.toThrow(/append-only/);
   });

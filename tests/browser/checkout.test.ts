@@ -2,8 +2,7 @@
 // event marks the order paid. The order pages come later; this checks the stand-in's page itself.
 import { beforeAll, describe, expect, it } from "vitest";
 import { User } from "../../server/models";
-import { expectNoAxeViolations } from "../support/a11y";
-import { useBrowser } from "../support/browser";
+import { expectAccessible, useBrowser } from "../support/browser";
 import { buildOrder, waitFor } from "../support/ordering";
 import { checkoutStarter } from "../../server/services/checkoutStarter";
 import { Order, Quote } from "../../server/models";
@@ -28,12 +27,12 @@ describe("paying on the stand-in's checkout page", () => {
     await page.goto(session.url);
     const euros = (order.totalCents / 100).toLocaleString("en-GB", { minimumFractionDigits: 2 });
     await expect.poll(() => page.getByRole("button", { name: `Pay €${euros}` }).isVisible()).toBe(true);
-    await expectNoAxeViolations(page);
+    await expectAccessible(page);
     await h.shot(page, "checkout-stand-in");
 
     await page.getByRole("button", { name: "Decline the card" }).click();
     await expect.poll(() => page.getByRole("alert").textContent()).toMatch(/declined/);
-    await expectNoAxeViolations(page);
+    await expectAccessible(page);
     await h.shot(page, "checkout-stand-in-declined");
     expect((await Order.findByPk(order.id))!.status).toBe("awaiting_payment");
 

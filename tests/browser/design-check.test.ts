@@ -51,7 +51,7 @@ async function journey(page: Page, who: string) {
   await page.getByRole("button", { name: /keep as variant a/i }).click();
   await page.getByRole("list", { name: /kept variants/i }).getByText(/variant a/i).waitFor();
   await layer(page, 1).getByLabel(/material/i).selectOption("steel-lc");
-  before = await changedFrom(page, before);
+  await changedFrom(page, before);
   const chart = page.getByTestId("attenuation-chart");
   await expect.poll(() => chart.locator(".recharts-line").count(), { timeout: 10_000 }).toBe(2);
   await chart.getByText("Variant A").first().waitFor();
@@ -108,7 +108,7 @@ async function cableHoles(page: Page, who: string) {
   // the length the warning asks for clears it
   const asked = /at least ([\d.]+) mm/.exec((await short.textContent())!)![1];
   await hole(page, 1).getByLabel(/collar length/i).fill(asked);
-  before = await changedFrom(page, before);
+  await changedFrom(page, before);
   await rows.first().getByText("long enough").waitFor();
   await expect.poll(() => warnings.getByText(/Hole 1 \(/).count()).toBe(0);
   expect(await page.getByText(/the cable hole limits the shield/i).count()).toBe(0);

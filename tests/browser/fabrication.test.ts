@@ -1,6 +1,8 @@
+import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
+import { signIn } from "../support/app";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
 const h = useBrowser();
@@ -96,6 +98,37 @@ describe("flat blank, as a new visitor would", () => {
     await h.shot(page, "flat-blank-price");
     expect(consoleErrors.join("\n")).toBe("");
     await page.getByRole("button", { name: /sign out/i }).click();
+    await page.close();
+  });
+});
+
+describe("flat blank materials", () => {
+  it("lists the library the server has now: a material the planner adds appears, a retired one goes", async () => {
+    const { agent, csrf } = await signIn(h.app, { email: "admin@demo.test" }, DEMO_PASSWORD);
+    const id = `fb-${randomUUID().slice(0, 8)}`;
+    const name = `Flat-blank test alloy ${id}`;
+    const tag = "[memory] test value";
+    const body = {
+      name, relativePermeability: { initial: 20_000, maximum: 80_000 }, saturation_T: 0.8, resistivity_ohm_m: 0.6e-6, density_kg_m3: 8700,
+      muCurve: [{ B_T: 0.01, mu_r: 20_000 }, { B_T: 0.3, mu_r: 80_000 }], asFormedFactor: 0.1, source: "Invented for a test.",
+      sourceTags: { relativePermeability: tag, saturation_T: tag, resistivity_ohm_m: tag, density_kg_m3: tag, muCurve: tag, asFormedFactor: tag },
+    };
+    expect((await agent.post("/api/materials").set("X-CSRF-Token", csrf).send({ id, ...body })).status).toBe(201);
+
+    const { page, consoleErrors } = await h.newPage();
+    await page.goto(`${h.baseUrl}/flat-blank`);
+    const material = page.getByLabel(/^material/i);
+    await material.locator(`option[value="${id}"]`).waitFor({ state: "attached", timeout: 10_000 });
+    expect(await material.locator(`option[value="${id}"]`).textContent()).toBe(name);
+    await material.selectOption(id);
+    await page.getByText(`Mass in ${id}`).waitFor();
+    await h.shot(page, "flat-blank-added-material");
+
+    expect((await agent.put(`/api/materials/${id}`).set("X-CSRF-Token", csrf).send({ ...body, active: false })).status).toBe(200);
+    await page.goto(`${h.baseUrl}/flat-blank`);
+    await material.locator('option[value="ni80"]').waitFor({ state: "attached" });
+    expect(await material.locator(`option[value="${id}"]`).count()).toBe(0);
+    expect(consoleErrors).toEqual([]);
     await page.close();
   });
 });

@@ -20,6 +20,10 @@ describe("the planner invites a customer engineer, as they would", () => {
     await page.getByLabel(/customer organisation/i).selectOption({ label: "Quillbrook Beam Lab (demo)" });
     await page.getByRole("button", { name: /send invitation/i }).click();
     await page.getByText(/invitation sent/i).waitFor();
+    // the pending list names the organisation the person will join
+    const pending = page.getByRole("listitem").filter({ hasText: email });
+    await pending.getByText(/Customer · Quillbrook Beam Lab \(demo\) · expires/).waitFor({ timeout: 5000 });
+    expect(await pending.count()).toBe(1);
     await h.shot(page, "admin-users-invited");
     await page.getByRole("button", { name: /sign out/i }).click();
     await page.getByRole("link", { name: /^sign in$/i }).first().waitFor();

@@ -1,5 +1,6 @@
 // Chromium from Debian driven by playwright-core, against the built client served by the real server.
-import { mkdirSync, mkdtempSync, rmSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { createRequire } from "node:module";
 import type { AddressInfo } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -12,12 +13,28 @@ import { testConfig } from "./app";
 
 export const SCREENSHOTS = path.resolve(".test-results/screenshots");
 export const DEMO_PASSWORD = "fluxwright-demo";
+const axeSource = readFileSync(createRequire(import.meta.url).resolve("axe-core/axe.min.js"), "utf8");
+
+/** axe-core's WCAG 2.x A and AA checks on the page as it stands; throws listing each violation. */
+export async function expectAccessible(page: Page, where = page.url()): Promise<void> {
+  // evaluated through the debugging protocol: the app's Content-Security-Policy (no inline scripts) stays on
+  if (!(await page.evaluate(() => "axe" in window))) await page.evaluate(axeSource);
+  const violations = await page.evaluate(async () => {
+    const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Array<{ id: string; help: string; nodes: Array<{ target: unknown[] }> }> }> } }).axe;
+    const result = await axe.run(document, { runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"] } });
+    return result.violations.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).slice(0, 3).join("; ")})`);
+  });
+  if (violations.length) throw new Error(`axe found ${violations.length} accessibility violation(s) on ${where}:\n${violations.join("\n")}`);
+}
 
 export interface BrowserHarness {
   baseUrl: string;
   app: FluxwrightApp;
   context: BrowserContext;
-  /** a new page that records console errors and any request leaving the machine */
+  /**
+   * A new page that records console errors and any request leaving the machine. axe-core checks each
+   * page the test looks at (every `shot`) and the page as it is left (`close`).
+   */
   newPage(): Promise<{ page: Page; consoleErrors: string[]; offMachine: string[] }>;
   shot(page: Page, name: string): Promise<void>;
 }
@@ -60,9 +77,17 @@ export function useBrowser(): BrowserHarness {
         const u = new URL(r.url());
         if (!["127.0.0.1", "localhost"].includes(u.hostname) && !["data:", "blob:"].includes(u.protocol)) offMachine.push(r.url());
       });
+      const close = page.close.bind(page);
+      page.close = async (options) => {
+        if (!page.isClosed() && page.url().startsWith("http")) await expectAccessible(page);
+        return close(options);
+      };
       return { page, consoleErrors, offMachine };
     };
-    h.shot = async (page, name) => { await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true }); };
+    h.shot = async (page, name) => {
+      await page.screenshot({ path: path.join(SCREENSHOTS, `${name}.png`), fullPage: true });
+      await expectAccessible(page, name);
+    };
   });
   afterAll(async () => {
     await h.context?.close();

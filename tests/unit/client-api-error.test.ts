@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { ApiError, buildUrl, isCsrfFailure, toApiError } from "../../src/api/client";
 import { splitServerErrors } from "../../src/lib/form-errors";
-import { pendingInvitations } from "../../src/api/invitations";
+import { pendingInvitations, type Invitation } from "../../src/api/invitations";
 
 describe("toApiError", () => {
   it("reads the error envelope, fields included", () => {
@@ -51,14 +51,12 @@ describe("splitServerErrors", () => {
 });
 
 describe("pendingInvitations", () => {
-  it("keeps unaccepted, unexpired ones, soonest expiry first", () => {
+  it("drops the ones that expired since the list was fetched, soonest expiry first", () => {
     const now = new Date("2026-01-10T00:00:00Z");
-    const items = [
-      { id: "a", email: "a@x.test", role: "qa" as const, expiresAt: "2026-01-12T00:00:00Z" },
-      { id: "b", email: "b@x.test", role: "qa" as const, expiresAt: "2026-01-09T00:00:00Z" },
-      { id: "c", email: "c@x.test", role: "qa" as const, expiresAt: "2026-01-11T00:00:00Z" },
-      { id: "d", email: "d@x.test", role: "qa" as const, expiresAt: "2026-01-15T00:00:00Z", acceptedAt: "2026-01-09T00:00:00Z" },
-    ];
+    const invitation = (id: string, expiresAt: string): Invitation => ({
+      id, email: `${id}@x.test`, role: "customer", organizationId: "5f0c", organizationName: "Org", expiresAt, createdAt: "2026-01-01T00:00:00Z",
+    });
+    const items = [invitation("a", "2026-01-12T00:00:00Z"), invitation("b", "2026-01-09T00:00:00Z"), invitation("c", "2026-01-11T00:00:00Z")];
     expect(pendingInvitations(items, now).map((item) => item.id)).toEqual(["c", "a"]);
   });
 });

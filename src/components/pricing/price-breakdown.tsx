@@ -2,6 +2,7 @@ import type { PriceEstimate } from "../../api/fabrication";
 import { formatMoney } from "../../lib/money";
 import { NestingSvg } from "../drawing/nesting-svg";
 import { StatusNote } from "../ui/status-note";
+import { ScrollX } from "../ui/scroll-x";
 
 const qty = (x: number) => (Number.isInteger(x) ? String(x) : x.toFixed(3));
 
@@ -13,8 +14,8 @@ const qty = (x: number) => (Number.isInteger(x) ? String(x) : x.toFixed(3));
 export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEstimate; dimmed?: boolean }) {
   const money = (c: number) => formatMoney(c, data.currency);
   return (
-    <div className={`space-y-6 ${dimmed ? "opacity-60" : ""}`}>
-      <div className="overflow-x-auto">
+    <div className={`space-y-6 ${dimmed ? "stale" : ""}`}>
+      <ScrollX label="the price build-up table">
         <table className="w-full min-w-[22rem] text-left text-body" data-testid="price-table">
           <caption className="sr-only">Price build-up for {data.price.quantity} pieces</caption>
           <thead className="border-b border-nickel-300 text-meta text-flux-600">
@@ -62,7 +63,7 @@ export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEsti
             </tr>
           </tfoot>
         </table>
-      </div>
+      </ScrollX>
       <p className="text-meta text-flux-600">
         Prices in {data.currency}, an estimate from price list version {data.priceListVersion}; a quote fixes the price. Setup is spread over the quantity: {money(data.price.setupPerUnit_cents)} a piece.
       </p>

@@ -8,6 +8,7 @@ import { Button } from "../../components/ui/button";
 import { Loading } from "../../components/ui/spinner";
 import { Panel } from "../../components/ui/panel";
 import { QueryError } from "../../components/query-error";
+import { ScrollX } from "../../components/ui/scroll-x";
 
 export function UsersTable() {
   const [searchParams, setSearchParams] = useSearchParams();
@@ -71,7 +72,7 @@ export function UsersTable() {
         </p>
       ) : (
         <>
-          <div className="overflow-x-auto">
+          <ScrollX label="the users table">
             <table className="w-full min-w-[40rem] border-collapse text-left">
               <caption className="sr-only">Users, page {filters.page} of {pageCount}</caption>
               <thead>
@@ -85,7 +86,7 @@ export function UsersTable() {
               </thead>
               <tbody aria-busy={users.isPlaceholderData}>
                 {users.data.items.map((user) => (
-                  <tr key={user.id} className={`border-b border-nickel-200 ${users.isPlaceholderData ? "opacity-60" : ""}`}>
+                  <tr key={user.id} className={`border-b border-nickel-200 ${users.isPlaceholderData ? "text-flux-700" : ""}`}>
                     <td className="py-3 pr-4 font-semibold">{user.name}</td>
                     <td className="break-all py-3 pr-4 font-mono">{user.email}</td>
                     <td className="py-3 pr-4">{roleLabels[user.role]}</td>
@@ -95,7 +96,7 @@ export function UsersTable() {
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollX>
           <nav aria-label="User list pages" className="mt-4 flex flex-wrap items-center justify-between gap-3">
             <p className="tabular text-flux-700">
               Page <span className="font-mono">{filters.page}</span> of <span className="font-mono">{pageCount}</span> ·{" "}

@@ -96,7 +96,7 @@ export function DesignCheck() {
             )}
             {!result && prediction.isPending && <p className="text-flux-600">Working out the first figures…</p>}
             {result && request && (
-              <div className={stale ? "space-y-6 opacity-60 transition-opacity" : "space-y-6 transition-opacity"} data-testid="prediction" aria-busy={prediction.isFetching || undefined}>
+              <div className={stale ? "stale space-y-6" : "space-y-6"} data-testid="prediction" aria-busy={prediction.isFetching || undefined}>
                 <Headline result={result} frequency={request.field.frequency_hz} />
                 <p className="text-meta text-flux-600">
                   <strong className="font-semibold">Method:</strong> {result.method}. <strong className="font-semibold">Range:</strong> {result.band.basis}.

@@ -2,6 +2,7 @@ import { roundUpLength_mm } from "../../../shared/physics/predict";
 import type { PredictionResult } from "../../api/predictions";
 import { StatusNote } from "../../components/ui/status-note";
 import { fmt } from "./design-model";
+import { ScrollX } from "../../components/ui/scroll-x";
 
 type LayerResult = PredictionResult["layers"][number];
 
@@ -110,7 +111,7 @@ export function HoleTable({ result }: { result: PredictionResult }) {
   const lost = result.wallAttenuation_db - result.attenuation_db;
   return (
     <div className="space-y-2">
-      <div className="overflow-x-auto">
+      <ScrollX label="the cable holes table">
         <table className="w-full min-w-[30rem] text-left text-body" data-testid="hole-table">
           <caption className="sr-only">Cable holes: collar attenuation and the collar length the design needs</caption>
           <thead className="border-b border-nickel-300 text-meta text-flux-600">
@@ -139,7 +140,7 @@ export function HoleTable({ result }: { result: PredictionResult }) {
             })}
           </tbody>
         </table>
-      </div>
+      </ScrollX>
       <p className="text-meta text-flux-600" data-testid="hole-summary">
         {lost >= 0.05
           ? `The walls alone give about ${result.wallAttenuation_db.toFixed(1)} dB; leakage through the holes takes that to ${result.attenuation_db.toFixed(1)} dB, the figure above.`

@@ -2,12 +2,12 @@ import { useEffect, useState } from "react";
 import { useQuery } from "@tanstack/react-query";
 import { useSearchParams } from "react-router-dom";
 import { PRESS_WORK_CAUTION, suggestKFactor } from "../../../shared/fabrication";
-import { materialLibrary } from "../../../shared/physics/materials";
 import type { BlankRequest } from "../../../shared/schemas/blank";
 import { meQueryOptions } from "../../api/auth";
 import { flatBlankPrefillKeys } from "../../config/paths";
 import { ApiError } from "../../api/client";
 import { blankQueryOptions, type BlankResponse } from "../../api/fabrication";
+import { materialsQueryOptions } from "../../api/materials";
 import { PanelBoundary } from "../../components/error-boundary";
 import { SelectField, TextField } from "../../components/ui/field";
 import { Panel } from "../../components/ui/panel";
@@ -186,6 +186,10 @@ export function FlatBlankCalculator() {
   const [form, setForm] = useState<BlankForm>(() => formFromSearch(search));
   const [quantity, setQuantity] = useState("10");
   const me = useQuery(meQueryOptions);
+  // the shop's library as the server has it now: a material the planner adds appears, a retired one goes
+  const materials = useQuery(materialsQueryOptions);
+  const library = materials.data ?? [];
+  const chosenUnlisted = form.material !== "" && !library.some((m) => m.id === form.material);
   const request = useDebounced(toBlankRequest(form), 300);
   const blank = useQuery({ ...blankQueryOptions(request), retry: false });
   // keep the last good drawing while the inputs are being corrected
@@ -242,9 +246,18 @@ export function FlatBlankCalculator() {
             </>
           )}
           {form.kind === "cylinder-rolled" && field("seamOverlap", "Seam overlap (mm)", "0 for a butt weld; the overlap for a lap joint.")}
-          <SelectField label="Material" name="material" value={form.material} onChange={set("material")} error={errors.material} hint="Gives the mass; drawn parts also use its forming limits.">
+          <SelectField
+            label="Material"
+            name="material"
+            value={form.material}
+            onChange={set("material")}
+            error={errors.material}
+            hint={materials.isError ? "The material list could not be loaded; reload the page to try again. The blank itself needs no material." : "Gives the mass; drawn parts also use its forming limits."}
+          >
             <option value="">None (no mass)</option>
-            {materialLibrary.map((m) => (
+            {/* a material named by a link stays selectable while the list loads; the server judges it */}
+            {chosenUnlisted && <option value={form.material}>{materials.isPending ? `${form.material} (loading the list…)` : form.material}</option>}
+            {library.map((m) => (
               <option key={m.id} value={m.id}>
                 {m.name}
               </option>
@@ -278,7 +291,7 @@ export function FlatBlankCalculator() {
             )}
             {!shown && blank.isPending && <p className="text-flux-600">Working out the blank…</p>}
             {shown && (
-              <div className={stale ? "opacity-60 transition-opacity" : "transition-opacity"} data-testid="blank-result" aria-busy={blank.isFetching || undefined}>
+              <div className={stale ? "stale" : undefined} data-testid="blank-result" aria-busy={blank.isFetching || undefined}>
                 <div className="space-y-5">
                   <BlankFigures result={shown} />
                   {shown.warnings.length > 0 && (

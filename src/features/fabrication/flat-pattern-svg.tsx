@@ -15,8 +15,14 @@ function describe(result: BlankResponse): string {
 function bounds(g: FlatPatternGeometry) {
   const xs: number[] = [];
   const ys: number[] = [];
-  for (const [x, y] of g.outline) (xs.push(x), ys.push(y));
-  for (const c of g.circles) (xs.push(c.cx - c.diameter / 2, c.cx + c.diameter / 2), ys.push(c.cy - c.diameter / 2, c.cy + c.diameter / 2));
+  for (const [x, y] of g.outline) {
+    xs.push(x);
+    ys.push(y);
+  }
+  for (const c of g.circles) {
+    xs.push(c.cx - c.diameter / 2, c.cx + c.diameter / 2);
+    ys.push(c.cy - c.diameter / 2, c.cy + c.diameter / 2);
+  }
   return { minX: Math.min(...xs), maxX: Math.max(...xs), minY: Math.min(...ys), maxY: Math.max(...ys) };
 }
 
