@@ -1,4 +1,3 @@
-import connectPgSimple from "connect-pg-simple";
 import cookieParser from "cookie-parser";
 import express, { type Express } from "express";
 import session from "express-session";
@@ -10,6 +9,7 @@ import pino, { type Logger } from "pino";
 import { pinoHttp } from "pino-http";
 import type { Sequelize } from "sequelize";
 import { createPassport } from "./auth/passport";
+import { createSessionStore } from "./auth/session-store";
 import { projectRoot } from "./project-root";
 import { loadConfig, type Config } from "./config";
 import { getSequelize } from "./db/sequelize";
@@ -129,22 +129,9 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
 
   // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
   // (a CSRF token, a sign-in), so public read-only routes create no session rows.
-  const PgStore = connectPgSimple(session);
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
-  // Every answer moves a session's expiry on (rolling), which costs a write per signed-in request;
-  // once a minute per session is as good for an eight-hour expiry.
-  class ThrottledStore extends PgStore {
-    #touched = new Map<string, number>();
-    override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
-      const now = Date.now();
-      if (now - (this.#touched.get(sid) ?? 0) < 60_000) return void fn?.();
-      if (this.#touched.size > 50_000) this.#touched.clear();
-      this.#touched.set(sid, now);
-      super.touch(sid, sess, fn);
-    }
-  }
-  const store = new ThrottledStore({ pool: sessionPool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const store = createSessionStore(sessionPool);
   const sessionMiddleware = session({
     name: "fw.sid",
     secret: config.SESSION_SECRET,
