@@ -33,6 +33,9 @@ try {
 }
 rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 
+section("ordering, 10 connections");
+rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
+
 section("client");
 rows.push(...benchInitialJs(path.join(root, "dist")));
 

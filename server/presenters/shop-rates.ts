@@ -1,5 +1,5 @@
 import type { ShopRatesJson, ShopRatesVersionJson } from "../../shared/schemas/shop-rates";
-import { constructionSettingsOf } from "../../shared/schemas/pricing";
+import { constructionSettingsOf, priceListSchema } from "../../shared/schemas/pricing";
 import type { PriceListVersion } from "../models";
 
 const presentCreator = (v: PriceListVersion) => (v.createdBy ? { id: v.createdBy.id, name: v.createdBy.name } : null);
@@ -10,6 +10,7 @@ export function presentShopRatesVersion(v: PriceListVersion): ShopRatesVersionJs
 
 /** The current shop rates as the planner's page reads them: four parts plus who saved them when. */
 export function presentShopRates(v: PriceListVersion): ShopRatesJson {
-  const { stockSheets, formingLimits, construction: _stored, ...priceList } = v.data;
+  // parsed, so a version saved before a field existed shows that field's default
+  const { stockSheets, formingLimits, construction: _stored, ...priceList } = priceListSchema.parse(v.data);
   return { ...presentShopRatesVersion(v), priceList, stockSheets, formingLimits, construction: constructionSettingsOf(v.data) };
 }
