@@ -83,7 +83,7 @@ function acceptedOneStepTighter(plan: SamplingPlan, nonconforming: number): bool
 
 export function switchingState(aql: number, history: readonly SwitchingEntry[], options: SwitchingOptions = {}): SwitchingResult {
   if (aqlColumn(aql) < 0) throw new RangeError(`AQL ${aql} is not one of ${AQL_COLUMNS.join(", ")}`);
-  let state: SwitchingState = "normal";
+  let state = "normal" as SwitchingState;
   let reason = "Inspection starts on normal.";
   let score = 0;
   /** original-inspection outcomes since normal inspection began (true = accepted) */
