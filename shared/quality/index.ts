@@ -5,3 +5,4 @@ export * from "./sampling-plan";
 export * from "./switching";
 export * from "./measurement";
 export * from "./digest";
+export * from "./instruments";

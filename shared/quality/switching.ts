@@ -95,8 +95,14 @@ export function switchingState(aql: number, history: readonly SwitchingEntry[], 
   const enter = (next: SwitchingState, why: string) => {
     state = next;
     reason = why;
-    if (next === "normal") (score = 0), (normalRun = []);
-    if (next === "tightened") (tightenedAcceptedInARow = 0), (tightenedRejected = 0);
+    if (next === "normal") {
+      score = 0;
+      normalRun = [];
+    }
+    if (next === "tightened") {
+      tightenedAcceptedInARow = 0;
+      tightenedRejected = 0;
+    }
   };
 
   for (const entry of history) {
@@ -150,7 +156,10 @@ export function switchingState(aql: number, history: readonly SwitchingEntry[], 
       }
     } else if (before === "tightened") {
       if (accepted) tightenedAcceptedInARow++;
-      else (tightenedAcceptedInARow = 0), tightenedRejected++;
+      else {
+        tightenedAcceptedInARow = 0;
+        tightenedRejected++;
+      }
       if (tightenedRejected >= TIGHTENED_DISCONTINUE_AFTER) {
         note = `${counted}; ${tightenedRejected} lots not accepted on tightened inspection, so acceptance is discontinued until the supplier's corrective action.`;
         enter("discontinued", note);
