@@ -8,7 +8,7 @@ export const CALIBRATION_REMINDER_DAYS = 14;
 
 /**
  * Instruments in service whose calibration falls due within 14 days (or has already passed) get one
- * reminder mail per due date, to every quality inspector (the planners when there is none): the
+ * reminder mail per due date, addressed to the quality inspectors (the planners when there is none): the
  * stamp and the queued mails go in one transaction, so however often this runs, and in however many
  * processes, a due date is reminded once. A new due date (a new calibration) is a new occasion.
  */
@@ -34,10 +34,12 @@ export async function instrumentDueReminder(props: { mailer: Mailer; appUrl: str
   for (const instrument of due) {
     instrument.reminderSentFor = instrument.calibrationDue;
     await instrument.save({ transaction, fields: ["reminderSentFor"] });
-    const daysLeft = daysUntilDue(instrument, today);
-    for (const person of people) {
+    if (people.length) {
       await props.mailer.enqueue(
-        calibrationDueMail({ to: person.email, name: person.name, instrumentName: instrument.name, serialNumber: instrument.serialNumber, calibrationDue: instrument.calibrationDue, daysLeft, link: `${props.appUrl}/instruments/${instrument.id}` }),
+        calibrationDueMail({
+          to: people.map((p) => p.email).join(", "), instrumentName: instrument.name, serialNumber: instrument.serialNumber, calibrationDue: instrument.calibrationDue,
+          daysLeft: daysUntilDue(instrument, today), link: `${props.appUrl}/instruments/${instrument.id}`,
+        }),
         transaction,
       );
     }

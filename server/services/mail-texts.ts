@@ -159,14 +159,14 @@ export function refundIssuedMail(p: OrderMailBase & { amount_cents: number; curr
 
 // --- quality ---
 
-export function calibrationDueMail(p: { to: string; name: string; instrumentName: string; serialNumber: string | null; calibrationDue: string; daysLeft: number; link: string }): MailMessage {
+export function calibrationDueMail(p: { to: string; instrumentName: string; serialNumber: string | null; calibrationDue: string; daysLeft: number; link: string }): MailMessage {
   const when = day(new Date(`${p.calibrationDue}T00:00:00Z`));
   const overdue = p.daysLeft < 0;
   return {
     to: p.to,
     subject: overdue ? `Calibration of ${p.instrumentName} was due on ${when}` : `Calibration of ${p.instrumentName} is due on ${when}`,
     text: [
-      `Hello ${p.name},`,
+      `Hello,`,
       ``,
       overdue
         ? `The calibration of ${p.instrumentName}${p.serialNumber ? ` (serial ${p.serialNumber})` : ""} was due on ${when}. It may not be used for measurements until it has been calibrated again.`
