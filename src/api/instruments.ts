@@ -56,7 +56,7 @@ export const useSendToCalibration = () =>
   useInstrumentMutation(({ id, ...body }: InstrumentSendInput & { id: string }) => api.post<InstrumentJson>(path(id, "/send-to-calibration"), body));
 
 /** The certificate and its dates as one multipart form. */
-function calibrationForm(record: CalibrationRecordInput, file: File): FormData {
+export function calibrationForm(record: CalibrationRecordInput, file: File): FormData {
   const form = new FormData();
   for (const [key, value] of Object.entries(record)) if (value !== undefined && value !== "") form.append(key, String(value));
   form.append("file", file, file.name);
