@@ -9,7 +9,7 @@ export const INSTRUMENT_REMINDER_QUEUE = "instrument-calibration-reminders";
 export const instrumentReminderQueueDefinition: QueueDefinition = { name: INSTRUMENT_REMINDER_QUEUE, options: { retryLimit: 3, retryDelay: 60, expireInSeconds: 300 } };
 
 /**
- * Every hour (pg-boss's cron, one process sends it) the instruments whose calibration falls due
+ * Every hour (pg-boss's cron, one process sends it) and at start the instruments whose calibration falls due
  * within 14 days get their reminder mail, once per due date however often the job runs.
  */
 export async function startInstrumentReminders(props: { queue: JobQueue; sequelize: Sequelize; mailer: Mailer; config: Config; logger: Logger }): Promise<void> {
@@ -18,5 +18,9 @@ export async function startInstrumentReminders(props: { queue: JobQueue; sequeli
     const reminded = await sequelize.transaction((transaction) => instrumentDueReminder({ mailer, appUrl: config.appUrl, transaction }));
     if (reminded) logger.info({ reminded }, "calibration reminders queued");
   });
-  if (config.schedules) await queue.boss.schedule(queue.name(INSTRUMENT_REMINDER_QUEUE), "23 * * * *", {}, { tz: "UTC" });
+  if (config.schedules) {
+    await queue.boss.schedule(queue.name(INSTRUMENT_REMINDER_QUEUE), "23 * * * *", {}, { tz: "UTC" });
+    // and once now: a shop that was closed over a due date hears of it when the app starts
+    await queue.send(INSTRUMENT_REMINDER_QUEUE, {});
+  }
 }
