@@ -171,7 +171,7 @@ export function calibrationDueMail(p: { to: string; instrumentName: string; seri
       overdue
         ? `The calibration of ${p.instrumentName}${p.serialNumber ? ` (serial ${p.serialNumber})` : ""} was due on ${when}. It may not be used for measurements until it has been calibrated again.`
         : `The calibration of ${p.instrumentName}${p.serialNumber ? ` (serial ${p.serialNumber})` : ""} is due on ${when}, in ${p.daysLeft} day${p.daysLeft === 1 ? "" : "s"}. After that day it may not be used for measurements until it has been calibrated again.`,
-      `Send it out in time, and record its new certificate when it is back:`,
+      overdue ? `Send it out for calibration now, and record its new certificate when it is back:` : `Send it out in time, and record its new certificate when it is back:`,
       ``,
       p.link,
     ].join("\n"),
