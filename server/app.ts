@@ -123,9 +123,10 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
   });
-  // The prediction is asked for at every pause in typing: like health, no request line (pino-http's
-  // per-request child logger costs more than the prediction itself); on-error still logs its failures.
-  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep"]);
+  // The prediction and the sampling plan are asked for at every pause in typing: like health, no
+  // request line (pino-http's per-request child logger costs more than the answer itself); on-error
+  // still logs their failures.
+  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep", "/api/sampling-plan"]);
   app.use((req, res, next) => {
     if (!unlogged.has(req.path)) return requestLog(req, res, next);
     req.log = logger;
