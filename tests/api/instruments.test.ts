@@ -206,3 +206,21 @@ describe("the calibration reminder, 14 days before the due date (queued mail)", 
     expect((await inbox(app, user.email)).filter((m) => m.subject.includes(`${name} far`))).toHaveLength(1);
   });
 });
+
+describe("every instrument route refuses the signed-out (401) and other roles (403)", () => {
+  it("GET one, PATCH, send, return, record, certificate download", async () => {
+    const { agent, csrf } = await staff("qa");
+    const made = (await create(agent, csrf, { name: unique("Guarded") })).body;
+    const base = `/api/instruments/${made.id}`;
+    const routes: Array<["get" | "patch" | "post", string]> = [
+      ["get", base], ["patch", base], ["post", `${base}/send-to-calibration`], ["post", `${base}/return-from-calibration`], ["post", `${base}/calibrations`], ["get", `${base}/certificates/${randomUUID()}`],
+    ];
+    const operator = await staff("operator");
+    const customer = await signIn(app, await buildUser({ role: "customer" }));
+    for (const [method, url] of routes) {
+      expect((await request(app)[method](url).send({})).status, `${method} ${url} signed out`).toBe(401);
+      for (const who of [operator, customer]) expect((await who.agent[method](url).set("X-CSRF-Token", who.csrf).send({})).status, `${method} ${url}`).toBe(403);
+    }
+    expect((await agent.get(base)).status).toBe(200);
+  });
+});
