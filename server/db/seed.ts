@@ -7,6 +7,7 @@ import { priceListSchema } from "../../shared/schemas/pricing";
 import { Material, Organization, PriceListVersion, ShopSettings, User, initModels, recordEvent } from "../models";
 import { materialSeedRows } from "./material-rows";
 import { seedOrdering } from "./seed-ordering";
+import { seedInstruments } from "./seed-quality";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -78,6 +79,7 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
         transaction,
       })),
     );
+    created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
   });
   return { created };
 }

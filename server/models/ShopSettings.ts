@@ -10,6 +10,8 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
   declare taxId: string;
   declare mailFrom: string;
   declare quoteTerms: string;
+  /** the AQL each new order takes (a column of the sampling tables) */
+  declare defaultAql: CreationOptional<number>;
   declare updatedById: string | null;
   declare updatedAt: CreationOptional<Date>;
 
@@ -24,6 +26,7 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
         taxId: { type: DataTypes.STRING(60), allowNull: false, defaultValue: "" },
         mailFrom: { type: DataTypes.STRING(200), allowNull: false },
         quoteTerms: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+        defaultAql: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.0 },
         updatedById: { type: DataTypes.UUID, allowNull: true },
         updatedAt: DataTypes.DATE,
       },

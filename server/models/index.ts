@@ -3,6 +3,8 @@ import { AuthToken } from "./AuthToken";
 import { CheckoutSession } from "./CheckoutSession";
 import { Design } from "./Design";
 import { Event } from "./Event";
+import { Instrument } from "./Instrument";
+import { InstrumentCalibration } from "./InstrumentCalibration";
 import { Invoice } from "./Invoice";
 import { Material } from "./Material";
 import { Order } from "./Order";
@@ -20,6 +22,7 @@ export { AuthToken, Event, Organization, StoredFile, User };
 export { PriceListVersion };
 export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
+export { Instrument, InstrumentCalibration };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
 
@@ -46,4 +49,9 @@ export function initModels(sequelize: Sequelize): void {
   Order.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
   Order.belongsTo(Quote, { foreignKey: "quoteId", as: "quote" });
   OrderFile.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
+
+  // quality: the instrument register
+  for (const model of [Instrument, InstrumentCalibration]) model.initModel(sequelize);
+  Instrument.belongsTo(StoredFile, { foreignKey: "currentCertificateId", as: "currentCertificate" });
+  InstrumentCalibration.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
 }
