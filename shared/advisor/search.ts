@@ -221,7 +221,8 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const predict = (item: Pending, parts: FabricatedPart[]): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
     let r;
     try {
-      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel);
+      // the figures only: the sentences are not read here
+      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel, { words: false });
     } catch (err) {
       if (err instanceof PredictionInputError) return null;
       throw err;

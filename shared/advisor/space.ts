@@ -156,20 +156,31 @@ export function designConfig(p: AdviceProblem, d: Design): DesignConfig {
  * times. Each layer's parts come from partsForDesign itself, so the list is the same.
  */
 export function partsMemo(p: AdviceProblem): (d: Design) => FabricatedPart[] {
-  const memo = new Map<string, FabricatedPart[]>();
+  // a tree per method and gap, one level per inner layer's thickness; each node keeps the parts
+  // of a layer on that inside, by the layer's alloy and gauge
+  interface Node {
+    inner: Map<number, Node>;
+    own: Map<LayerOption, FabricatedPart[]>;
+  }
+  const node = (): Node => ({ inner: new Map(), own: new Map() });
+  const roots = new Map<string, Node>();
   return (d) => {
+    const rootKey = `${d.method}|${d.gap_mm}`;
+    let at = roots.get(rootKey);
+    if (!at) roots.set(rootKey, (at = node()));
     const parts: FabricatedPart[] = [];
-    let inside = `${d.method}|${d.gap_mm}|`;
-    d.layers.forEach((l, i) => {
-      const key = `${inside}${l.material}@${l.thickness_mm}`;
-      let own = memo.get(key);
+    for (let i = 0; i < d.layers.length; i++) {
+      const l = d.layers[i];
+      let own = at.own.get(l);
       if (!own) {
         own = partsForDesign(designConfig(p, { ...d, layers: d.layers.slice(0, i + 1) })).filter((x) => x.layer === i);
-        memo.set(key, own);
+        at.own.set(l, own);
       }
-      parts.push(...own);
-      inside += `${l.thickness_mm},`;
-    });
+      for (const x of own) parts.push(x);
+      let next = at.inner.get(l.thickness_mm);
+      if (!next) at.inner.set(l.thickness_mm, (next = node()));
+      at = next;
+    }
     return parts;
   };
 }

@@ -355,7 +355,17 @@ function summary(asBuilt_db: number, ideal: Figure, losses: AsBuiltSummary["loss
   return `Built, it should reach about ${asBuilt_db.toFixed(1)} dB, ${ideal.beyondLimit ? "far" : `${diff.toFixed(1)} dB`} below the seamless shell's ${idealText}, limited mostly by ${cause}.`;
 }
 
-export function predictShield(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): PredictionResult {
+/**
+ * `words: false` leaves the sentences out (the as-built summary and each layer's μ reason are
+ * empty): a search that predicts thousands of designs reads only the figures, which are the same.
+ */
+export function predictShield(
+  input: PredictionInput,
+  materials: MaterialLookup = materialLibrary,
+  build: BuildModel = DEFAULT_BUILD_MODEL,
+  options: { words?: boolean } = {},
+): PredictionResult {
+  const words = options.words ?? true;
   const p = prepare(input, materials, build);
   const { ctx, layers, B0 } = p;
   const s = settle(p);
@@ -396,7 +406,7 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     summary: "",
     source: layers.some((l) => l.fit) || build.calibration?.source === "shop" ? "shop" : "library",
   };
-  asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
+  if (words) asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
 
   const layerResults: LayerResult[] = layers.map((l, i) => {
     const w = s.core.fields![i];
@@ -413,7 +423,7 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
       saturationMargin: saturationMargin(l.sat, peak),
       mu_r: s.mus[i],
       muSource: s.sources[i],
-      muReason: muReason(l, s.sources[i], s.means[i], p.state, p),
+      muReason: words ? muReason(l, s.sources[i], s.means[i], p.state, p) : "",
       skinDepth_mm: Number.isFinite(d) ? d * 1000 : null,
     };
   });
