@@ -208,7 +208,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     }
   };
   /** the parts of a design that fits within the largest mass, or why not */
-  const fitting = (item: Pending): FabricatedPart[] | "not-made" | "too-heavy" => {
+  const fitting = (item: Pending): { parts: FabricatedPart[]; mass: number } | "not-made" | "too-heavy" => {
     const parts = partsOf(item.design);
     if (!parts) return "not-made";
     const mass = massOf(parts);
@@ -216,13 +216,13 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (!overweight.lightest || mass < overweight.lightest.mass) overweight.lightest = { item, parts, mass };
       return "too-heavy";
     }
-    return parts;
+    return { parts, mass };
   };
-  const predict = (item: Pending, parts: FabricatedPart[]): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
+  const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
     let r;
     try {
-      // the figures only: the sentences are not read here
-      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel, { words: false });
+      // the figures only: the sentences, warnings and losses are not read here
+      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel, { detail: false });
     } catch (err) {
       if (err instanceof PredictionInputError) return null;
       throw err;
@@ -239,7 +239,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       band: { low_db: r.band.low_db, high_db: r.band.high_db },
       ideal_db: r.ideal.attenuation_db,
       currency,
-      mass_kg: massOf(parts),
+      mass_kg,
       outside_mm: item.outside,
       layers,
       saturationMargin: smallest,
@@ -266,12 +266,13 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       unreachable.push({ item, ceiling });
       continue;
     }
-    const parts = fitting(item);
-    if (parts === "not-made" || parts === "too-heavy") {
-      stats.ruledOut[parts === "not-made" ? "notMade" : "tooHeavy"]++;
+    const fit = fitting(item);
+    if (typeof fit === "string") {
+      stats.ruledOut[fit === "not-made" ? "notMade" : "tooHeavy"]++;
       continue;
     }
-    const e = predict(item, parts);
+    const { parts } = fit;
+    const e = predict(item, parts, fit.mass);
     if (!e) {
       stats.ruledOut.notMade++;
       continue;
@@ -342,9 +343,10 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     for (const { item, ceiling } of unreachable) {
       if (nearestMiss && ceiling <= nearestMiss.evaluated.band.low_db) break;
       yield { done, total };
-      const parts = fitting(item);
-      if (typeof parts === "string") continue;
-      const e = predict(item, parts);
+      const fit = fitting(item);
+      if (typeof fit === "string") continue;
+      const { parts } = fit;
+      const e = predict(item, parts, fit.mass);
       if (e && (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db)) nearestMiss = { evaluated: e, parts };
     }
     if (nearestMiss) {

@@ -356,16 +356,18 @@ function summary(asBuilt_db: number, ideal: Figure, losses: AsBuiltSummary["loss
 }
 
 /**
- * `words: false` leaves the sentences out (the as-built summary and each layer's μ reason are
- * empty): a search that predicts thousands of designs reads only the figures, which are the same.
+ * `detail: false` leaves out what only a reader of one prediction needs: the sentences (the
+ * as-built summary and each layer's μ reason are empty), the warnings and what each loss takes
+ * (`asBuilt.losses` is empty). A search that predicts thousands of designs reads only the
+ * figures, which are the same.
  */
 export function predictShield(
   input: PredictionInput,
   materials: MaterialLookup = materialLibrary,
   build: BuildModel = DEFAULT_BUILD_MODEL,
-  options: { words?: boolean } = {},
+  options: { detail?: boolean } = {},
 ): PredictionResult {
-  const words = options.words ?? true;
+  const detail = options.detail ?? true;
   const p = prepare(input, materials, build);
   const { ctx, layers, B0 } = p;
   const s = settle(p);
@@ -373,7 +375,7 @@ export function predictShield(
   const ideal = figure(lnIdeal);
 
   const terms = termsFor(p, s.mus);
-  const walls = asBuiltFrom(s.core, terms, NOMINAL, true);
+  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
   const lnWalls = Math.min(walls.ln, lnIdeal);
   const wallAttenuation_db = figure(lnWalls).attenuation_db;
   const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
@@ -391,7 +393,7 @@ export function predictShield(
   const low = Math.min(built.attenuation_db, figure(lowLn).attenuation_db);
   const high = Math.min(ideal.attenuation_db, Math.max(built.attenuation_db, figure(highLn).attenuation_db));
 
-  const losses: AsBuiltSummary["losses"] = (Object.entries(walls.losses) as [LossCause, number][])
+  const losses: AsBuiltSummary["losses"] = !detail ? [] : (Object.entries(walls.losses) as [LossCause, number][])
     .map(([cause, db]): AsBuiltSummary["losses"][number] => ({ cause, db }))
     .concat(holes.length ? [{ cause: "holes" as const, db: Math.max(0, wallAttenuation_db - built.attenuation_db) }] : [])
     .filter((x) => x.db >= 0.05)
@@ -406,7 +408,7 @@ export function predictShield(
     summary: "",
     source: layers.some((l) => l.fit) || build.calibration?.source === "shop" ? "shop" : "library",
   };
-  if (words) asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
+  if (detail) asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
 
   const layerResults: LayerResult[] = layers.map((l, i) => {
     const w = s.core.fields![i];
@@ -423,22 +425,12 @@ export function predictShield(
       saturationMargin: saturationMargin(l.sat, peak),
       mu_r: s.mus[i],
       muSource: s.sources[i],
-      muReason: words ? muReason(l, s.sources[i], s.means[i], p.state, p) : "",
+      muReason: detail ? muReason(l, s.sources[i], s.means[i], p.state, p) : "",
       skinDepth_mm: Number.isFinite(d) ? d * 1000 : null,
     };
   });
 
-  const warnings: PredictionWarning[] = saturationWarnings(
-    layerResults.map((l, i) => ({ label: describe(layers[i]), wallFlux_T: l.wallFluxDensity_T, saturation_T: l.saturation_T })),
-    ctx.f > 0,
-  );
-  warnings.push(...designWarnings(ctx, layers, input, s.mus, ideal.attenuation_db));
-  warnings.push(...holeWarnings(holes, wallAttenuation_db, built.attenuation_db));
-  if (ideal.beyondLimit)
-    warnings.push({
-      code: "BEYOND_REPORT_LIMIT",
-      message: `The seamless shell's figure is beyond ${REPORT_LIMIT_DB} dB and is stated as ${REPORT_LIMIT_DB} dB: no measurement reaches there, and a built shield is limited long before by its construction.`,
-    });
+  const warnings: PredictionWarning[] = detail ? warningsFor(p, s, input, layerResults, ideal, holes, wallAttenuation_db, built.attenuation_db) : [];
 
   return {
     shieldingFactor: built.shieldingFactor,
@@ -457,6 +449,31 @@ export function predictShield(
     ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
     ...(build.calibration ? { calibration: build.calibration } : {}),
   };
+}
+
+function warningsFor(
+  p: Prepared,
+  s: Settled,
+  input: PredictionInput,
+  layerResults: LayerResult[],
+  ideal: Figure,
+  holes: HoleResult[],
+  wallAttenuation_db: number,
+  built_db: number,
+): PredictionWarning[] {
+  const { ctx, layers } = p;
+  const warnings: PredictionWarning[] = saturationWarnings(
+    layerResults.map((l, i) => ({ label: describe(layers[i]), wallFlux_T: l.wallFluxDensity_T, saturation_T: l.saturation_T })),
+    ctx.f > 0,
+  );
+  warnings.push(...designWarnings(ctx, layers, input, s.mus, ideal.attenuation_db));
+  warnings.push(...holeWarnings(holes, wallAttenuation_db, built_db));
+  if (ideal.beyondLimit)
+    warnings.push({
+      code: "BEYOND_REPORT_LIMIT",
+      message: `The seamless shell's figure is beyond ${REPORT_LIMIT_DB} dB and is stated as ${REPORT_LIMIT_DB} dB: no measurement reaches there, and a built shield is limited long before by its construction.`,
+    });
+  return warnings;
 }
 
 function describe(l: Layer): string {

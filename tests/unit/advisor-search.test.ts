@@ -330,6 +330,22 @@ describe("design advisor: the bounds cannot drop a winner [derived]", { timeout:
 });
 
 describe("design advisor: the space and the answer", { timeout: 30_000 }, () => {
+  it("predicts without the detail (sentences, warnings, the split of the losses), and the figures are the same as with it", () => {
+    const p = problemFor({ requiredAttenuation_db: 60, field: { frequency_hz: 60, amplitude_uT: 3000 }, shape: "cylinder", dimensions_mm: { diameter: 50, length: 120 }, constraints: { maxLayers: 2, materials: ["ni80", "ni50"], gauges_mm: [0.5] }, quantity: 1 });
+    for (const d of enumerateDesigns(p)) {
+      const input = predictionInput(p, d);
+      const full = predictShield(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL);
+      const bare = predictShield(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL, { detail: false });
+      expect(full.warnings.length).toBeGreaterThan(0); // a strong field: saturation warnings
+      expect(bare.warnings).toEqual([]);
+      expect(bare.asBuilt.summary).toBe("");
+      expect(full.asBuilt.losses.length).toBeGreaterThan(0);
+      expect(bare.asBuilt.losses).toEqual([]);
+      const figures = (r: typeof full) => ({ ...r, warnings: [], asBuilt: { ...r.asBuilt, summary: "", losses: [] }, layers: r.layers.map((l) => ({ ...l, muReason: "" })) });
+      expect(figures(bare)).toEqual(figures(full));
+    }
+  });
+
   const can = (over: Partial<DesignAdviceRequestInput> = {}): DesignAdviceRequestInput =>
     ({
       requiredAttenuation_db: 60,
