@@ -15,8 +15,8 @@
 //    whole cents is allowed for (see priceLowerBound).
 
 import { ceiling_db, constructionOf, fitFor, type BuildModel } from "../physics/build-model";
-import { priceBuildUp, type FabricatedPart, type PriceList } from "../fabrication";
-import type { AdviceProblem, Design } from "./space";
+import { discountFor, priceBuildUp, type FabricatedPart, type PriceList } from "../fabrication";
+import type { AdviceProblem, Design, LayerOption } from "./space";
 
 /** The highest as-built figure the design's construction allows, dB: its ceiling. */
 export function attenuationCeiling_db(p: AdviceProblem, d: Design, model: BuildModel): number {
@@ -32,33 +32,50 @@ export function lowEndCeiling_db(p: AdviceProblem, d: Design, model: BuildModel)
 }
 
 export interface PriceBounder {
-  /** a unit price in cents the design's exact price is never below (−Infinity: no bound for this list) */
-  lower(parts: FabricatedPart[], quantity: number): number;
+  /**
+   * A unit price in cents that the exact price of a design with these layers is never below
+   * (−Infinity: no bound for this list). `parts` may be all of the design's parts, or some of
+   * them: the unnested subtotal only grows as parts are added (each line's quantity is a sum
+   * over the parts, every rate is ≥ 0), so part of a design bounds the whole. A part list seen
+   * before (the same array) is not priced again.
+   */
+  lower(parts: FabricatedPart[], layers: readonly LayerOption[]): number;
 }
 
-export function priceBounder(priceList: PriceList, nestGap_mm: number): PriceBounder {
+export function priceBounder(priceList: PriceList, nestGap_mm: number, quantity: number): PriceBounder {
   // With a scrap credit above the price per kg, more scrap would lower the price: no bound.
   const creditAbovePrice = priceList.scrapCredit && priceList.materials.some((m) => m.scrapCreditPerKg_cents > m.pricePerKg_cents);
   const unnested: PriceList = { ...priceList, stockSheets: [], fallbackUtilisation: 1 };
   const creditOf = new Map(priceList.materials.map((m) => [m.materialId, priceList.scrapCredit ? m.scrapCreditPerKg_cents : 0]));
+  const m = priceList.marginPercent / 100;
+  const d = discountFor(quantity, priceList) / 100;
+  const subtotals = new WeakMap<FabricatedPart[], number>();
+  const subtotalOf = (parts: FabricatedPart[]) => {
+    let sub = subtotals.get(parts);
+    if (sub === undefined) subtotals.set(parts, (sub = priceBuildUp({ parts, quantity, priceList: unnested, nestGap_mm }).subtotal_cents));
+    return sub;
+  };
   return {
-    lower(parts, quantity) {
+    lower(parts, layers) {
       if (creditAbovePrice) return -Infinity;
-      const b = priceBuildUp({ parts, quantity, priceList: unnested, nestGap_mm });
-      // Per alloy and gauge, against the unnested lines: the material line
+      const sub = subtotalOf(parts);
+      // Per alloy and gauge (a design's groups are its layers' distinct alloy and gauge), the
+      // nested material line against the unnested one:
       // round(q(G)·p) − round(q(G − N)·c) − round(q(N)·p) ≥ (q(G) − q(N))·(p − c) − 0.0015·c − 1.5,
       // q rounding kg to 0.001 (±0.0005) and round to whole cents (±0.5); without a credit line
       // it is ≥ 0 (both rounding steps keep order).
       let slack = 0;
-      for (const m of b.material) {
-        const c = creditOf.get(m.materialId) ?? 0;
+      const groups = new Set<string>();
+      for (const l of layers) {
+        const key = `${l.material}@${l.thickness_mm}`;
+        if (groups.has(key)) continue;
+        groups.add(key);
+        const c = creditOf.get(l.material) ?? 0;
         if (c > 0) slack += 0.0015 * c + 1.5;
       }
       // exact = sub + round(sub·m) − round((sub + round(sub·m))·d) ≥ sub·(1 + m)(1 − d) − 1,
       // and the unit price round(exact / quantity) is a whole number ≥ exact / quantity − 0.5.
-      const m = b.marginPercent / 100;
-      const d = b.discountPercent / 100;
-      const exact = (b.subtotal_cents - slack) * (1 + m) * (1 - d) - 1;
+      const exact = (sub - slack) * (1 + m) * (1 - d) - 1;
       return Math.ceil(exact / quantity - 0.5 - 1e-9);
     },
   };

@@ -26,7 +26,10 @@ import { lowEndCeiling_db, priceBounder } from "./bounds";
 import { lacksSentence, noRecommendationReason, recommendationReason } from "./explain";
 import { memoNest } from "./nest-memo";
 import { byPrice, frontFlags, RunningFront } from "./pareto";
-import { countDesigns, enumerateDesigns, formable, massOf, outsideSize, oversize, partsMemo, predictionInput, summaryOf, type AdviceProblem, type Design } from "./space";
+import {
+  countDesigns, enumerateDesigns, formable, massOf, outsideSize, oversize, partsMemo, predictionInput, summaryOf,
+  type AdviceProblem, type Design, type DesignParts,
+} from "./space";
 
 /** What the search reads of the shop: the library, the as-built model, the current shop rates and the margin rule. */
 export interface AdviceShop {
@@ -156,7 +159,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const rule = shop.minSaturationMargin;
   const total = countDesigns(problem);
   const stats: SearchStats = { designs: total, ruledOut: { tooBig: 0, tooHeavy: 0, cannotReach: 0, dominated: 0, notMade: 0 }, predicted: 0, priced: 0, notListed: 0, elapsed_ms: 0 };
-  const bounder = priceBounder(shop.priceList, NEST_GAP_MM);
+  const bounder = priceBounder(shop.priceList, NEST_GAP_MM, problem.quantity);
   const nest = memoNest();
   const currency = shop.priceList.currency;
   /** designs dealt with: ruled out, or worked out */
@@ -199,7 +202,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const overweight: { lightest: { item: Pending; parts: FabricatedPart[]; mass: number } | null } = { lightest: null };
   const layerParts = partsMemo(problem);
 
-  const partsOf = (design: Design): FabricatedPart[] | null => {
+  const partsOf = (design: Design): DesignParts | null => {
     try {
       return layerParts(design);
     } catch (err) {
@@ -208,15 +211,15 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     }
   };
   /** the parts of a design that fits within the largest mass, or why not */
-  const fitting = (item: Pending): { parts: FabricatedPart[]; mass: number } | "not-made" | "too-heavy" => {
-    const parts = partsOf(item.design);
-    if (!parts) return "not-made";
-    const mass = massOf(parts);
+  const fitting = (item: Pending): { parts: FabricatedPart[]; byLayer: FabricatedPart[][]; mass: number } | "not-made" | "too-heavy" => {
+    const made = partsOf(item.design);
+    if (!made) return "not-made";
+    const mass = massOf(made.parts);
     if (problem.maxMass_kg !== undefined && mass > problem.maxMass_kg) {
-      if (!overweight.lightest || mass < overweight.lightest.mass) overweight.lightest = { item, parts, mass };
+      if (!overweight.lightest || mass < overweight.lightest.mass) overweight.lightest = { item, parts: made.parts, mass };
       return "too-heavy";
     }
-    return { parts, mass };
+    return { ...made, mass };
   };
   const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
     let r;
@@ -251,11 +254,15 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     return priceBuildUp({ parts, quantity: problem.quantity, priceList: shop.priceList, nestGap_mm: NEST_GAP_MM, nest }).unitPrice_cents;
   };
   /** strictly dominated by a design already worked out, and dearer than the cheapest listed */
-  const dominated = (e: Omit<EvaluatedDesign, "unitPrice_cents">, parts: FabricatedPart[]): boolean => {
+  const dominated = (e: Omit<EvaluatedDesign, "unitPrice_cents">, fit: { parts: FabricatedPart[]; byLayer: FabricatedPart[][] }): boolean => {
     if (!prune || cheapest.threshold === Infinity) return false;
     const rival = (e.keepsMargin ? keepFront : allFront).cheapestAsGood(e.mass_kg, e.attenuation_db);
     if (rival === Infinity) return false;
-    return bounder.lower(parts, problem.quantity) > Math.max(rival, cheapest.threshold);
+    const bar = Math.max(rival, cheapest.threshold);
+    const layers = e.design.layers;
+    // one layer's parts alone often settle it (their bound is kept for the next design with that layer)
+    for (let i = layers.length - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], layers) > bar) return true;
+    return layers.length > 1 && bounder.lower(fit.parts, layers) > bar;
   };
 
   for (const item of pending) {
@@ -281,7 +288,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db) nearestMiss = { evaluated: e, parts };
       continue;
     }
-    if (dominated(e, parts)) {
+    if (dominated(e, fit)) {
       stats.ruledOut.dominated++;
       continue;
     }
@@ -358,7 +365,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (e) closest = describeClosest({ ...e, unitPrice_cents: price(parts) }, shortfallOf(e, {}, mass - problem.maxMass_kg!));
     } else if (leastOversize) {
       const item: Pending = { design: leastOversize.design, outside: leastOversize.outside, cost: 0 };
-      const parts = partsOf(item.design);
+      const parts = partsOf(item.design)?.parts;
       const e = parts && predict(item, parts);
       if (parts && e) {
         const mass = massOf(parts);

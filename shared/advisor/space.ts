@@ -155,7 +155,14 @@ export function designConfig(p: AdviceProblem, d: Design): DesignConfig {
  * layer from its inside), so the outer layer of thousands of nests is worked out a few hundred
  * times. Each layer's parts come from partsForDesign itself, so the list is the same.
  */
-export function partsMemo(p: AdviceProblem): (d: Design) => FabricatedPart[] {
+export interface DesignParts {
+  /** every part, as partsForDesign lists them */
+  parts: FabricatedPart[];
+  /** each layer's own parts, innermost first (the same array for every design with that layer on that inside) */
+  byLayer: FabricatedPart[][];
+}
+
+export function partsMemo(p: AdviceProblem): (d: Design) => DesignParts {
   // a tree per method and gap, one level per inner layer's thickness; each node keeps the parts
   // of a layer on that inside, by the layer's alloy and gauge
   interface Node {
@@ -163,12 +170,14 @@ export function partsMemo(p: AdviceProblem): (d: Design) => FabricatedPart[] {
     own: Map<LayerOption, FabricatedPart[]>;
   }
   const node = (): Node => ({ inner: new Map(), own: new Map() });
-  const roots = new Map<string, Node>();
+  const roots = new Map<AdviceMethod, Map<number, Node>>();
   return (d) => {
-    const rootKey = `${d.method}|${d.gap_mm}`;
-    let at = roots.get(rootKey);
-    if (!at) roots.set(rootKey, (at = node()));
+    let byGap = roots.get(d.method);
+    if (!byGap) roots.set(d.method, (byGap = new Map()));
+    let at = byGap.get(d.gap_mm);
+    if (!at) byGap.set(d.gap_mm, (at = node()));
     const parts: FabricatedPart[] = [];
+    const byLayer: FabricatedPart[][] = [];
     for (let i = 0; i < d.layers.length; i++) {
       const l = d.layers[i];
       let own = at.own.get(l);
@@ -177,11 +186,12 @@ export function partsMemo(p: AdviceProblem): (d: Design) => FabricatedPart[] {
         at.own.set(l, own);
       }
       for (const x of own) parts.push(x);
+      byLayer.push(own);
       let next = at.inner.get(l.thickness_mm);
       if (!next) at.inner.set(l.thickness_mm, (next = node()));
       at = next;
     }
-    return parts;
+    return { parts, byLayer };
   };
 }
 

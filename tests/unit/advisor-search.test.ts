@@ -281,12 +281,14 @@ describe("design advisor: the bounds cannot drop a winner [derived]", { timeout:
             ...(sheets ? {} : { stockSheets: [] }),
           };
           const problem = problemFromArbitrary(r);
-          const bound = priceBounder(priceList, 3);
+          const bound = priceBounder(priceList, 3, problem.quantity);
           const partsOf = partsMemo(problem);
           for (const d of designs(problem).slice(0, 30)) {
-            const parts = partsOf(d);
+            const { parts, byLayer } = partsOf(d);
             const exact = priceBuildUp({ parts, quantity: problem.quantity, priceList, nestGap_mm: 3 }).unitPrice_cents;
-            expect(bound.lower(parts, problem.quantity)).toBeLessThanOrEqual(exact);
+            expect(bound.lower(parts, d.layers)).toBeLessThanOrEqual(exact);
+            // any layer's own parts bound the whole design
+            for (const own of byLayer) expect(bound.lower(own, d.layers)).toBeLessThanOrEqual(bound.lower(parts, d.layers));
           }
         },
       ),
@@ -302,11 +304,13 @@ describe("design advisor: the bounds cannot drop a winner [derived]", { timeout:
         const nest = memoNest();
         for (const d of designs(problem).slice(0, 30)) {
           const direct = partsForDesign(designConfig(problem, d));
-          expect(partsOf(d)).toEqual(direct);
+          const { parts, byLayer } = partsOf(d);
+          expect(parts).toEqual(direct);
+          expect(byLayer.flat()).toEqual(direct);
           const a = priceBuildUp({ parts: direct, quantity: problem.quantity, priceList: defaultPriceList, nestGap_mm: 3 });
-          const b = priceBuildUp({ parts: partsOf(d), quantity: problem.quantity, priceList: defaultPriceList, nestGap_mm: 3, nest });
+          const b = priceBuildUp({ parts, quantity: problem.quantity, priceList: defaultPriceList, nestGap_mm: 3, nest });
           expect(b).toEqual(a);
-          expect(massOf(direct)).toBe(massOf(partsOf(d)));
+          expect(massOf(direct)).toBe(massOf(parts));
         }
       }),
       { numRuns: 25 },
