@@ -5,8 +5,8 @@ import { parseInput } from "../middleware/validate";
 import { perUserRateLimit, requireUser } from "../middleware/security";
 import { designAdviser } from "../services/designAdviser";
 
-/** A search takes about a second of a core: enough for a person comparing requirements, not for a loop. */
-const SEARCHES_PER_MINUTE = 20;
+/** A search takes up to a second or two of a core: plenty for a person comparing requirements, not for a loop. */
+const SEARCHES_PER_MINUTE = 60;
 
 /**
  * The design advisor: any signed-in user (customers and staff). It writes nothing, so it needs
