@@ -75,6 +75,7 @@ cat <<TEXT
     design check     $APP_URL/design-check
     flat blank       $APP_URL/flat-blank
     mail inbox       http://127.0.0.1:$MAIL_WEB_PORT   (every mail the app sends lands here)
+    payments         http://127.0.0.1:$PAYMENTS_PORT   (local stand-in: no money moves)
     database         postgres://postgres@127.0.0.1:$PGPORT/fluxwright
 
   Demo sign-ins (password: ${DEMO_PASSWORD:-fluxwright-demo})

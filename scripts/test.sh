@@ -9,6 +9,7 @@ ensure_node_modules
 ensure_lint_modules
 ensure_postgres_binaries
 ensure_chromium
+ensure_poppler
 
 # A free port from 54339 up, so a second run (or a running `npm start`) does not collide.
 port=${TEST_PGPORT:-54339}

@@ -1,4 +1,3 @@
-import connectPgSimple from "connect-pg-simple";
 import cookieParser from "cookie-parser";
 import express, { type Express } from "express";
 import session from "express-session";
@@ -10,11 +9,23 @@ import pino, { type Logger } from "pino";
 import { pinoHttp } from "pino-http";
 import type { Sequelize } from "sequelize";
 import { createPassport } from "./auth/passport";
+import { createSessionStore } from "./auth/session-store";
 import { projectRoot } from "./project-root";
 import { loadConfig, type Config } from "./config";
 import { getSequelize } from "./db/sequelize";
 import type { AppDeps } from "./deps";
-import { createMailer, type Mailer } from "./jobs/mailer";
+import { renderMailAttachment } from "./documents";
+import { createFileStore } from "./files/store";
+import { createMailer, mailQueueDefinition, type Mailer } from "./jobs/mailer";
+import { createJobQueue } from "./jobs/queue";
+import { quoteReminderQueueDefinition, startQuoteReminders } from "./jobs/reminders";
+import { ShopSettings } from "./models";
+import { createStripe } from "./payments/stripe";
+import { designsRouter } from "./routes/designs";
+import { ordersRouter } from "./routes/orders";
+import { quotesRouter } from "./routes/quotes";
+import { settingsRouter } from "./routes/settings";
+import { webhooksRouter } from "./routes/webhooks";
 import { apiNotFound, onError } from "./middleware/on-error";
 import { createCsrf, publicRateLimit } from "./middleware/security";
 import { initModels } from "./models";
@@ -49,8 +60,24 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const logger = options.logger ?? pino({ level: config.LOG_LEVEL ?? (config.NODE_ENV === "test" ? "silent" : "info") });
   const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
   initModels(sequelize);
-  const mailer = options.mailer ?? createMailer({ host: config.SMTP_HOST, port: config.SMTP_PORT, from: config.MAIL_FROM, logger });
-  const deps: AppDeps = { config, sequelize, mailer, logger, publicLimit: publicRateLimit(config.RATE_LIMIT_PUBLIC) };
+  // Mail and scheduled work go through the job queue in PostgreSQL (started in the background).
+  const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition] });
+  const mailer =
+    options.mailer ??
+    createMailer({
+      host: config.SMTP_HOST,
+      port: config.SMTP_PORT,
+      queue: jobs,
+      logger,
+      // the shop's setting, read when the mail goes out
+      sender: async () => (await ShopSettings.findByPk(1))?.mailFrom ?? config.MAIL_FROM,
+      renderAttachment: renderMailAttachment,
+    });
+  const deps: AppDeps = {
+    config, sequelize, mailer, logger, publicLimit: publicRateLimit(config.RATE_LIMIT_PUBLIC),
+    stripe: createStripe(config), files: createFileStore(config.UPLOAD_DIR), jobs,
+  };
+  void startQuoteReminders({ queue: jobs, sequelize, mailer, config, logger }).catch((err) => logger.error({ err }, "quote reminders did not start"));
   const secure = config.appUrl.startsWith("https://");
 
   const app = express() as FluxwrightApp;
@@ -64,6 +91,9 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   // Health first: probes poll it hard, and its tiny JSON answer needs no page-security headers,
   // request log, body parser or session.
   app.use("/api", healthRouter(deps));
+  // The payment service's events, likewise: a machine's JSON, verified on its raw bytes (so before
+  // any body parser), no session, no page-security headers; failures are still logged.
+  app.use("/api", webhooksRouter(deps));
 
   app.use(
     helmet({
@@ -100,10 +130,9 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
 
   // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
   // (a CSRF token, a sign-in), so public read-only routes create no session rows.
-  const PgStore = connectPgSimple(session);
   const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
   sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
-  const store = new PgStore({ pool: sessionPool, tableName: "session", createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
+  const store = createSessionStore(sessionPool);
   const sessionMiddleware = session({
     name: "fw.sid",
     secret: config.SESSION_SECRET,
@@ -133,6 +162,10 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(priceEstimatesRouter(deps));
   api.use(designAdviceRouter(deps));
   api.use(shopRatesRouter(deps));
+  api.use(designsRouter(deps));
+  api.use(quotesRouter(deps));
+  api.use(ordersRouter(deps));
+  api.use(settingsRouter(deps));
   api.use(apiNotFound);
   app.use("/api", api);
 
@@ -148,7 +181,8 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   app.locals.close = async () => {
     store.close();
     await sessionPool.end().catch(() => {});
-    await mailer.idle();
+    await mailer.idle(2_000);
+    await jobs.stop();
   };
   return app;
 }

@@ -15,7 +15,7 @@ const freePort = () =>
     });
   });
 
-async function serve(kind: "app" | "bare"): Promise<{ url: string; child: ChildProcess }> {
+export async function serve(kind: "app" | "bare"): Promise<{ url: string; child: ChildProcess }> {
   const port = await freePort();
   const child = fork(path.join(here, "serve.ts"), [kind, String(port)], { execArgv: ["--import", "tsx"], stdio: "inherit" });
   await new Promise<void>((resolve, reject) => {
@@ -34,7 +34,7 @@ export interface HttpCase {
   minRatio?: number;
 }
 
-async function rps(url: string, c: { method?: string; body?: unknown }, seconds: number): Promise<number> {
+export async function rps(url: string, c: { method?: string; body?: unknown }, seconds: number): Promise<number> {
   const result = await autocannon({
     url,
     method: (c.method ?? "GET") as "GET" | "POST",

@@ -34,6 +34,9 @@ try {
 }
 rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 
+section("ordering, 10 connections");
+rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
+
 section("design advisor route (signed in)");
 rows.push(...(await (await import("./advisor-route")).benchAdvisorRoute()));
 

@@ -67,6 +67,7 @@ build_all() {
 # stop with it: one line each. (The tests start their own in tests/support/database-setup.ts.)
 STAND_INS=(
   fake-services/mail/index.ts
+  fake-services/payments/index.ts
 )
 
 pg_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -1; }
@@ -85,6 +86,14 @@ ensure_chromium() {
   if [ ! -x /usr/bin/chromium ]; then
     log "installing Chromium from Debian (browser tests)"
     apt_install chromium
+  fi
+}
+
+# pdftotext and pdfinfo: the tests read the PDFs the app renders with an extractor of their own.
+ensure_poppler() {
+  if ! command -v pdftotext >/dev/null; then
+    log "installing poppler-utils from Debian (PDF checks in the tests)"
+    apt_install poppler-utils
   fi
 }
 

@@ -4,6 +4,6 @@ import { seedDemo } from "../db/seed";
 import { closeSequelize, getSequelize } from "../db/sequelize";
 
 const config = loadConfig();
-const { created } = await seedDemo(getSequelize(config.DATABASE_URL), { password: config.DEMO_PASSWORD });
+const { created } = await seedDemo(getSequelize(config.DATABASE_URL), { password: config.DEMO_PASSWORD, appUrl: config.appUrl });
 console.log(created.length ? `demo data created: ${created.length} records` : "demo data already present (seed skipped)");
 await closeSequelize();

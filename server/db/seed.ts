@@ -4,8 +4,9 @@ import { hashPassword } from "../auth/passwords";
 import type { Transaction } from "sequelize";
 import { defaultPriceList } from "../../shared/fabrication";
 import { priceListSchema } from "../../shared/schemas/pricing";
-import { Material, Organization, PriceListVersion, User, initModels, recordEvent } from "../models";
+import { Material, Organization, PriceListVersion, ShopSettings, User, initModels, recordEvent } from "../models";
 import { materialSeedRows } from "./material-rows";
+import { seedOrdering } from "./seed-ordering";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -22,10 +23,20 @@ export const DEMO = {
 };
 
 /** Idempotent: creates what is missing and leaves what exists (a changed demo password is kept). */
-export async function seedDemo(sequelize: Sequelize, opts: { password: string }): Promise<{ created: string[] }> {
+export const DEMO_SHOP_DETAILS = {
+  name: "Wrenfield Shield Works (demo)",
+  address: "Unit 4, Kiln Lane\nWrenfield Trading Estate\nWF3 9QA",
+  email: "orders@wrenfield.example",
+  phone: "+44 1632 960 123",
+  mailFrom: "Wrenfield Shield Works (demo) <orders@wrenfield.example>",
+};
+
+export async function seedDemo(sequelize: Sequelize, opts: { password: string; appUrl?: string }): Promise<{ created: string[] }> {
   initModels(sequelize);
   const created: string[] = [];
   await sequelize.transaction(async (transaction) => {
+    // one seed at a time (two test runners or a start and a test may seed the same database)
+    await sequelize.query(`select pg_advisory_xact_lock(hashtext('fluxwright-demo-seed'))`, { transaction });
     const [shop, shopNew] = await Organization.findOrCreate({ where: { name: DEMO.shop }, defaults: { name: DEMO.shop, kind: "shop" }, transaction });
     if (shopNew) created.push(shop.name);
     const customers: Organization[] = [];
@@ -50,6 +61,23 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string })
     if (await seedShopRates(transaction)) created.push("price list version 1");
     const materials = await seedMaterials(transaction);
     if (materials.length) created.push(`materials ${materials.join(", ")}`);
+    // the shop's own details, while they are still the migration's placeholder
+    const shopSettings = await ShopSettings.current(transaction);
+    if (shopSettings.name === "Fluxwright shield shop") {
+      await shopSettings.update(DEMO_SHOP_DETAILS, { transaction });
+      created.push("shop details");
+    }
+    const users = await User.findAll({ where: { email: DEMO.users.map((u) => u.email) }, transaction });
+    const byEmail = (email: string) => users.find((u) => u.email === email)!;
+    created.push(
+      ...(await seedOrdering({
+        customers,
+        buyers: [byEmail("customer@demo.test"), byEmail("customer2@demo.test")],
+        planner: byEmail("admin@demo.test"),
+        appUrl: opts.appUrl ?? "http://127.0.0.1:4100",
+        transaction,
+      })),
+    );
   });
   return { created };
 }

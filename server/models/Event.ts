@@ -37,6 +37,8 @@ export interface EventProps {
   subject: { type: string; id?: string | null };
   data?: Record<string, unknown>;
   ip?: string | null;
+  /** when it happened, if not now (the demo scenario's past) */
+  at?: Date;
 }
 
 /** Write the trail row inside the caller's transaction, so the record and its event commit together. */
@@ -50,6 +52,7 @@ export function recordEvent(props: EventProps, transaction: Transaction): Promis
       subjectId: props.subject.id ?? null,
       data: props.data ?? {},
       ip: props.ip ?? null,
+      ...(props.at ? { createdAt: props.at } : {}),
     },
     { transaction },
   );

@@ -1,16 +1,27 @@
 import type { Sequelize } from "sequelize";
 import { AuthToken } from "./AuthToken";
+import { CheckoutSession } from "./CheckoutSession";
+import { Design } from "./Design";
 import { Event } from "./Event";
+import { Invoice } from "./Invoice";
 import { Material } from "./Material";
+import { Order } from "./Order";
+import { OrderFile } from "./OrderFile";
 import { Organization } from "./Organization";
+import { Payment } from "./Payment";
 import { PriceListVersion } from "./PriceListVersion";
+import { Quote } from "./Quote";
+import { ShopSettings } from "./ShopSettings";
 import { StoredFile } from "./StoredFile";
 import { User } from "./User";
+import { WebhookEvent } from "./WebhookEvent";
 
 export { AuthToken, Event, Organization, StoredFile, User };
 export { PriceListVersion };
 export { Material };
+export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
 export { recordEvent } from "./Event";
+export { paymentTotals } from "./Payment";
 
 let bound: Sequelize | undefined;
 
@@ -25,4 +36,14 @@ export function initModels(sequelize: Sequelize): void {
   PriceListVersion.initModel(sequelize);
   PriceListVersion.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
   Material.initModel(sequelize);
+
+  // ordering
+  for (const model of [Design, Quote, Order, OrderFile, CheckoutSession, Payment, WebhookEvent, Invoice, ShopSettings]) model.initModel(sequelize);
+  Design.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  Quote.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  Quote.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
+  Order.belongsTo(User, { foreignKey: "createdById", as: "createdBy" });
+  Order.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
+  Order.belongsTo(Quote, { foreignKey: "quoteId", as: "quote" });
+  OrderFile.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
 }

@@ -1,5 +1,5 @@
 import type { ShopRatesJson, ShopRatesVersionJson } from "../../shared/schemas/shop-rates";
-import { constructionSettingsOf, designSearchSettingsOf } from "../../shared/schemas/pricing";
+import { constructionSettingsOf, designSearchSettingsOf, priceListSchema } from "../../shared/schemas/pricing";
 import type { PriceListVersion } from "../models";
 
 const presentCreator = (v: PriceListVersion) => (v.createdBy ? { id: v.createdBy.id, name: v.createdBy.name } : null);
@@ -10,7 +10,8 @@ export function presentShopRatesVersion(v: PriceListVersion): ShopRatesVersionJs
 
 /** The current shop rates as the planner's page reads them: its parts plus who saved them when. */
 export function presentShopRates(v: PriceListVersion): ShopRatesJson {
-  const { stockSheets, formingLimits, construction: _stored, designSearch: _search, ...priceList } = v.data;
+  // parsed, so a version saved before a field existed shows that field's default
+  const { stockSheets, formingLimits, construction: _stored, designSearch: _search, ...priceList } = priceListSchema.parse(v.data);
   return {
     ...presentShopRatesVersion(v),
     priceList,

@@ -6,7 +6,7 @@ import { AppError, ValidationError } from "../errors";
 import { presentDesignAdvice } from "../presenters/design-advice";
 import { buildModelCatalog } from "./buildModelCatalog";
 import { materialCatalog } from "./materialCatalog";
-import { currentShopRates } from "./shopRatesUpdater";
+import { currentPriceList } from "./shopRatesUpdater";
 
 /** The search runs in slices this long, so the process keeps answering other requests meanwhile. */
 const SLICE_MS = 25;
@@ -37,7 +37,7 @@ async function takeTurn(): Promise<() => void> {
  * has left; the search then stops at its next slice.
  */
 export async function designAdviser(props: { request: DesignAdviceRequest; gone?: { value: boolean } }): Promise<DesignAdviceJson | null> {
-  const [catalog, buildModel, current] = await Promise.all([materialCatalog(), buildModelCatalog(), currentShopRates()]);
+  const [catalog, buildModel, current] = await Promise.all([materialCatalog(), buildModelCatalog(), currentPriceList()]);
   const priceList = current.data;
   const settings = designSearchSettingsOf(priceList);
   const offer = adviceProblemFor(props.request, { materials: catalog.list, priceList, settings });

@@ -1,3 +1,6 @@
+import { formatMoney } from "../../shared/schemas/documents";
+import type { MailMessage } from "../jobs/mailer";
+
 // The words of the mails the app sends. Plain text: it reads the same in every client.
 
 export function invitationMail(p: { to: string; link: string; role: string; organizationName: string | null; invitedBy: string; expiresAt: Date }) {
@@ -43,6 +46,113 @@ export function welcomeMail(p: { to: string; name: string; organizationName: str
       `Hello ${p.name},`,
       ``,
       `Your account for ${p.organizationName} is ready. Sign in at ${p.appUrl}/sign-in to check designs, get quotes and follow your orders.`,
+    ].join("\n"),
+  };
+}
+
+// --- ordering ---
+
+
+const day = (d: Date) => d.toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+
+interface OrderMailBase {
+  to: string;
+  name: string;
+  orderNumber: string;
+  link: string;
+}
+
+export function orderReceivedMail(p: OrderMailBase & { quoteNumber: string; total_cents: number; currency: string; purchaseOrder: string | null }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Order ${p.orderNumber} received`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `Thank you: we have your order ${p.orderNumber} for quote ${p.quoteNumber}${p.purchaseOrder ? ` (your purchase order ${p.purchaseOrder})` : ""}.`,
+      `Amount due: ${formatMoney(p.total_cents, p.currency)}. We start work once the payment has arrived; pay and follow the order here:`,
+      ``,
+      p.link,
+      ``,
+      `You can attach your drawings to the order on the same page.`,
+    ].join("\n"),
+  };
+}
+
+export function paymentReceivedMail(p: OrderMailBase & { amount_cents: number; currency: string; invoiceNumber: string; invoiceId: string; leadTime_workingDays: number }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Payment received for order ${p.orderNumber}: invoice ${p.invoiceNumber}`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `We have received ${formatMoney(p.amount_cents, p.currency)} for order ${p.orderNumber}. Invoice ${p.invoiceNumber} is attached.`,
+      `Your order is now in the planning queue; the lead time is ${p.leadTime_workingDays} working days from today.`,
+      ``,
+      `Follow the order: ${p.link}`,
+    ].join("\n"),
+    attachments: [{ document: "invoice", id: p.invoiceId }],
+  };
+}
+
+export function orderReleasedMail(p: OrderMailBase & { lots: string[] }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Order ${p.orderNumber} is in production`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `Order ${p.orderNumber} has been released to the shop floor${p.lots.length ? ` as lot${p.lots.length === 1 ? "" : "s"} ${p.lots.join(", ")}` : ""}.`,
+      `Each lot is formed, hydrogen-annealed and measured before it ships with its certificate of conformance.`,
+      ``,
+      `Follow the order: ${p.link}`,
+    ].join("\n"),
+  };
+}
+
+export function orderShippedMail(p: OrderMailBase & { carrier?: string | null; trackingReference?: string | null }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Order ${p.orderNumber} has shipped`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `Order ${p.orderNumber} left the shop today${p.carrier ? ` with ${p.carrier}` : ""}${p.trackingReference ? ` (reference ${p.trackingReference})` : ""}.`,
+      `Annealed shields lose permeability when bent, dropped or drilled: unpack them with care and keep them in their padding until they are fitted.`,
+      `The lots' certificates are on the order page: ${p.link}`,
+    ].join("\n"),
+  };
+}
+
+export function quoteExpiringMail(p: { to: string; name: string; quoteNumber: string; expiresAt: Date; total_cents: number; currency: string; link: string }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Quote ${p.quoteNumber} expires on ${day(p.expiresAt)}`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `Your quote ${p.quoteNumber} (${formatMoney(p.total_cents, p.currency)}) holds its price until ${day(p.expiresAt)}.`,
+      `To order at this price, place the order before then:`,
+      ``,
+      p.link,
+      ``,
+      `After that date you can ask for a new quote at the rates of the day from the same page.`,
+    ].join("\n"),
+  };
+}
+
+export function refundIssuedMail(p: OrderMailBase & { amount_cents: number; currency: string; reason: string }): MailMessage {
+  return {
+    to: p.to,
+    subject: `Refund for order ${p.orderNumber}`,
+    text: [
+      `Hello ${p.name},`,
+      ``,
+      `We have refunded ${formatMoney(p.amount_cents, p.currency)} of order ${p.orderNumber} to the card it was paid with.`,
+      `Reason: ${p.reason}`,
+      `Card refunds usually reach the account within a few working days.`,
+      ``,
+      `The order: ${p.link}`,
     ].join("\n"),
   };
 }

@@ -1,6 +1,6 @@
 import {
   FabricationInputError, nestBlanks, partsForDesign, priceBuildUp,
-  type DesignConfig, type FabricatedPart, type NestBlank,
+  type DesignConfig, type FabricatedPart, type NestBlank, type PriceBuildUp,
 } from "../../shared/fabrication";
 import type { DesignConfiguration, NestingGroup, PriceEstimate } from "../../shared/schemas/price-estimate";
 import type { PriceList } from "../../shared/schemas/pricing";
@@ -15,11 +15,10 @@ const nestShape = (p: FabricatedPart, label: string): NestBlank =>
   p.blank.kind === "disc" ? { id: label, kind: "disc", diameter_mm: p.blank.diameter_mm } : { id: label, kind: "rectangle", length_mm: p.blank.length_mm, width_mm: p.blank.width_mm };
 
 /**
- * Parts, nesting on the stock sheets and the price build-up of a configuration at a quantity,
- * from the price list given (the current one for an estimate; a quote keeps its version).
+ * The parts list of a configuration: every layer's blanks, with densities and forming limits
+ * from the materials library and the given price list. Bad input is a 400 naming its field.
  */
-export function priceEstimator(props: { configuration: DesignConfiguration; quantity: number; priceList: PriceList }): PriceEstimate {
-  const { configuration: c, quantity, priceList } = props;
+export function designParts(c: DesignConfiguration, priceList: PriceList): FabricatedPart[] {
   const layers = c.layers.map((layer, i) => {
     const field = `configuration.layers.${i}.material`;
     const m = materialResolver({ id: layer.material, field, priceList });
@@ -43,13 +42,27 @@ export function priceEstimator(props: { configuration: DesignConfiguration; quan
     // a hole without a collar is cut in the blank, no part of its own
     holes: (c.holes ?? []).filter((h) => h.collarLength_mm > 0),
   };
-  let parts: FabricatedPart[];
   try {
-    parts = partsForDesign(design);
+    return partsForDesign(design);
   } catch (err) {
     if (err instanceof FabricationInputError) throw ValidationError({ [`configuration.${err.field}`]: err.message });
     throw err;
   }
+}
+
+/** The price build-up of a configuration at a quantity (no nesting picture: what a quote needs). */
+export function designPrice(props: { configuration: DesignConfiguration; quantity: number; priceList: PriceList }): { parts: FabricatedPart[]; price: PriceBuildUp } {
+  const parts = designParts(props.configuration, props.priceList);
+  return { parts, price: priceBuildUp({ parts, quantity: props.quantity, priceList: props.priceList, nestGap_mm: NEST_GAP_MM }) };
+}
+
+/**
+ * Parts, nesting on the stock sheets and the price build-up of a configuration at a quantity,
+ * from the price list given (the current one for an estimate; a quote keeps its version).
+ */
+export function priceEstimator(props: { configuration: DesignConfiguration; quantity: number; priceList: PriceList }): PriceEstimate {
+  const { configuration: c, quantity, priceList } = props;
+  const parts = designParts(c, priceList);
   const price = priceBuildUp({ parts, quantity, priceList, nestGap_mm: NEST_GAP_MM });
 
   const nesting: NestingGroup[] = price.material.map((m) => {

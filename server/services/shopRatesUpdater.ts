@@ -41,6 +41,32 @@ export async function currentShopRates(transaction?: Transaction): Promise<Price
   return current;
 }
 
+/** Parsed documents by version id: a version never changes, so its parse can be kept. */
+const parsedVersions = new Map<string, PriceList>();
+/** The head as last read; a quote's insert checks it is still the head, so a stale one only costs a retry. */
+let lastHead: { id: string; version: number; data: PriceList; readAt: number } | undefined;
+const HEAD_FRESH_MS = 2000;
+
+/**
+ * The current version's id, number and parsed document (defaults filled in for fields an older
+ * version lacks). Reads the small id row at most every two seconds (`fresh` forces it); the
+ * document is parsed once per version.
+ */
+export async function currentPriceList(transaction?: Transaction, opts: { fresh?: boolean } = {}): Promise<{ id: string; version: number; data: PriceList }> {
+  if (!opts.fresh && !transaction && lastHead && Date.now() - lastHead.readAt < HEAD_FRESH_MS) return lastHead;
+  const head = await PriceListVersion.findOne({ attributes: ["id", "version"], order: [["version", "DESC"]], transaction });
+  if (!head) throw new AppError(503, "SHOP_RATES_MISSING", "No price list has been set up yet; run the demo seed or ask the planner.");
+  let data = parsedVersions.get(head.id);
+  if (!data) {
+    const row = await PriceListVersion.findByPk(head.id, { attributes: ["data"], transaction });
+    data = priceListSchema.parse(row!.data);
+    if (parsedVersions.size > 20) parsedVersions.clear();
+    parsedVersions.set(head.id, data);
+  }
+  lastHead = { id: head.id, version: head.version, data, readAt: Date.now() };
+  return lastHead;
+}
+
 /**
  * Replaces one part of the current price list by inserting the next version, and records the
  * before/after difference as an event in the same transaction. Saves at the same moment take turns
@@ -72,6 +98,7 @@ export async function shopRatesUpdater(props: { actor: Actor; change: ShopRatesC
   const parsed = priceListSchema.safeParse(next);
   if (!parsed.success) throw ValidationError(fieldErrors(parsed.error));
   const diff = jsonDiff(before, parsed.data);
+  lastHead = undefined; // this process prices with the new version as soon as it commits
   const version = await PriceListVersion.create(
     { version: current.version + 1, part: change.part as ShopRatePart, data: parsed.data, createdById: actor.id },
     { transaction },

@@ -199,6 +199,8 @@ export const defaultPriceList: PriceList = {
     { minQuantity: 200, discountPercent: 12 },
   ],
   fallbackUtilisation: 0.7,
+  leadTimeWorkingDays: 20,
+  quoteValidityDays: 30,
   stockSheets: [
     ...NI_GAUGES.flatMap((t) => [
       { materialId: "ni80", thickness_mm: t, width_mm: 610, length_mm: 1524 },

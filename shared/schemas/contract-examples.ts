@@ -29,3 +29,23 @@ export const contractBlankExamples = deepFreeze({
   rolled: { shape: "cylinder", method: "rolled", dimensions_mm: { diameter: 50, length: 60 }, thickness_mm: 1.0, seamOverlap_mm: 6 },
   bent: { shape: "box", method: "bent", dimensions_mm: { width: 80, depth: 60, height: 40 }, thickness_mm: 1.0, bendRadius_mm: 1.5, kFactor: 0.44 },
 });
+
+/**
+ * POST /api/quotes: a configuration the shop can make and price: the prediction body (two
+ * library layers), the forming method and its blank fields, and the attenuation needed.
+ */
+export const quoteConfigurationExample = deepFreeze({
+  shape: "cylinder",
+  method: "drawn",
+  dimensions_mm: { diameter: 50, length: 120 },
+  ends: "closed",
+  layers: [
+    { material: "ni80", thickness_mm: 1.0, gap_mm: 10 },
+    { material: "ni80", thickness_mm: 1.0 },
+  ],
+  field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
+  state: "annealed",
+  cornerRadius_mm: 3,
+  trim_mm: 0,
+  requiredAttenuation_db: 40,
+});

@@ -132,6 +132,12 @@ export const priceListSchema = z.object({
   formingLimits: z.array(formingLimitsSchema),
   construction: constructionSettingsSchema.optional(),
   designSearch: designSearchSettingsSchema.optional(),
+  /**
+   * Quoted with every quote: working days from payment to dispatch, and how many days a quote
+   * holds its price. Optional with defaults, so versions saved before they existed still parse.
+   */
+  leadTimeWorkingDays: z.number().int().min(1).max(260).default(20),
+  quoteValidityDays: z.number().int().min(1).max(365).default(30),
 });
 export type PriceList = z.infer<typeof priceListSchema>;
 

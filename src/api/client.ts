@@ -130,7 +130,9 @@ async function readJson(response: Response): Promise<unknown> {
 
 async function request<T>(method: Method, path: string, options: RequestOptions = {}, isRetry = false): Promise<T> {
   const headers: Record<string, string> = { Accept: "application/json" };
-  if (options.body !== undefined) headers["Content-Type"] = "application/json";
+  // a FormData body (file uploads) sets its own multipart type and boundary
+  const form = typeof FormData !== "undefined" && options.body instanceof FormData;
+  if (options.body !== undefined && !form) headers["Content-Type"] = "application/json";
   if (mutating.has(method) && !options.computation) headers["X-CSRF-Token"] = await getCsrfToken();
 
   let response: Response;
@@ -138,7 +140,7 @@ async function request<T>(method: Method, path: string, options: RequestOptions 
     response = await fetch(buildUrl(path, options.query), {
       method,
       headers,
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : form ? (options.body as FormData) : JSON.stringify(options.body),
       credentials: "same-origin",
       signal: options.signal,
     });

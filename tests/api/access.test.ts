@@ -22,8 +22,19 @@ const plannerOnly: Call[] = [
   { method: "post", path: "/api/materials", body: {} },
   { method: "put", path: "/api/materials/ni80", body: {} },
   { method: "get", path: "/api/materials/ni80/history" },
+  { method: "get", path: "/api/shop-settings" },
+  { method: "put", path: "/api/shop-settings", body: {} },
 ];
-const signedIn: Call[] = [...plannerOnly, { method: "get", path: "/api/auth/me" }, { method: "post", path: "/api/price-estimates", body: {} }];
+const ordering: Call[] = [
+  { method: "get", path: "/api/designs" },
+  { method: "post", path: "/api/designs", body: {} },
+  { method: "post", path: "/api/designs/compare", body: {} },
+  { method: "get", path: "/api/quotes" },
+  { method: "post", path: "/api/quotes", body: {} },
+  { method: "get", path: "/api/orders" },
+  { method: "post", path: "/api/orders", body: {} },
+];
+const signedIn: Call[] = [...plannerOnly, ...ordering, { method: "get", path: "/api/auth/me" }, { method: "post", path: "/api/price-estimates", body: {} }];
 
 describe("signed out", () => {
   it.each(signedIn)("401 for $method $path", async (c) => {

@@ -36,7 +36,7 @@ type Candidate = {
   keepsMargin: boolean;
 };
 
-describe("POST /api/design-advice", () => {
+describe("POST /api/design-advice", { timeout: 30_000 }, () => {
   it("401 signed out", async () => {
     const res = await request(app).post("/api/design-advice").send(can());
     expect(res.status).toBe(401);
@@ -93,7 +93,7 @@ describe("POST /api/design-advice", () => {
     expect(res.body.error.fields.constraints).toMatch(/180888/);
   });
 
-  it("every candidate meets the requirement at its band's low end; the same configuration gives the same figure and price through the prediction and the price estimate", async () => {
+  it("every candidate meets the requirement at its band's low end; the same configuration gives the same figure and price through the prediction, the price estimate and a quote", async () => {
     const { agent, csrf } = await customer();
     for (const body of [can(), can({ shape: "box", requiredAttenuation_db: 50, dimensions_mm: { width: 80, depth: 60, height: 40 }, quantity: 7 })]) {
       // the shop's rates may move under another test file's edit: ask again until both answers use one version
@@ -123,9 +123,14 @@ describe("POST /api/design-advice", () => {
           const mass = estimate.body.parts.reduce((s: number, p: { mass_kg: number; quantityPerAssembly: number }) => s + p.mass_kg * p.quantityPerAssembly, 0);
           expect(mass).toBeCloseTo(c.mass_kg, 9);
         }
+        // the recommendation quoted unchanged: the quote's price is the candidate's
+        const rec = answer.candidates[answer.recommended!];
+        const quote = await agent.post("/api/quotes").set("X-CSRF-Token", csrf).send({ configuration: rec.configuration, quantity: body.quantity });
+        expect(quote.status).toBe(201);
+        if (quote.body.priceListVersion !== answer.priceListVersion) sameVersion = false;
+        else expect(quote.body.unitPrice_cents).toBe(rec.unitPrice_cents);
         if (sameVersion || attempt >= 3) {
           expect(sameVersion).toBe(true);
-          const rec = answer.candidates[answer.recommended!];
           expect(rec.band.low_db).toBeGreaterThanOrEqual(body.requiredAttenuation_db as number);
           expect(rec.keepsMargin).toBe(true);
           expect(answer.reason.length).toBeGreaterThan(20);
@@ -135,7 +140,7 @@ describe("POST /api/design-advice", () => {
     }
   });
 
-  it("the demo's default search: 60 dB at 60 Hz, 100 µT across a 50 × 120 mm can, any alloy and gauge the shop stocks", async () => {
+  it("the demo's default search: 60 dB at 60 Hz, 100 µT across a 50 × 120 mm can, any alloy and gauge the shop stocks", { timeout: 60_000 }, async () => {
     const { agent, csrf } = await customer();
     const res = await agent
       .post("/api/design-advice")

@@ -1,5 +1,7 @@
 // Builds the app for API tests against the real test database and the mail stand-in.
 import { randomUUID } from "node:crypto";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import request from "supertest";
 import { afterAll, inject } from "vitest";
 import { createApp, type FluxwrightApp } from "../../server/app";
@@ -18,6 +20,9 @@ export function testConfig(overrides: Record<string, string> = {}) {
     SMTP_PORT: String(inject("smtpPort")),
     APP_URL: "http://127.0.0.1:4100",
     RATE_LIMIT_SIGN_IN: "1000",
+    PAYMENTS_PORT: String(inject("paymentsPort")),
+    UPLOAD_DIR: path.join(tmpdir(), "fluxwright-test-uploads", randomUUID().slice(0, 8)),
+    MAIL_RETRY_DELAY_SECONDS: "1",
     ...overrides,
   });
 }

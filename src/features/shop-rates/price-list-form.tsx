@@ -27,6 +27,8 @@ const operations: Array<[keyof In & string, string]> = [
   ["setupPerJob_cents", "Setup, per job (cents)"],
   ["marginPercent", "Margin (%)"],
   ["fallbackUtilisation", "Utilisation when no sheet fits (0–1)"],
+  ["leadTimeWorkingDays", "Lead time quoted (working days)"],
+  ["quoteValidityDays", "Quotes hold their price (days)"],
 ];
 
 export function PriceListForm({ current }: { current: ShopRates }) {

@@ -1,0 +1,70 @@
+import { fileTypeFromFile } from "file-type";
+import { open } from "node:fs/promises";
+import { drawingKinds, type DrawingKind } from "../../shared/schemas/order";
+
+// What a drawing is, decided by its bytes (file-type's signatures; DXF and STEP, being text, by
+// their headers), never by its name. The name's extension must then agree with the content.
+
+const HEAD_BYTES = 4096;
+
+/** file-type's extension → our kind */
+const SNIFFED: Record<string, DrawingKind> = { pdf: "pdf", png: "png", jpg: "jpg", tif: "tif", webp: "webp" };
+
+async function head(file: string): Promise<string> {
+  const handle = await open(file, "r");
+  try {
+    const buffer = Buffer.alloc(HEAD_BYTES);
+    const { bytesRead } = await handle.read(buffer, 0, HEAD_BYTES, 0);
+    return buffer.subarray(0, bytesRead).toString("latin1");
+  } finally {
+    await handle.close();
+  }
+}
+
+/** ASCII DXF: optional 999 comments, then group code 0 and SECTION; binary DXF has its own sentinel. */
+const DXF_ASCII = /^\uFEFF?(?:\s*999\r?\n[^\n]*\n)*\s*0\r?\nSECTION\r?\n/;
+const DXF_BINARY = "AutoCAD Binary DXF\r\n\x1a\x00";
+/** STEP physical file (ISO 10303-21) */
+const STEP = /^\uFEFF?\s*ISO-10303-21;/;
+
+export type SniffResult = { ok: true; kind: DrawingKind; mime: string } | { ok: false; reason: string };
+
+export async function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
+  const ext = path_ext(filename);
+  const detected = await fileTypeFromFile(file);
+  let kind: DrawingKind | undefined;
+  if (detected) {
+    kind = SNIFFED[detected.ext];
+    if (!kind) return { ok: false, reason: `its content is ${describe(detected.ext, detected.mime)}, not a PDF, DXF, STEP or image drawing` };
+  } else {
+    const text = await head(file);
+    if (text.startsWith(DXF_BINARY) || DXF_ASCII.test(text)) kind = "dxf";
+    else if (STEP.test(text)) kind = "step";
+    else return { ok: false, reason: "its content is not a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing" };
+  }
+  const allowed: readonly string[] = drawingKinds[kind].extensions;
+  if (!allowed.includes(ext)) {
+    return { ok: false, reason: `its content is a ${drawingKinds[kind].label} but the name ends in ${ext ? `.${ext}` : "no extension"}; name it .${allowed[0]}` };
+  }
+  return { ok: true, kind, mime: drawingKinds[kind].mime };
+}
+
+function path_ext(filename: string): string {
+  const m = /\.([A-Za-z0-9]{1,8})$/.exec(filename);
+  return m ? m[1].toLowerCase() : "";
+}
+
+function describe(ext: string, mime: string): string {
+  const named: Record<string, string> = { exe: "a Windows program", elf: "a Linux program", mach: "a macOS program", zip: "a ZIP archive", rar: "a RAR archive", "7z": "a 7-Zip archive", msi: "a Windows installer", cab: "a cabinet archive", gz: "a gzip archive" };
+  return named[ext] ?? `${mime} (.${ext})`;
+}
+
+/** A name as uploaded must be a plain file name: no folders, no control characters, not too long. */
+export function badFilename(name: string): string | null {
+  if (!name || !name.trim()) return "the file has no name";
+  if (/[/\\]/.test(name) || name.includes("..")) return "the file name must not contain a folder path";
+  // eslint-disable-next-line no-control-regex
+  if (/[\x00-\x1f\x7f]/.test(name)) return "the file name contains control characters";
+  if (name.length > 200) return "the file name is longer than 200 characters";
+  return null;
+}
