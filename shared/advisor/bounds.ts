@@ -32,14 +32,16 @@ export function lowEndCeiling_db(p: AdviceProblem, d: Design, model: BuildModel)
 }
 
 export interface PriceBounder {
+  /** What rounding and scrap credits may take off a design with these layers (see lower). */
+  slackFor(layers: readonly LayerOption[]): number;
   /**
-   * A unit price in cents that the exact price of a design with these layers is never below
-   * (−Infinity: no bound for this list). `parts` may be all of the design's parts, or some of
-   * them: the unnested subtotal only grows as parts are added (each line's quantity is a sum
-   * over the parts, every rate is ≥ 0), so part of a design bounds the whole. A part list seen
-   * before (the same array) is not priced again.
+   * A unit price in cents that the exact price of a design is never below (−Infinity: no bound
+   * for this list); `slack` is slackFor(the design's layers). `parts` may be all of the
+   * design's parts, or some of them: the unnested subtotal only grows as parts are added (each
+   * line's quantity is a sum over the parts, every rate is ≥ 0), so part of a design bounds the
+   * whole. A part list seen before (the same array) is not priced again.
    */
-  lower(parts: FabricatedPart[], layers: readonly LayerOption[]): number;
+  lower(parts: FabricatedPart[], slack: number): number;
 }
 
 export function priceBounder(priceList: PriceList, nestGap_mm: number, quantity: number): PriceBounder {
@@ -56,26 +58,25 @@ export function priceBounder(priceList: PriceList, nestGap_mm: number, quantity:
     return sub;
   };
   return {
-    lower(parts, layers) {
-      if (creditAbovePrice) return -Infinity;
-      const sub = subtotalOf(parts);
+    slackFor(layers) {
       // Per alloy and gauge (a design's groups are its layers' distinct alloy and gauge), the
       // nested material line against the unnested one:
       // round(q(G)·p) − round(q(G − N)·c) − round(q(N)·p) ≥ (q(G) − q(N))·(p − c) − 0.0015·c − 1.5,
       // q rounding kg to 0.001 (±0.0005) and round to whole cents (±0.5); without a credit line
       // it is ≥ 0 (both rounding steps keep order).
       let slack = 0;
-      const groups = new Set<string>();
-      for (const l of layers) {
-        const key = `${l.material}@${l.thickness_mm}`;
-        if (groups.has(key)) continue;
-        groups.add(key);
+      layers.forEach((l, i) => {
+        for (let j = 0; j < i; j++) if (layers[j].material === l.material && layers[j].thickness_mm === l.thickness_mm) return;
         const c = creditOf.get(l.material) ?? 0;
         if (c > 0) slack += 0.0015 * c + 1.5;
-      }
+      });
+      return slack;
+    },
+    lower(parts, slack) {
+      if (creditAbovePrice) return -Infinity;
       // exact = sub + round(sub·m) − round((sub + round(sub·m))·d) ≥ sub·(1 + m)(1 − d) − 1,
       // and the unit price round(exact / quantity) is a whole number ≥ exact / quantity − 0.5.
-      const exact = (sub - slack) * (1 + m) * (1 - d) - 1;
+      const exact = (subtotalOf(parts) - slack) * (1 + m) * (1 - d) - 1;
       return Math.ceil(exact / quantity - 0.5 - 1e-9);
     },
   };

@@ -259,15 +259,25 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     const rival = (e.keepsMargin ? keepFront : allFront).cheapestAsGood(e.mass_kg, e.attenuation_db);
     if (rival === Infinity) return false;
     const bar = Math.max(rival, cheapest.threshold);
-    const layers = e.design.layers;
+    const n = e.design.layers.length;
+    const slack = bounder.slackFor(e.design.layers);
     // one layer's parts alone often settle it (their bound is kept for the next design with that layer)
-    for (let i = layers.length - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], layers) > bar) return true;
-    return layers.length > 1 && bounder.lower(fit.parts, layers) > bar;
+    for (let i = n - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], slack) > bar) return true;
+    return n > 1 && bounder.lower(fit.parts, slack) > bar;
+  };
+
+  // the ceiling depends on the method, the layer count and the outermost alloy only
+  const ceilings = new Map<string, number>();
+  const ceilingOf = (d: Design) => {
+    const key = `${d.method}|${d.layers.length}|${d.layers[d.layers.length - 1].material}`;
+    let c = ceilings.get(key);
+    if (c === undefined) ceilings.set(key, (c = lowEndCeiling_db(problem, d, shop.buildModel)));
+    return c;
   };
 
   for (const item of pending) {
     if (++done % YIELD_EVERY === 0) yield { done, total };
-    const ceiling = lowEndCeiling_db(problem, item.design, shop.buildModel);
+    const ceiling = ceilingOf(item.design);
     if (ceiling < required) {
       stats.ruledOut.cannotReach++;
       unreachable.push({ item, ceiling });
