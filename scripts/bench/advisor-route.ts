@@ -17,12 +17,12 @@ const freePort = () =>
     });
   });
 
+/** No constraints: the shop's magnetic alloys at its advisor gauges, its gap steps, 1–3 layers, both methods. */
 export const defaultSearch = {
   requiredAttenuation_db: 60,
   field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" },
   shape: "cylinder",
   dimensions_mm: { diameter: 50, length: 120 },
-  constraints: { maxLayers: 3, materials: ["ni80", "ni50", "steel-lc"], gauges_mm: [0.5, 1, 1.5, 2], methods: ["drawn", "rolled"] },
   quantity: 10,
 };
 

@@ -37,6 +37,7 @@ export function presentDesignAdvice(
     search: result.search,
     minSaturationMargin: shop.minSaturationMargin,
     gapSteps_mm: [...problem.gapSteps_mm],
+    gauges_mm: [...new Set(problem.options.map((o) => o.thickness_mm))].sort((a, b) => a - b),
     currency: shop.currency,
     priceListVersion: shop.priceListVersion,
     estimate: true,

@@ -46,12 +46,13 @@ export function adviceProblemFor(request: DesignAdviceRequest, shop: ShopOffer):
     if (!alloys.length) fields["constraints.materials"] = "The shop prices and stocks no magnetic alloy; ask the planner to set up the shop rates.";
   }
 
-  const wanted = c.gauges_mm;
+  // the gauges asked for, else the ones the shop offers in the advisor; always of those it stocks
+  const wanted = c.gauges_mm ?? shop.settings.gauges_mm;
   const options: LayerOption[] = [];
   for (const m of alloys) {
     const limits = formingLimitsFor(m.id, priceList);
     for (const thickness_mm of stocked(m.id)) {
-      if (wanted && !wanted.some((g) => Math.abs(g - thickness_mm) < 1e-9)) continue;
+      if (!wanted.some((g) => Math.abs(g - thickness_mm) < 1e-9)) continue;
       options.push({
         material: m.id,
         thickness_mm,
@@ -62,10 +63,12 @@ export function adviceProblemFor(request: DesignAdviceRequest, shop: ShopOffer):
       });
     }
   }
-  wanted?.forEach((g, i) => {
+  c.gauges_mm?.forEach((g, i) => {
     if (alloys.length && !options.some((o) => Math.abs(o.thickness_mm - g) < 1e-9))
       fields[`constraints.gauges_mm.${i}`] = `The shop stocks no ${fmt(g)} mm sheet of ${alloys.map((m) => m.id).join(", ")}.`;
   });
+  if (!c.gauges_mm && alloys.length && !options.length)
+    fields["constraints.gauges_mm"] = `The shop stocks none of the gauges the advisor offers (${shop.settings.gauges_mm.map(fmt).join(", ")} mm) in ${alloys.map((m) => m.id).join(", ")}; name gauges it stocks.`;
   if (Object.keys(fields).length) return { fields };
 
   const problem: AdviceProblem = {

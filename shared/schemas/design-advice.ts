@@ -38,7 +38,7 @@ const constraintsCommon = {
     .max(10, { error: "At most 10 materials." })
     .refine(unique, { error: "Each material once." })
     .optional(),
-  /** sheet thicknesses to try, each one the shop stocks; absent: every stocked gauge */
+  /** sheet thicknesses to try, each one the shop stocks; absent: the gauges the shop offers in the advisor (its design-search settings) */
   gauges_mm: z
     .array(z.number({ error: "A gauge must be a number of millimetres." }).positive({ error: "A gauge must be greater than zero." }).max(INPUT_LIMITS.thickness_mm.max), {
       error: "Gauges must be a list of millimetres.",
@@ -237,6 +237,8 @@ export interface DesignAdviceJson {
   /** the shop's rule: every layer's saturation / peak wall flux at least this */
   minSaturationMargin: number;
   gapSteps_mm: number[];
+  /** the gauges tried (the ones asked for, else the shop's advisor gauges), of those stocked */
+  gauges_mm: number[];
   currency: string;
   /** the shop-rates version the prices come from */
   priceListVersion: number;

@@ -75,9 +75,10 @@ export const constructionSettingsSchema = z.object({
 
 /**
  * What the design advisor searches with: the gaps between nested layers the shop builds to (its
- * spacers and tooling steps), and the saturation margin a recommended design keeps on every
- * layer. Optional in the document like the construction settings; read it through
- * designSearchSettingsOf, which gives the defaults.
+ * spacers and tooling steps), the gauges it offers unless a customer names others (of those it
+ * stocks), and the saturation margin a recommended design keeps on every layer. Optional in
+ * the document like the construction settings; read it through designSearchSettingsOf, which
+ * gives the defaults.
  */
 export const designSearchSettingsSchema = z.object({
   gapSteps_mm: z
@@ -91,6 +92,17 @@ export const designSearchSettingsSchema = z.object({
     .min(1, { error: "Give at least one gap step." })
     .max(8, { error: "At most 8 gap steps: each one multiplies the designs a search tries." })
     .refine((steps) => new Set(steps).size === steps.length, { error: "Each gap step once." }),
+  gauges_mm: z
+    .array(
+      z
+        .number({ error: "A gauge must be a number of millimetres." })
+        .positive({ error: "A gauge must be greater than zero." })
+        .max(100, { error: "A gauge is too large: at most 100 mm." }),
+      { error: "The gauges must be a list of millimetres." },
+    )
+    .min(1, { error: "Give at least one gauge." })
+    .max(12, { error: "At most 12 gauges: each one multiplies the designs a search tries." })
+    .refine((gauges) => new Set(gauges).size === gauges.length, { error: "Each gauge once." }),
   minSaturationMargin: z
     .number({ error: "The saturation margin must be a number." })
     .min(1, { error: "The saturation margin is too small: at least 1 (the wall at saturation)." })
@@ -99,12 +111,13 @@ export const designSearchSettingsSchema = z.object({
 export type DesignSearchSettings = z.infer<typeof designSearchSettingsSchema>;
 
 /**
- * Defaults: gaps of 5 to 20 mm in 5 mm steps, the spacer sizes a small shop keeps [practice]; a
- * recommended design keeps each wall at or below a third of its saturation induction, the
- * trade's rule (see saturation.ts) [practice].
+ * Defaults: gaps of 5 to 20 mm in 5 mm steps, the spacer sizes a small shop keeps [practice];
+ * the four common sheet gauges from 0.5 to 2 mm; a recommended design keeps each wall at or
+ * below a third of its saturation induction, the trade's rule (see saturation.ts) [practice].
  */
 export const DEFAULT_DESIGN_SEARCH_SETTINGS: DesignSearchSettings = {
   gapSteps_mm: [5, 10, 15, 20],
+  gauges_mm: [0.5, 1, 1.5, 2],
   minSaturationMargin: 1 / NEAR_SATURATION_FRACTION,
 };
 

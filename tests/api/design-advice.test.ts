@@ -140,16 +140,18 @@ describe("POST /api/design-advice", { timeout: 30_000 }, () => {
     }
   });
 
-  it("the demo's default search: 60 dB at 60 Hz, 100 µT across a 50 × 120 mm can, any alloy and gauge the shop stocks", { timeout: 60_000 }, async () => {
+  it("the demo's default search: 60 dB at 60 Hz, 100 µT across a 50 × 120 mm can, the shop's magnetic alloys at its advisor gauges", { timeout: 60_000 }, async () => {
     const { agent, csrf } = await customer();
     const res = await agent
       .post("/api/design-advice")
       .set("X-CSRF-Token", csrf)
       .send({ requiredAttenuation_db: 60, field: { frequency_hz: 60, amplitude_uT: 100 }, shape: "cylinder", dimensions_mm: { diameter: 50, length: 120 }, quantity: 10 });
     expect(res.status).toBe(200);
-    const { evaluated, candidates, recommended, search, estimate } = res.body;
-    // three magnetic alloys at every stocked gauge, up to three layers, the standard gap steps, drawn and rolled
-    expect(evaluated).toBeGreaterThan(10_000);
+    const { evaluated, candidates, recommended, search, estimate, gauges_mm, gapSteps_mm } = res.body;
+    // three magnetic alloys at the shop's four advisor gauges, one to three layers, its four gap steps, drawn and rolled
+    expect(gauges_mm).toEqual([0.5, 1, 1.5, 2]);
+    expect(gapSteps_mm).toHaveLength(4);
+    expect(evaluated).toBe(2 * (12 + 12 ** 2 * 4 + 12 ** 3 * 4));
     expect(search.designs).toBe(evaluated);
     expect(estimate).toBe(true);
     expect(recommended).not.toBeNull();
@@ -187,24 +189,31 @@ describe("the design search settings in the shop rates", () => {
     const before = (await planner.agent.get("/api/shop-rates")).body;
     expect(before.designSearch.gapSteps_mm.length).toBeGreaterThan(0);
 
-    const bad = await put({ designSearch: { gapSteps_mm: [5, 5], minSaturationMargin: 0.5 } });
+    const bad = await put({ designSearch: { gapSteps_mm: [5, 5], gauges_mm: [], minSaturationMargin: 0.5 } });
     expect(bad.status).toBe(400);
     expect(bad.body.error.fields).toHaveProperty("designSearch.gapSteps_mm");
+    expect(bad.body.error.fields).toHaveProperty("designSearch.gauges_mm");
     expect(bad.body.error.fields).toHaveProperty("designSearch.minSaturationMargin");
 
     const { agent, csrf } = await customer();
     expect((await agent.put("/api/shop-rates/design-search").set("X-CSRF-Token", csrf).send({ designSearch: DEFAULT_DESIGN_SEARCH_SETTINGS })).status).toBe(403);
+    expect((await request(app).put("/api/shop-rates/design-search").send({ designSearch: DEFAULT_DESIGN_SEARCH_SETTINGS })).status).toBe(401);
 
-    const saved = await put({ designSearch: { gapSteps_mm: [8], minSaturationMargin: 4 } });
+    const mine = { gapSteps_mm: [8], gauges_mm: [1, 1.5], minSaturationMargin: 4 };
+    const saved = await put({ designSearch: mine });
     expect(saved.status).toBe(200);
     expect(saved.body.part).toBe("design-search");
     expect(saved.body.version).toBeGreaterThan(before.version);
-    expect(saved.body.designSearch).toEqual({ gapSteps_mm: [8], minSaturationMargin: 4 });
+    expect(saved.body.designSearch).toEqual(mine);
     const advice = await agent.post("/api/design-advice").set("X-CSRF-Token", csrf).send(can());
     expect(advice.body.gapSteps_mm).toEqual([8]);
     expect(advice.body.minSaturationMargin).toBe(4);
     // one gap step: 2 methods · (4 + 4² · 1) designs
     expect(advice.body.evaluated).toBe(40);
+    // the shop's advisor gauges unless the requirement names its own
+    const { constraints: _c, ...unconstrained } = can();
+    const byShop = await agent.post("/api/design-advice").set("X-CSRF-Token", csrf).send({ ...unconstrained, constraints: { maxLayers: 1, materials: ["ni80"] } });
+    expect(byShop.body.gauges_mm).toEqual([1, 1.5]);
     for (const c of advice.body.candidates as Candidate[]) {
       const layers = c.configuration.layers as { gap_mm?: number }[];
       for (const l of layers.slice(0, -1)) expect(l.gap_mm).toBe(8);
@@ -212,7 +221,7 @@ describe("the design search settings in the shop rates", () => {
 
     // saving the rates keeps them; then back to what it was
     const rates = await planner.agent.put("/api/shop-rates/price-list").set("X-CSRF-Token", planner.csrf).send(saved.body.priceList);
-    expect(rates.body.designSearch).toEqual({ gapSteps_mm: [8], minSaturationMargin: 4 });
+    expect(rates.body.designSearch).toEqual(mine);
     const back = await put({ designSearch: before.designSearch });
     expect(back.status).toBe(200);
     expect(back.body.designSearch).toEqual(before.designSearch);

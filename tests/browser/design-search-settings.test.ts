@@ -27,10 +27,14 @@ describe("design advisor settings, as the planner", () => {
     expect(await gaps.getAttribute("aria-invalid")).toBe("true");
 
     await gaps.fill("6; 12 18");
+    const gauges = form.getByLabel(/gauges offered/i);
+    expect(await gauges.inputValue()).toBe("0.5, 1, 1.5, 2");
+    await gauges.fill("1 1.5");
     await form.getByRole("button", { name: /save advisor settings/i }).click();
     await form.getByRole("button", { name: new RegExp(`save as version ${before + 1}`, "i") }).click();
     await form.getByText(new RegExp(`saved as version ${before + 1}\\. The design advisor`, "i")).waitFor();
     expect(await gaps.inputValue()).toBe("6, 12, 18");
+    expect(await gauges.inputValue()).toBe("1, 1.5");
     await page.getByRole("list", { name: /versions/i }).getByText(/design advisor settings/i).first().waitFor();
     await form.scrollIntoViewIfNeeded();
     await h.shot(page, "shop-rates-design-advisor");
@@ -40,6 +44,7 @@ describe("design advisor settings, as the planner", () => {
     await form.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();
     await form.getByText(new RegExp(`saved as version ${before + 2}`, "i")).waitFor();
     expect(await gaps.inputValue()).toBe("5, 10, 15, 20");
+    expect(await gauges.inputValue()).toBe("0.5, 1, 1.5, 2");
     expect(consoleErrors.join("\n")).toBe("");
     await page.close();
   });

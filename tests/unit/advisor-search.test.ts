@@ -27,7 +27,7 @@ function shopWith(priceList: PriceList = defaultPriceList): AdviceShop {
 
 function problemFor(body: DesignAdviceRequestInput, gapSteps_mm = [5, 10], priceList: PriceList = defaultPriceList): AdviceProblem {
   const request = designAdviceRequestSchema.parse(body);
-  const r = adviceProblemFor(request, { materials: materialLibrary, priceList, settings: { gapSteps_mm, minSaturationMargin: RULE } });
+  const r = adviceProblemFor(request, { materials: materialLibrary, priceList, settings: { ...DEFAULT_DESIGN_SEARCH_SETTINGS, gapSteps_mm, minSaturationMargin: RULE } });
   if ("fields" in r) throw new Error(JSON.stringify(r.fields));
   return r.problem;
 }
@@ -369,12 +369,16 @@ describe("design advisor: the space and the answer", { timeout: 30_000 }, () => 
     expect([...enumerateDesigns(p)].length).toBe(72);
     const three = problemFor(can({ constraints: { maxLayers: 3, materials: ["ni80", "ni50"], gauges_mm: [0.5, 1] } }));
     expect(countDesigns(three)).toBe(2 * (4 + 16 * 2 + 64 * 2));
-    // the demo shop's default search: 3 magnetic alloys, every stocked gauge (6, 6, 5), 4 gaps, 3 layers, 2 methods
+    // the demo shop's default search: 3 magnetic alloys at the advisor's 4 gauges, 4 gaps, 1–3 layers, 2 methods
     const demo = problemFor(can({ constraints: {} }), DEFAULT_DESIGN_SEARCH_SETTINGS.gapSteps_mm);
     expect(demo.options.map((o) => o.material)).toEqual(expect.arrayContaining(["ni80", "ni50", "steel-lc"]));
     expect(demo.options.some((o) => o.material === "copper")).toBe(false);
-    expect(countDesigns(demo)).toBe(2 * (17 + 17 ** 2 * 4 + 17 ** 3 * 4));
-    expect(countDesigns(demo)).toBeLessThanOrEqual(MAX_SEARCH_DESIGNS);
+    expect([...new Set(demo.options.map((o) => o.thickness_mm))]).toEqual([0.5, 1, 1.5, 2]);
+    expect(countDesigns(demo)).toBe(2 * (12 + 12 ** 2 * 4 + 12 ** 3 * 4));
+    // every stocked gauge when asked for (6, 6 and 5 of them)
+    const all = problemFor(can({ constraints: { gauges_mm: [0.35, 0.5, 0.75, 1, 1.5, 2, 3] } }), DEFAULT_DESIGN_SEARCH_SETTINGS.gapSteps_mm);
+    expect(countDesigns(all)).toBe(2 * (17 + 17 ** 2 * 4 + 17 ** 3 * 4));
+    expect(countDesigns(all)).toBeLessThanOrEqual(MAX_SEARCH_DESIGNS);
   });
 
   it("names what the shop cannot offer by field", () => {
@@ -392,6 +396,13 @@ describe("design advisor: the space and the answer", { timeout: 30_000 }, () => 
       settings: DEFAULT_DESIGN_SEARCH_SETTINGS,
     });
     expect("fields" in g && g.fields).toEqual({ "constraints.gauges_mm.1": "The shop stocks no 0.7 mm sheet of ni80." });
+    // the shop's advisor gauges, none of them stocked in the alloy asked for
+    const none = adviceProblemFor(designAdviceRequestSchema.parse(can({ constraints: { materials: ["ni80"] } })), {
+      materials: materialLibrary,
+      priceList: defaultPriceList,
+      settings: { ...DEFAULT_DESIGN_SEARCH_SETTINGS, gauges_mm: [0.6, 0.9] },
+    });
+    expect("fields" in none && none.fields["constraints.gauges_mm"]).toMatch(/stocks none of the gauges the advisor offers \(0.6, 0.9 mm\) in ni80/);
   });
 
   it("each candidate's configuration is a quote's: the prediction body and the fabrication body accept it unchanged", () => {
