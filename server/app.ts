@@ -35,6 +35,7 @@ import { createCsrf, publicRateLimit } from "./middleware/security";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { blanksRouter } from "./routes/blanks";
+import { designAdviceRouter } from "./routes/design-advice";
 import { healthRouter } from "./routes/health";
 import { materialsAdminRouter, materialsPublicRouter } from "./routes/materials";
 import { predictionsRouter } from "./routes/predictions";
@@ -166,6 +167,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(usersRouter(deps));
   api.use(materialsAdminRouter(deps));
   api.use(priceEstimatesRouter(deps));
+  api.use(designAdviceRouter(deps));
   api.use(shopRatesRouter(deps));
   api.use(designsRouter(deps));
   api.use(quotesRouter(deps));

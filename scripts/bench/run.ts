@@ -13,6 +13,7 @@ const section = (title: string) => rows.push({ name: `— ${title}`, value: NaN,
 for (const [file, fn, title] of [
   ["./physics", "benchPhysics", "prediction engine (in-process)"],
   ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
+  ["./advisor", "benchAdvisor", "design advisor (in-process)"],
 ] as const) {
   try {
     const mod = (await import(file)) as Record<string, () => BenchRow[]>;
@@ -35,6 +36,9 @@ rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 
 section("ordering, 10 connections");
 rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
+
+section("design advisor route (signed in)");
+rows.push(...(await (await import("./advisor-route")).benchAdvisorRoute()));
 
 section("client");
 rows.push(...benchInitialJs(path.join(root, "dist")));

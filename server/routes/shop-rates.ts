@@ -1,6 +1,6 @@
 import { Router, type Request } from "express";
 import { z } from "zod";
-import { constructionUpdateSchema, formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
+import { constructionUpdateSchema, designSearchUpdateSchema, formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
 import type { AppDeps } from "../deps";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
@@ -13,7 +13,7 @@ import { currentShopRates, shopRatesUpdater, type ShopRatesChange } from "../ser
 const historyQuery = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) });
 const withCreator = { include: [{ model: User, as: "createdBy" }] };
 
-/** The planner's price list, stock sheets, forming limits and construction settings: every save is a new version. */
+/** The planner's price list, stock sheets, forming limits, construction and design-search settings: every save is a new version. */
 export function shopRatesRouter({ sequelize }: AppDeps): Router {
   const router = Router();
 
@@ -46,6 +46,7 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
   router.put("/shop-rates/stock-sheets", requireUser, save("stock-sheets", stockSheetsUpdateSchema));
   router.put("/shop-rates/forming-limits", requireUser, save("forming-limits", formingLimitsUpdateSchema));
   router.put("/shop-rates/construction", requireUser, save("construction", constructionUpdateSchema));
+  router.put("/shop-rates/design-search", requireUser, save("design-search", designSearchUpdateSchema));
 
   return router;
 }

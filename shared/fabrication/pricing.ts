@@ -10,7 +10,7 @@
  * Setup is charged once per job and so spread over the quantity.
  */
 import type { PriceList, StockSheet } from "../schemas/pricing";
-import { nestBlanks, type NestBlank } from "./nesting";
+import { nestBlanks, type NestBlank, type NestOptions, type NestResult } from "./nesting";
 import type { FabricatedPart } from "./parts";
 
 export type { PriceList, StockSheet, FormingLimits, MaterialPrice, QuantityBreak } from "../schemas/pricing";
@@ -49,6 +49,11 @@ export interface PriceInput {
   sampleSize?: number;
   /** web between blanks on the sheet, default 3 mm */
   nestGap_mm?: number;
+  /**
+   * Nests one alloy and gauge's blanks on a stock sheet: nestBlanks unless given. A caller that
+   * prices thousands of designs (the design advisor) passes a memo of it; the price is the same.
+   */
+  nest?: (blanks: NestBlank[], sheet: StockSheet, options: NestOptions) => Pick<NestResult, "unplaced" | "sheetsNeeded" | "utilisation">;
 }
 
 /** Round half away from zero (Math.round rounds −0.5 toward +∞). */
@@ -77,6 +82,7 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
   if (!Number.isInteger(quantity) || quantity < 1) throw new RangeError("quantity must be a positive whole number");
   if (parts.length === 0) throw new RangeError("no parts to price");
   const gap = input.nestGap_mm ?? 3;
+  const nest = input.nest ?? nestBlanks;
   const lines: PriceLine[] = [];
   const material: PriceBuildUp["material"] = [];
 
@@ -96,13 +102,16 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
     const perAssembly = group.reduce((s, p) => s + p.quantityPerAssembly, 0);
     const net = group.reduce((s, p) => s + (p.mass_kg ?? 0) * p.quantityPerAssembly, 0) * quantity;
     const assemblies = Math.max(1, Math.min(quantity, Math.floor(NEST_SAMPLE_BLANKS / perAssembly)));
-    const blanks: NestBlank[] = [];
-    for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+    let blanks: NestBlank[] | undefined; // built when a stock sheet of the alloy and gauge is there to nest on
     let utilisation = pl.fallbackUtilisation;
     let chosen: StockSheet | undefined;
     for (const sheet of pl.stockSheets) {
       if (sheet.materialId !== materialId || Math.abs(sheet.thickness_mm - thickness_mm) > 1e-6) continue;
-      const r = nestBlanks(blanks, sheet, { gap_mm: gap });
+      if (!blanks) {
+        blanks = [];
+        for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+      }
+      const r = nest(blanks, sheet, { gap_mm: gap });
       if (r.unplaced.length > 0 || r.sheetsNeeded === 0) continue;
       if (!chosen || r.utilisation > utilisation) { utilisation = r.utilisation; chosen = sheet; }
     }

@@ -50,7 +50,8 @@ const holeSchema = z.object({
   collarLength_mm: bounded("the collar length", INPUT_LIMITS.collarLength_mm, "Collar length must be a number of millimetres.").default(0),
 });
 
-const fieldSchema = z.object({
+/** The applied field: frequency, amplitude and direction (the design advisor asks for the same). */
+export const fieldSchema = z.object({
   frequency_hz: bounded("the frequency", INPUT_LIMITS.frequency_hz, "Frequency must be a number in hertz.", " (0 is a static field)"),
   amplitude_uT: bounded("the field amplitude", INPUT_LIMITS.amplitude_uT, "Field amplitude must be a number in microtesla."),
   orientation: z.enum(["transverse", "axial"], { error: "Orientation must be transverse or axial." }).default("transverse"),

@@ -8,6 +8,7 @@ import { PageHeader } from "../components/ui/panel";
 import { Loading } from "../components/ui/spinner";
 import { StatusNote } from "../components/ui/status-note";
 import { ConstructionForm } from "../features/shop-rates/construction-form";
+import { DesignSearchForm } from "../features/shop-rates/design-search-form";
 import { FormingLimitsForm } from "../features/shop-rates/forming-limits-form";
 import { PriceListForm } from "../features/shop-rates/price-list-form";
 import { ShopRatesHistory } from "../features/shop-rates/shop-rates-history";
@@ -46,6 +47,9 @@ export function Component() {
             </PanelBoundary>
             <PanelBoundary name="the construction limits">
               <ConstructionForm current={data} />
+            </PanelBoundary>
+            <PanelBoundary name="the design advisor settings">
+              <DesignSearchForm current={data} />
             </PanelBoundary>
           </div>
           <PanelBoundary name="the versions">

@@ -5,7 +5,7 @@ import { Panel } from "../../components/ui/panel";
 import { Loading } from "../../components/ui/spinner";
 import { formatDateTime } from "../../lib/format";
 
-const partLabels: Record<string, string> = { seed: "Demo defaults", "price-list": "Prices and rates", "stock-sheets": "Stock sheets", "forming-limits": "Forming limits", construction: "Construction limits" };
+const partLabels: Record<string, string> = { seed: "Demo defaults", "price-list": "Prices and rates", "stock-sheets": "Stock sheets", "forming-limits": "Forming limits", construction: "Construction limits", "design-search": "Design advisor settings" };
 
 export function ShopRatesHistory() {
   const history = useQuery(shopRatesHistoryQueryOptions);
