@@ -121,8 +121,9 @@ describe("material edits", () => {
     const p = await request(app).post("/api/predictions").send(acDesign);
     expect(p.status).toBe(200);
     expect(p.body.layers[0].material).toBe(m.id);
-    // lower resistivity (0.6 → 0.5 µΩ·m): a thinner skin depth, so the shell shields more [derived]
-    expect(p.body.shieldingFactor).toBeGreaterThan(predictedBefore.body.shieldingFactor * 1.01);
+    // lower resistivity (0.6 → 0.5 µΩ·m): a thinner skin depth, so the seamless shell shields more [derived]
+    // (the as-built headline also moves with the construction model's fit for the alloy, so the shell is the check)
+    expect(p.body.ideal.shieldingFactor).toBeGreaterThan(predictedBefore.body.ideal.shieldingFactor * 1.01);
 
     // deactivated: gone from the public list and refused by predictions, still in the admin's list
     res = await agent.put(`/api/materials/${m.id}`).set("X-CSRF-Token", csrf).send({ ...body, active: false });
