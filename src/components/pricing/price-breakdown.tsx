@@ -17,7 +17,8 @@ type Line = { key: string; label: string; quantity: number; total_cents: number;
 export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEstimate; dimmed?: boolean }) {
   const money = (c: number) => formatMoney(c, data.currency);
   const p = data.price;
-  const lines: Line[] = p.lines;
+  // a line the design does not use (no bends on a drawn can) is left out of the reading, not of the sum
+  const lines: Line[] = p.lines.filter((l) => l.quantity !== 0 || l.total_cents !== 0);
   const columns: Column<Line>[] = [
     { key: "label", header: "Line", primary: true, cell: (l) => l.label },
     { key: "quantity", header: "Quantity", align: "end", className: "font-mono", cell: (l) => qty(l.quantity) },

@@ -55,14 +55,14 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
             {rows.map((row) => (
               <li key={rowKey(row)} className={`space-y-1 py-3 ${rowClassName?.(row) ?? ""}`} data-testid={rowTestId}>
                 {primary && <p className="font-semibold text-flux-950">{primary.cell(row)}</p>}
-                <dl className="grid grid-cols-[minmax(0,auto)_minmax(0,1fr)] gap-x-4 gap-y-1">
+                <dl className="flex flex-wrap items-baseline gap-x-5 gap-y-1">
                   {columns
                     .filter((c) => c !== primary)
                     .map((c) => (
-                      <Fragment key={c.key}>
-                        <dt className="text-meta text-flux-600">{c.header}</dt>
-                        <dd className={`min-w-0 break-words text-right ${c.className ?? ""}`}>{c.cell(row)}</dd>
-                      </Fragment>
+                      <div key={c.key} className="flex min-w-0 max-w-full items-baseline gap-1.5">
+                        <dt className="shrink-0 text-meta text-flux-600">{c.header}</dt>
+                        <dd className={`min-w-0 break-words ${c.className ?? ""}`}>{c.cell(row)}</dd>
+                      </div>
                     ))}
                 </dl>
               </li>

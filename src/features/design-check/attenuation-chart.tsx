@@ -103,7 +103,7 @@ export function AttenuationChart({ series, frequency, range }: { series: ChartSe
         className="h-72 w-full sm:h-80"
         data-testid="attenuation-chart"
         role="img"
-        aria-label={`Chart of attenuation in dB against frequency from ${hz(range.from_hz)} to ${hz(range.to_hz)}, log scale: ${series.map((s) => s.name).join(", ")}. The figures are listed below the chart.`}
+        aria-label={`Attenuation in dB from ${hz(range.from_hz)} to ${hz(range.to_hz)} against frequency on a log scale: ${series.map((s) => s.name).join(", ")}. The figures are written out below the chart.`}
         aria-describedby={summaryId}
       >
         <ResponsiveContainer width="100%" height="100%">

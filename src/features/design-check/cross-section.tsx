@@ -3,7 +3,7 @@ import { fromMillimetres, toMillimetres, unitSymbols } from "../../../shared/uni
 import type { MaterialSummary } from "../../api/materials";
 import { MIN_LABEL_PX, niceLength, readableFontSize, ScaleBar } from "../../components/drawing/drawing";
 import { useElementWidth } from "../../lib/use-element-width";
-import { fmt, lengthText, type DesignLengthUnit } from "./design-model";
+import { fmt, lengthText, sizeText, type DesignLengthUnit } from "./design-model";
 
 /** Narrower than this (CSS px), the layer labels leave the drawing for a list under it, and the drawing keeps their numbers. */
 const LABELS_BELOW_PX = 520;
@@ -107,9 +107,9 @@ export function CrossSection({ request, materials, unit = "mm" }: { request: Pre
     return box ? mid : Math.sqrt(Math.max(0, mid * mid - y * y));
   };
   const outline = (hxI: number, hyI: number, r = 0) => (box ? roundedRect(hxI, hyI, r) : circle(hxI));
-  const inside = box ? `${L(d.width)} × ${L(d.depth)} inside` : `Ø ${L(d.diameter)} inside`;
+  const inside = box ? `${sizeText([d.width, d.depth], unit, 4)} inside` : `Ø ${L(d.diameter)} inside`;
   const title = request.shape === "cylinder" ? "Section across the axis" : request.shape === "sphere" ? "Section through the centre" : "Section width × depth";
-  const outside = box ? `${L(2 * X)} × ${L(2 * Y)}` : `Ø ${L(2 * X)}`;
+  const outside = box ? sizeText([2 * X, 2 * Y], unit, 4) : `Ø ${L(2 * X)}`;
 
   return (
     <figure className="space-y-2" ref={ref}>

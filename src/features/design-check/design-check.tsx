@@ -287,7 +287,7 @@ function ResultSummary({ result, frequency, units, working, problem }: { result:
               <Spinner /> working
             </span>
           ) : problem ? (
-            <span className="text-anneal-200">check the inputs</span>
+            <span className="text-anneal-200">inputs need attention</span>
           ) : null}
           <a href="#results" className="font-semibold text-white underline underline-offset-4">
             Results

@@ -184,6 +184,11 @@ export function lengthText(mm: number, unit: DesignLengthUnit = "mm", digits = 4
   return `${fmt(fromMillimetres(mm, unit), digits)} ${unitSymbols[unit]}`;
 }
 
+/** Several lengths with the unit written once: "72 × 142 mm". */
+export function sizeText(mms: readonly number[], unit: DesignLengthUnit = "mm", digits = 5): string {
+  return `${mms.map((mm) => fmt(fromMillimetres(mm, unit), digits)).join(" × ")} ${unitSymbols[unit]}`;
+}
+
 /** A short description of a design for the variant list and the chart legend. */
 export function describeDesign(r: PredictionRequest, materialName: (id: string) => string = (id) => id, unit: DesignLengthUnit = "mm"): string {
   const d = r.dimensions_mm as Record<string, number>;

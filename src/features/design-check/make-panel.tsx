@@ -14,7 +14,7 @@ import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { paths } from "../../config/paths";
 import { useDebounced } from "../../lib/use-debounced";
-import { lengthText, type DesignLengthUnit } from "./design-model";
+import { lengthText, sizeText, type DesignLengthUnit } from "./design-model";
 import { flatBlankPrefill, layerBlankRequests, methodOf, toPriceEstimateBody, tooManyDraws, type MakeMethod } from "./make-model";
 
 const METHOD_WORDS: Record<MakeMethod, string> = { drawn: "Deep-drawn can", rolled: "Rolled and seam-welded can", bent: "Bent box" };
@@ -23,9 +23,9 @@ function blankSize(r: BlankResponse, unit: DesignLengthUnit): string {
   const L = (mm: number) => lengthText(mm, unit, 5);
   const b = r.blank;
   if (b.kind === "disc") return `Disc Ø ${L(b.diameter_mm)}`;
-  const main = `${b.kind === "cross" ? "Cross" : "Rectangle"} ${L(b.length_mm)} × ${L(b.width_mm)}`;
+  const main = `${b.kind === "cross" ? "Cross" : "Rectangle"} ${sizeText([b.length_mm, b.width_mm], unit)}`;
   if (r.method === "rolled") return `${main} + 2 discs Ø ${L(r.endCaps[0].diameter_mm)}`;
-  if (r.method === "bent" && r.lid) return `${main}; lid: cross ${L(r.lid.blank.length_mm)} × ${L(r.lid.blank.width_mm)}`;
+  if (r.method === "bent" && r.lid) return `${main}; lid: cross ${sizeText([r.lid.blank.length_mm, r.lid.blank.width_mm], unit)}`;
   return main;
 }
 
@@ -121,7 +121,7 @@ export function MakePanel({ request, unit = "mm" }: { request: PredictionRequest
                 </Link>
               </div>
               <p className="text-meta text-flux-600">
-                Inside {b.shape === "box" ? `${L(b.dimensions_mm.width)} × ${L(b.dimensions_mm.depth)} × ${L(b.dimensions_mm.height)}` : `Ø ${L(b.dimensions_mm.diameter)} × ${L(b.dimensions_mm.length)}`}
+                Inside {b.shape === "box" ? sizeText([b.dimensions_mm.width, b.dimensions_mm.depth, b.dimensions_mm.height], unit) : `Ø ${sizeText([b.dimensions_mm.diameter, b.dimensions_mm.length], unit)}`}
               </p>
               {q.isError ? (
                 <p className="mt-1 text-meta font-semibold text-danger-700">
@@ -164,7 +164,7 @@ export function MakePanel({ request, unit = "mm" }: { request: PredictionRequest
                 return (
                   <li key={k} data-testid="make-collar">
                     Layer {p.layer + 1} · collar for the Ø {L(hole.diameter_mm)} hole, {L(hole.collarLength_mm)} long · blank{" "}
-                    <span className="font-mono">{p.blank.kind === "disc" ? `disc Ø ${L(p.blank.diameter_mm)}` : `${L(p.blank.length_mm)} × ${L(p.blank.width_mm)}`}</span>
+                    <span className="font-mono">{p.blank.kind === "disc" ? `disc Ø ${L(p.blank.diameter_mm)}` : sizeText([p.blank.length_mm, p.blank.width_mm], unit)}</span>
                     {p.mass_kg !== undefined ? ` · ${kg(p.mass_kg)}` : ""}
                   </li>
                 );

@@ -54,14 +54,16 @@ function Figure({ label, value, testId }: { label: string; value: string; testId
 }
 
 function BlankFigures({ result, unit }: { result: BlankResponse; unit: BlankLengthUnit }) {
-  const L = (mm: number, digits = 2) => (unit === "mm" ? `${+mm.toFixed(digits)} mm` : `${+fromMillimetres(mm, unit).toFixed(digits + 2)} ${unitSymbols[unit]}`);
+  const n = (mm: number, digits = 2) => (unit === "mm" ? String(+mm.toFixed(digits)) : String(+fromMillimetres(mm, unit).toFixed(digits + 2)));
+  const L = (mm: number, digits = 2) => `${n(mm, digits)} ${unitSymbols[unit]}`;
+  const size = (a: number, b: number) => `${n(a)} × ${n(b)} ${unitSymbols[unit]}`;
   const b = result.blank;
   return (
     <dl className="grid gap-4 sm:grid-cols-3">
       {b.kind === "disc" ? (
         <Figure label="Blank: disc, diameter" value={`Ø ${L(b.diameter_mm)}`} testId="blank-size" />
       ) : (
-        <Figure label={b.kind === "cross" ? "Blank: cross, overall" : "Wall blank (rolled round)"} value={`${L(b.length_mm)} × ${L(b.width_mm)}`} testId="blank-size" />
+        <Figure label={b.kind === "cross" ? "Blank: cross, overall" : "Wall blank (rolled round)"} value={size(b.length_mm, b.width_mm)} testId="blank-size" />
       )}
       <Figure label="Blank area" value={unit === "mm" ? `${Math.round(result.area_mm2).toLocaleString("en-GB")} mm²` : `${+fromMillimetres(fromMillimetres(result.area_mm2, unit), unit).toFixed(2)} ${unitSymbols[unit]}²`} />
       <Figure label={result.material ? `Mass in ${result.material.id}` : "Mass"} value={result.mass_kg !== undefined ? `${result.mass_kg.toFixed(3)} kg` : "choose a material"} />

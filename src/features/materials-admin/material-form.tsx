@@ -63,7 +63,7 @@ export function MaterialForm({ material, saved, onSaved, onCancel }: { material:
   // opened from the list: brought into view and the first box to edit focused, wherever the list left the page
   const opened = useRef(editing);
   useEffect(() => {
-    panel.current?.scrollIntoView({ block: "start", behavior: "smooth" });
+    panel.current?.scrollIntoView({ block: "start" });
     setFocus(opened.current ? "name" : "id");
   }, [setFocus]);
 

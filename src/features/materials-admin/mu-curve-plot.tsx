@@ -46,7 +46,7 @@ export function MuCurvePlot({ curve, small = false, name }: { curve: readonly Mu
   const bTicks = decades(bLo, bHi).filter((t) => t >= bLo && t <= bHi);
   const mTicks = decades(mLo, mHi).filter((t) => t >= mLo && t <= mHi);
   const svg = (
-    <svg role="img" aria-label={label} viewBox={`0 0 ${W} ${H}`} width={W} height={H} className="block" data-testid={small ? "mu-thumbnail" : "mu-plot"}>
+    <svg role="img" aria-label={label} viewBox={`0 0 ${W} ${H}`} width={W} height={H} className={small ? "inline-block align-middle" : "block"} data-testid={small ? "mu-thumbnail" : "mu-plot"}>
       {!small && (
         <>
           {bTicks.map((t) => (
