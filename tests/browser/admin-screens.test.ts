@@ -38,19 +38,24 @@ describe("shop rates, as the planner reads and edits them", () => {
     await h.shot(page, "shop-rates-sheets-open");
     await page.getByRole("button", { name: /^stock sheets/i }).click();
 
-    // prices: typed in euros, not cents
+    // prices: typed in euros, not cents (other tests may have moved the list: read what it holds)
+    const { agent } = await signIn(h.app, { email: "admin@demo.test" }, DEMO_PASSWORD);
+    const list = (await agent.get("/api/shop-rates")).body.priceList as { currency: string; materials: Array<{ pricePerKg_cents: number }>; blankingPerPart_cents: number };
+    expect(list.currency).toBe("EUR");
     await page.getByRole("button", { name: /prices and operation rates/i }).click();
     const prices = page.getByRole("form", { name: "Prices and operation rates" });
-    const ni80 = prices.getByLabel("Price per kg, row 1, in EUR");
-    expect(await ni80.inputValue()).toBe("95.00");
+    const firstPrice = prices.getByLabel("Price per kg, row 1, in EUR");
+    expect(await firstPrice.inputValue()).toBe((list.materials[0].pricePerKg_cents / 100).toFixed(2));
     const blanking = prices.getByLabel(/^blanking, per blank/i);
-    expect(await blanking.inputValue()).toBe("2.50");
+    const blankingWas = (list.blankingPerPart_cents / 100).toFixed(2);
+    expect(await blanking.inputValue()).toBe(blankingWas);
     // a wrong value is named before any confirmation
     await blanking.fill("-1");
     await prices.getByRole("button", { name: /save prices/i }).click();
     await prices.getByText("Blanking rate per blank must not be negative.").waitFor();
     expect(await prices.getByRole("button", { name: /save as version/i }).count()).toBe(0);
-    await blanking.fill("2.60");
+    const changed = (list.blankingPerPart_cents / 100 + 0.1).toFixed(2);
+    await blanking.fill(changed);
     await prices.getByRole("button", { name: /save prices/i }).click();
     const before = Number(await page.getByTestId("current-version").textContent());
     await prices.getByRole("button", { name: new RegExp(`save as version ${before + 1}`, "i") }).click();
@@ -62,10 +67,11 @@ describe("shop rates, as the planner reads and edits them", () => {
     expect(savedBox.y - (buttonBox.y + buttonBox.height)).toBeGreaterThanOrEqual(0);
     expect(savedBox.y - (buttonBox.y + buttonBox.height)).toBeLessThan(80);
     expect(savedBox.y + savedBox.height).toBeLessThanOrEqual(900);
-    expect(await blanking.inputValue()).toBe("2.60");
+    expect(await blanking.inputValue()).toBe(changed);
+    expect((await agent.get("/api/shop-rates")).body.priceList.blankingPerPart_cents).toBe(list.blankingPerPart_cents + 10);
     await h.shot(page, "shop-rates-prices-saved");
     // put back
-    await blanking.fill("2.50");
+    await blanking.fill(blankingWas);
     await prices.getByRole("button", { name: /save prices/i }).click();
     await prices.getByRole("button", { name: new RegExp(`save as version ${before + 2}`, "i") }).click();
     await prices.getByText(new RegExp(`saved as version ${before + 2}`, "i")).waitFor();

@@ -126,7 +126,7 @@ export function DesignCheck() {
   const setFrequencyUnit = (u: string) => setPage({ ...page, design: { ...draft, units: { ...units, frequency: u as DesignUnits["frequency"] } } }, "commit");
 
   return (
-    <div className="grid items-start gap-6 lg:grid-cols-[minmax(21rem,24rem)_minmax(0,1fr)] xl:grid-cols-[26rem_minmax(0,1fr)]">
+    <div className="grid items-start gap-6 lg:grid-cols-[minmax(22rem,25rem)_minmax(0,1fr)] xl:grid-cols-[28rem_minmax(0,1fr)]">
       <p role="status" className="sr-only" data-testid="result-announcement">
         {announcement}
       </p>

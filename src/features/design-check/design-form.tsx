@@ -93,10 +93,12 @@ export function DesignForm({ draft, onChange, onCommit, errors, materials, mater
             </>
           )}
           {draft.shape === "cylinder" && (
-            <SelectField label="Ends" name="ends" value={draft.ends} error={errors.ends} onChange={(e) => set("ends", e.target.value as DesignDraft["ends"])}>
-              <option value="closed">Closed (lid and bottom)</option>
-              <option value="open">Open (tube)</option>
-            </SelectField>
+            <div className="sm:col-span-2">
+              <SelectField label="Ends" name="ends" value={draft.ends} error={errors.ends} onChange={(e) => set("ends", e.target.value as DesignDraft["ends"])}>
+                <option value="closed">Closed (lid and bottom)</option>
+                <option value="open">Open (tube)</option>
+              </SelectField>
+            </div>
           )}
         </div>
         <p className="text-meta text-flux-600">Inside dimensions of the innermost layer. Changing “Lengths in” shows the same design in that unit; it never changes it.</p>

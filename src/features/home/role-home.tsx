@@ -73,7 +73,7 @@ export function RoleHome({ user }: { user: User }) {
   const coming = plan.areas.filter((a) => !a.link);
   return (
     <>
-      <PageHeader eyebrow={`${roleLabels[user.role]} · ${homeLabels[user.role]}`} title={`Welcome, ${user.name}`} lead={plan.lead} />
+      <PageHeader eyebrow={`${roleLabels[user.role]} · ${homeLabels[user.role]}${user.organizationName ? ` · ${user.organizationName}` : ""}`} title={`Welcome, ${user.name}`} lead={plan.lead} />
       <section aria-labelledby="home-open" className="space-y-3">
         <h2 id="home-open" className="sr-only">
           Open now
