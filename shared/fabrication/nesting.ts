@@ -268,7 +268,8 @@ export function nestBlanks(blanks: readonly NestBlank[], sheet: NestSheet, optio
   const first = blanks[0];
   if (blanks.length > 1 && first.kind === "disc" && blanks.every((b) => b.kind === "disc" && b.diameter_mm === first.diameter_mm)) {
     const hex = discNest(blanks, first.diameter_mm, sheet, gap, edge);
-    if (hex && (hex.sheetsNeeded < shelf.sheetsNeeded || (hex.sheetsNeeded === shelf.sheetsNeeded && hex.partsPerSheet[0] > shelf.partsPerSheet[0]))) return hex;
+    // offset rows as a shop lays discs out, unless square rows need fewer sheets (a tie costs the same material)
+    if (hex && hex.sheetsNeeded <= shelf.sheetsNeeded) return hex;
     return shelf;
   }
   if (blanks.some((b) => b.kind === "disc")) {

@@ -74,3 +74,12 @@ describe("discs nest as the shop lays them out: offset rows", () => {
     expect(r.unplaced).toEqual([]);
   });
 });
+
+describe("equal discs that fit one sheet either way", () => {
+  it("are laid in offset rows, as the shop lays them, when square rows need no fewer sheets", () => {
+    const blanks = Array.from({ length: 50 }, () => ({ kind: "disc" as const, diameter_mm: 167 }));
+    const r = nestBlanks(blanks, { width_mm: 1000, length_mm: 2000 });
+    expect(r.algorithm).toBe("disc-offset-rows");
+    expect(r.sheetsNeeded).toBe(1);
+  });
+});

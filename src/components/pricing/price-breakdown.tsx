@@ -38,11 +38,12 @@ export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEsti
       <ResponsiveTable<Line>
         caption={`Price build-up for ${p.quantity} pieces`}
         testId="price-table"
+        rowTestId="price-line"
         columns={columns}
         rows={lines}
         rowKey={(l) => l.key}
         footer={footer}
-        cardsBelow={600}
+        cardsBelow={520}
       />
       <p className="text-meta text-flux-600">
         Prices in {data.currency}, an estimate from price list version {data.priceListVersion}; a quote fixes the price. Setup is spread over the quantity: {money(p.setupPerUnit_cents)} a piece.
