@@ -22,6 +22,11 @@ import { quoteReminderQueueDefinition, startQuoteReminders } from "./jobs/remind
 import { ShopSettings } from "./models";
 import { createStripe } from "./payments/stripe";
 import { designsRouter } from "./routes/designs";
+import { floorRouter } from "./routes/floor";
+import { furnaceRunsRouter } from "./routes/furnace-runs";
+import { heatsRouter } from "./routes/heats";
+import { jobsRouter } from "./routes/jobs";
+import { scansRouter } from "./routes/scans";
 import { ordersRouter } from "./routes/orders";
 import { quotesRouter } from "./routes/quotes";
 import { settingsRouter } from "./routes/settings";
@@ -164,6 +169,11 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(quotesRouter(deps));
   api.use(ordersRouter(deps));
   api.use(settingsRouter(deps));
+  api.use(jobsRouter(deps));
+  api.use(scansRouter(deps));
+  api.use(heatsRouter(deps));
+  api.use(furnaceRunsRouter(deps));
+  api.use(floorRouter(deps));
   api.use(apiNotFound);
   app.use("/api", api);
 

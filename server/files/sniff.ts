@@ -29,22 +29,35 @@ const STEP = /^\uFEFF?\s*ISO-10303-21;/;
 
 export type SniffResult = { ok: true; kind: DrawingKind; mime: string } | { ok: false; reason: string };
 
-export async function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
+/** The kinds a use accepts, and how to name them to people. */
+export interface Accepted {
+  kinds: readonly DrawingKind[];
+  what: string;
+}
+/** Drawings: PDF, DXF, STEP or an image. */
+export const DRAWINGS: Accepted = { kinds: Object.keys(drawingKinds) as DrawingKind[], what: "a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing" };
+/** A scanned paper record (a mill certificate, a furnace chart): PDF or an image. */
+export const PAPER_RECORDS: Accepted = { kinds: ["pdf", "png", "jpg", "tif", "webp"], what: "a PDF or an image (PNG, JPEG, TIFF, WebP)" };
+
+/** The file's kind by its content, when it is one of `allowed` (described to people as `what`) and its name agrees. */
+export async function sniffFile(file: string, filename: string, accepted: Accepted): Promise<SniffResult> {
+  const { kinds: allowed, what } = accepted;
   const ext = path_ext(filename);
   const detected = await fileTypeFromFile(file);
   let kind: DrawingKind | undefined;
   if (detected) {
     kind = SNIFFED[detected.ext];
-    if (!kind) return { ok: false, reason: `its content is ${describe(detected.ext, detected.mime)}, not a PDF, DXF, STEP or image drawing` };
+    if (!kind) return { ok: false, reason: `its content is ${describe(detected.ext, detected.mime)}, not ${what}` };
   } else {
     const text = await head(file);
     if (text.startsWith(DXF_BINARY) || DXF_ASCII.test(text)) kind = "dxf";
     else if (STEP.test(text)) kind = "step";
-    else return { ok: false, reason: "its content is not a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing" };
+    else return { ok: false, reason: `its content is not ${what}` };
   }
-  const allowed: readonly string[] = drawingKinds[kind].extensions;
-  if (!allowed.includes(ext)) {
-    return { ok: false, reason: `its content is a ${drawingKinds[kind].label} but the name ends in ${ext ? `.${ext}` : "no extension"}; name it .${allowed[0]}` };
+  if (!allowed.includes(kind)) return { ok: false, reason: `its content is a ${drawingKinds[kind].label}, not ${what}` };
+  const extensions: readonly string[] = drawingKinds[kind].extensions;
+  if (!extensions.includes(ext)) {
+    return { ok: false, reason: `its content is a ${drawingKinds[kind].label} but the name ends in ${ext ? `.${ext}` : "no extension"}; name it .${extensions[0]}` };
   }
   return { ok: true, kind, mime: drawingKinds[kind].mime };
 }

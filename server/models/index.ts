@@ -3,14 +3,20 @@ import { AuthToken } from "./AuthToken";
 import { CheckoutSession } from "./CheckoutSession";
 import { Design } from "./Design";
 import { Event } from "./Event";
+import { FurnaceRun } from "./FurnaceRun";
 import { Invoice } from "./Invoice";
+import { Job } from "./Job";
+import { Lot } from "./Lot";
 import { Material } from "./Material";
+import { MaterialHeat } from "./MaterialHeat";
 import { Order } from "./Order";
 import { OrderFile } from "./OrderFile";
 import { Organization } from "./Organization";
 import { Payment } from "./Payment";
 import { PriceListVersion } from "./PriceListVersion";
 import { Quote } from "./Quote";
+import { Scan } from "./Scan";
+import { Shipment } from "./Shipment";
 import { ShopSettings } from "./ShopSettings";
 import { StoredFile } from "./StoredFile";
 import { User } from "./User";
@@ -20,6 +26,7 @@ export { AuthToken, Event, Organization, StoredFile, User };
 export { PriceListVersion };
 export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
+export { FurnaceRun, Job, Lot, MaterialHeat, Scan, Shipment };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
 
@@ -46,4 +53,11 @@ export function initModels(sequelize: Sequelize): void {
   Order.belongsTo(Organization, { foreignKey: "organizationId", as: "organization" });
   Order.belongsTo(Quote, { foreignKey: "quoteId", as: "quote" });
   OrderFile.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
+
+  // shop floor
+  for (const model of [MaterialHeat, FurnaceRun, Shipment, Lot, Job, Scan]) model.initModel(sequelize);
+  MaterialHeat.belongsTo(StoredFile, { foreignKey: "millCertificateFileId", as: "millCertificate" });
+  FurnaceRun.belongsTo(StoredFile, { foreignKey: "chartFileId", as: "chart" });
+  Lot.belongsTo(Order, { foreignKey: "orderId", as: "order" });
+  Job.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
 }
