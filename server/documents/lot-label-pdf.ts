@@ -47,14 +47,17 @@ export async function renderLotLabels(props: { lot: LotLabelData; paperSize: Pap
       const x = left + c * w;
       const y = top + r * h;
       doc.rect(x, y, w, h).lineWidth(0.4).dash(2, { space: 3 }).strokeColor(RULE).stroke().undash();
-      const pad = 10;
-      const side = Math.min(64, h - 2 * pad - 30);
+      const pad = 12;
+      const side = Math.min(58, h - 2 * pad - 30);
+      const textWidth = w - side - 3 * pad;
       doc.image(symbol, x + w - pad - side, y + pad, { width: side, height: side });
-      doc.font("body").fontSize(7).fillColor(MUTED).text(pdfText(props.shop.name), x + pad, y + pad, { width: w - side - 3 * pad });
-      doc.font("display").fontSize(20).fillColor(INK).text(`LOT ${lot.number}`, x + pad, y + pad + 10, { width: w - side - 3 * pad });
-      let ly = y + pad + 40;
-      for (const line of lines) {
-        doc.font("body").fontSize(7.5).fillColor(INK).text(pdfText(line), x + pad, ly, { width: w - 2 * pad, height: 20, ellipsis: true });
+      doc.font("body").fontSize(7).fillColor(MUTED).text(pdfText(props.shop.name), x + pad, y + pad, { width: textWidth });
+      doc.font("display").fontSize(19).fillColor(INK).text(`LOT ${lot.number}`, x + pad, y + pad + 10, { width: textWidth });
+      let ly = y + pad + 38;
+      for (const [i, line] of lines.entries()) {
+        // beside the symbol the lines are narrower
+        const lw = ly < y + pad + side + 2 && i < 3 ? textWidth : w - 2 * pad;
+        doc.font("body").fontSize(7.5).fillColor(INK).text(pdfText(line), x + pad, ly, { width: lw, height: 20, ellipsis: true });
         ly = doc.y + 1;
       }
       doc.font("bold").fontSize(6.5).fillColor(ACCENT).text(pdfText(AFTER_ANNEAL_CAUTION), x + pad, Math.max(ly + 2, y + h - pad - 18), { width: w - 2 * pad, height: 18, ellipsis: true });

@@ -1,8 +1,7 @@
 import type { FlatPatternGeometry } from "../../shared/fabrication";
-import { PRESS_WORK_CAUTION } from "../../shared/fabrication";
 import type { JobPartJson } from "../../shared/schemas/jobs";
 import type { PaperSize } from "../../shared/schemas/shop-settings";
-import { AFTER_ANNEAL_CAUTION, HYDROGEN_CAUTION } from "../../shared/shop-floor/anneal";
+import { AFTER_ANNEAL_CAUTION, HYDROGEN_CAUTION_SHORT } from "../../shared/shop-floor/anneal";
 import { stepBarcode } from "../../shared/shop-floor/codes";
 import { stepLabels, type RoutingStep } from "../../shared/shop-floor/routing";
 import { code128 } from "./barcodes";
@@ -33,11 +32,13 @@ export function blankText(b: JobPartJson["blank"]): string {
   return b.kind === "disc" ? `disc, dia. ${num(b.diameter_mm, 1)} mm` : `${b.kind === "cross" ? "cross" : "rectangle"}, ${num(b.length_mm, 1)} × ${num(b.width_mm, 1)} mm`;
 }
 
+const PRESS_CAUTION = "Press work: guards and interlocks in place; cut-resistant gloves for sheared edges.";
+
 /** The cautions printed at a step, where the hazard is (domain.md section 7). */
 function cautionsAt(step: RoutingStep, routing: RoutingStep[]): string[] {
   const out: string[] = [];
-  if (step.key === "blank" || step.key === "form") out.push(PRESS_WORK_CAUTION);
-  if (step.key === "anneal") out.push(HYDROGEN_CAUTION);
+  if (step.key === "blank" || step.key === "form") out.push(PRESS_CAUTION);
+  if (step.key === "anneal") out.push(HYDROGEN_CAUTION_SHORT);
   const anneal = routing.findIndex((s) => s.key === "anneal");
   if (anneal >= 0 && routing.indexOf(step) === anneal + 1) out.push(AFTER_ANNEAL_CAUTION);
   return out;
@@ -118,7 +119,7 @@ async function travelerPage(doc: Doc, t: TravelerData, shop: ShopDetails, printe
   y += 10;
 
   // --- what the job makes, with its flat pattern beside it ---
-  const drawing = 150;
+  const drawing = 130;
   const facts: Array<[string, string]> = [
     ["Order", `${t.orderNumber} · ${t.customer}`],
     ["Lot", t.lotNumber],
@@ -145,8 +146,8 @@ async function travelerPage(doc: Doc, t: TravelerData, shop: ShopDetails, printe
   doc.font("body").fontSize(8).fillColor(MUTED).text("Scan the job, then the step's barcode; start when the work begins, complete when it is done.", left + 70, y + 3, { width: width - 70 });
   y = doc.y + 6;
   const colNo = 22;
-  const colText = width * 0.4;
-  const colBar = width * 0.27;
+  const colText = width * 0.44;
+  const colBar = width * 0.25;
   const colSign = width - colNo - colText - colBar;
   for (const [i, step] of t.routing.entries()) {
     const detail = stepDetail(step, t);
@@ -157,7 +158,7 @@ async function travelerPage(doc: Doc, t: TravelerData, shop: ShopDetails, printe
     const detailH = detail ? doc.heightOfString(pdfText(detail), { width: colText - 8 }) : 0;
     doc.fontSize(7);
     const cautionH = cautions.reduce((s, c) => s + doc.heightOfString(pdfText(`! ${c}`), { width: colText - 8 }) + 2, 0);
-    const rowH = Math.max(64, labelH + detailH + cautionH + 14);
+    const rowH = Math.max(62, labelH + detailH + cautionH + 12);
     if (y + rowH > doc.page.height - doc.page.margins.bottom) {
       doc.addPage();
       y = doc.page.margins.top;

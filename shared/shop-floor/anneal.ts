@@ -97,6 +97,10 @@ export const HYDROGEN_CAUTION =
   "Follow NFPA 86 (or the local equivalent, such as EN 746-3 in Europe) and the site's procedures: purge before heating and after cooling, " +
   "keep the interlocks and flame safeguards in service, and let only trained staff load, run and unload the furnace.";
 
+/** The same, short enough for a traveler's step. */
+export const HYDROGEN_CAUTION_SHORT =
+  "Hydrogen: follow NFPA 86 (or EN 746-3 / the local code) and site procedures; purge and interlocks in service; trained staff only. H2 burns at 4–75 % in air with an almost invisible flame.";
+
 /** After the final anneal the permeability is easily lost again [practice]. */
 export const AFTER_ANNEAL_CAUTION =
   "Annealed parts: handle padded, no bending, knocks, drops, drilling or press fits from here on; stress undoes the anneal. Demagnetize before test.";

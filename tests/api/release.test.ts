@@ -8,7 +8,7 @@ import { buildReleasedOrder, customer, designs, staff } from "../support/shop-fl
 const app = buildTestApp();
 beforeAll(ensureReferenceData);
 
-describe("POST /api/orders/:id/release", () => {
+describe("POST /api/orders/:id/release", { timeout: 30_000 }, () => {
   it("401, 403 without CSRF, for the customer and for an operator; 404 for a bad id; nothing is written", async () => {
     const buyer = await customer(app);
     const order = await buildPaidOrder(app, buyer.user);

@@ -12,7 +12,7 @@ beforeAll(ensureReferenceData);
 const scan = (who: Agent, body: Record<string, unknown>, headers: Record<string, string> = {}) =>
   who.agent.post("/api/scans").set("X-CSRF-Token", who.csrf).set(headers).send({ station: "press 2", ...body });
 
-describe("POST /api/scans: who and what", () => {
+describe("POST /api/scans: who and what", { timeout: 30_000 }, () => {
   it("401, 403 for a customer and without CSRF, 400 naming the fields, 404 for an unknown code", async () => {
     const { jobs } = await buildReleasedOrder(app);
     const body = { code: jobs[0].code, step: "material", action: "start", station: "stores" };
@@ -45,7 +45,7 @@ describe("POST /api/scans: who and what", () => {
   });
 });
 
-describe("POST /api/scans: the sequence", () => {
+describe("POST /api/scans: the sequence", { timeout: 30_000 }, () => {
   it("refuses a step the job does not have, a step barcode of another job, a complete before its start and a step ahead of its turn (409, in words)", async () => {
     const { jobs } = await buildReleasedOrder(app);
     const [a, b] = jobs;
@@ -126,7 +126,7 @@ describe("POST /api/scans: the sequence", () => {
   });
 });
 
-describe("POST /api/scans: step data", () => {
+describe("POST /api/scans: step data", { timeout: 30_000 }, () => {
   it("material issue needs the heat: unknown heat 400, another alloy or gauge 409, the right one links the job", async () => {
     const { jobs } = await buildReleasedOrder(app);
     const job = jobs[0];
@@ -219,7 +219,7 @@ describe("POST /api/scans: step data", () => {
   });
 });
 
-describe("GET /api/jobs/:id and the lookup by code", () => {
+describe("GET /api/jobs/:id and the lookup by code", { timeout: 30_000 }, () => {
   it("401; 403 for the ordering customer, 404 for another one and for a bad id; the staff see steps, lot, order and what comes next", async () => {
     const { jobs, order, buyer, lots } = await buildReleasedOrder(app);
     const job = jobs[0];

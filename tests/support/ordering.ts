@@ -103,13 +103,16 @@ export async function waitFor<T>(probe: () => Promise<T | undefined | null | fal
   }
 }
 
-/** The text of a PDF, read by poppler's pdftotext (an extractor independent of the renderer). */
-export function pdfText(pdf: Buffer): string {
+/**
+ * The text of a PDF, read by poppler's pdftotext (an extractor independent of the renderer): laid
+ * out as on the page, or "raw" in the order it was written (sentences wrapped in a column stay whole).
+ */
+export function pdfText(pdf: Buffer, mode: "layout" | "raw" = "layout"): string {
   const dir = mkdtempSync(path.join(tmpdir(), "fw-pdf-"));
   try {
     const file = path.join(dir, "doc.pdf");
     writeFileSync(file, pdf);
-    return execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
+    return execFileSync("pdftotext", [`-${mode}`, file, "-"], { encoding: "utf8" });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -93,3 +93,19 @@ export async function scanThrough(agent: Agent, job: Job, until: StepKey, heatNu
     if (s.key === until) return;
   }
 }
+
+/**
+ * Arranges a lot as if every job had been scanned through clean (components finished): the state a
+ * furnace load needs, without walking each job through the API. The scan tests walk the real path.
+ */
+export async function arrangeReadyForFurnace(lotId: string): Promise<void> {
+  const sequelize = Job.sequelize!;
+  await sequelize.query(`update jobs set step_index = anneal_index, current_step = 'anneal', step_started_at = null where lot_id = $1 and anneal_index is not null`, { bind: [lotId] });
+  await sequelize.query(
+    `update jobs set step_index = jsonb_array_length(routing), current_step = null, step_started_at = null, completed_at = now() where lot_id = $1 and anneal_index is null`,
+    { bind: [lotId] },
+  );
+}
+
+/** A furnace run record inside the 80 % Ni window of the shop settings' defaults. */
+export const goodRun = { peakTemperature_c: 1150, soak_min: 180, dewPoint_c: -50, dewPointOut_c: -45, coolingRate_c_per_h: 200 };
