@@ -29,7 +29,11 @@ async function startServer(port: number): Promise<ChildProcess> {
   let output = "";
   const child = spawn(process.execPath, [entry], {
     cwd: root,
-    env: { PATH: process.env.PATH, NODE_ENV: "production", PORT: String(port), DATABASE_URL: process.env.DATABASE_URL, SMTP_PORT: String(inject("smtpPort")), LOG_LEVEL: "warn", JOB_SCHEDULES: "0" },
+    // a job queue of its own: a process killed mid-mail must not leave another test file's mail in flight
+    env: {
+      PATH: process.env.PATH, NODE_ENV: "production", PORT: String(port), DATABASE_URL: process.env.DATABASE_URL, SMTP_PORT: String(inject("smtpPort")),
+      LOG_LEVEL: "warn", JOB_SCHEDULES: "0", JOB_QUEUE_PREFIX: "crash-test.",
+    },
     stdio: ["ignore", "pipe", "pipe"],
   });
   child.stdout!.on("data", (d) => (output += d));

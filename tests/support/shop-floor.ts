@@ -109,3 +109,11 @@ export async function arrangeReadyForFurnace(lotId: string): Promise<void> {
 
 /** A furnace run record inside the 80 % Ni window of the shop settings' defaults. */
 export const goodRun = { peakTemperature_c: 1150, soak_min: 180, dewPoint_c: -50, dewPointOut_c: -45, coolingRate_c_per_h: 200 };
+
+/** Arranges every job of a lot as finished (scanned through pack). */
+export async function arrangeFinished(lotId: string): Promise<void> {
+  await Job.sequelize!.query(
+    `update jobs set step_index = jsonb_array_length(routing), current_step = null, step_started_at = null, completed_at = now() where lot_id = $1`,
+    { bind: [lotId] },
+  );
+}
