@@ -18,18 +18,13 @@ import { designParts } from "./priceEstimator";
 const round = (x: number, digits = 4) => +x.toFixed(digits);
 
 /**
- * Releases a paid order (locked by the caller) to the shop floor: the design's parts, sized with
- * the price list the quote was priced with, become jobs with their routings and flat patterns,
- * grouped into lots of one alloy that fit the largest furnace. Lot numbers and job codes come from
- * their sequences; due dates from the requested date (else payment + the quoted lead time). The
- * order moves to "released", the event and the "released" mail go with it.
+ * The lots and jobs of an order (locked by the caller): the design's parts, sized with the price
+ * list the quote was priced with, become jobs with their routings and flat patterns, grouped into
+ * lots of one alloy that fit the largest furnace. Lot numbers and job codes come from their
+ * sequences; due dates from the requested date (else payment + the quoted lead time).
  */
-export async function orderReleaser(props: { actor: Actor; order: Order; quote: Quote; mailer: Mailer; appUrl: string; ip: string | null; transaction: Transaction; now?: Date }): Promise<Lot[]> {
-  const { actor, order, quote, transaction } = props;
-  const now = props.now ?? new Date();
-  if (order.status === "released" || order.status === "shipped") throw ConflictError("ORDER_ALREADY_RELEASED", `Order ${documentNumber("order", order.number)} has already been released to the shop floor.`);
-  if (!orderStatusAllows.release(order)) throw ConflictError("ORDER_NOT_RELEASABLE", `Only a paid order can be released; order ${documentNumber("order", order.number)} is ${order.status.replace("_", " ")}.`);
-
+export async function lotPlanner(props: { order: Order; quote: Quote; transaction: Transaction; now: Date }): Promise<{ lots: Lot[]; jobs: Job[]; dueDate: string }> {
+  const { order, quote, transaction, now } = props;
   const [version, settings, catalog] = await Promise.all([
     PriceListVersion.findByPk(quote.priceListId, { attributes: ["data"], transaction }),
     ShopSettings.current(transaction),
@@ -85,12 +80,25 @@ export async function orderReleaser(props: { actor: Actor; order: Order; quote: 
   const pieceOf = new Map(pieceRows.map((r, i) => [`${r.lot}:${r.index}`, pieces[i]]));
   const components = rows.filter((r) => r.assembly !== null).map((r) => ({ ...r.values, assemblyJobId: pieceOf.get(`${r.lot}:${r.assembly}`)!.id }));
   const welded = components.length ? await Job.bulkCreate(components, { transaction, returning: true }) : [];
+  return { lots, jobs: [...pieces, ...welded], dueDate: due };
+}
+
+/**
+ * Releases a paid order (locked by the caller) to the shop floor: its lots and jobs (lotPlanner),
+ * the order "released", the event and the "released" mail with it.
+ */
+export async function orderReleaser(props: { actor: Actor; order: Order; quote: Quote; mailer: Mailer; appUrl: string; ip: string | null; transaction: Transaction; now?: Date }): Promise<Lot[]> {
+  const { actor, order, quote, transaction } = props;
+  const now = props.now ?? new Date();
+  if (order.status === "released" || order.status === "shipped") throw ConflictError("ORDER_ALREADY_RELEASED", `Order ${documentNumber("order", order.number)} has already been released to the shop floor.`);
+  if (!orderStatusAllows.release(order)) throw ConflictError("ORDER_NOT_RELEASABLE", `Only a paid order can be released; order ${documentNumber("order", order.number)} is ${order.status.replace("_", " ")}.`);
+  const { lots, jobs, dueDate: due } = await lotPlanner({ order, quote, transaction, now });
 
   order.status = "released";
   await order.save({ transaction });
   const lotNumbers = lots.map((l) => l.number);
   await recordEvent(
-    { actor, organizationId: order.organizationId, action: "order.released", subject: { type: "order", id: order.id }, data: { lots: lotNumbers, jobs: pieces.length + welded.length, dueDate: due }, ip: props.ip, at: now },
+    { actor, organizationId: order.organizationId, action: "order.released", subject: { type: "order", id: order.id }, data: { lots: lotNumbers, jobs: jobs.length, dueDate: due }, ip: props.ip, at: now },
     transaction,
   );
   const buyer = order.createdById ? await User.findByPk(order.createdById, { transaction }) : null;

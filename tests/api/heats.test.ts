@@ -10,7 +10,7 @@ const app = buildTestApp();
 beforeAll(ensureReferenceData);
 
 const receive = (who: Agent, body: Record<string, unknown>) => who.agent.post("/api/heats").set("X-CSRF-Token", who.csrf).send(body);
-const delivery = (overrides: Record<string, unknown> = {}) => ({ heatNumber: `MH-${randomUUID().slice(0, 8)}`, materialId: "ni80", thickness_mm: 1, supplier: "Corvale Alloys (demo)", quantity: 12, ...overrides });
+const delivery = (overrides: Record<string, unknown> = {}) => ({ heatNumber: `MH-${randomUUID().slice(0, 8)}`, materialId: "ni80", thickness_mm: 1, supplier: "Pellow Strip Mill (test)", quantity: 12, ...overrides });
 const PDF = Buffer.from("%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n");
 const PNG = Buffer.from("89504e470d0a1a0a0000000d4948445200000001000000010806000000 1f15c4890000000d49444154789c6360000000000500010d0a2db40000000049454e44ae426082".replace(/ /g, ""), "hex");
 

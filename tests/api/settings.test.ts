@@ -77,7 +77,7 @@ describe("furnaces and anneal windows in the shop settings", { timeout: 30_000 }
   it("the planner adds a furnace and a window (other files read the first furnace and the 80 % Ni window: those stay, and this file runs its tests one after another); 400 naming the field; omitted, they stay as they are", async () => {
     const shop = await buildOrganization({ kind: "shop" });
     const planner = await signIn(app, await buildUser({ role: "admin", organizationId: shop.id }));
-    const put = (body: unknown) => planner.agent.put("/api/shop-settings").set("X-CSRF-Token", planner.csrf).send(body);
+    const put = (body: object) => planner.agent.put("/api/shop-settings").set("X-CSRF-Token", planner.csrf).send(body);
     const current = (await planner.agent.get("/api/shop-settings")).body;
     expect(current.furnaces.length).toBeGreaterThanOrEqual(1);
     expect(current.annealWindows.map((w: { materialId: string }) => w.materialId)).toEqual(expect.arrayContaining(["ni80", "ni50"]));

@@ -118,7 +118,7 @@ describe("PUT /api/jobs/:id/routing", { timeout: 30_000 }, () => {
     const stranger = await customer(app);
     expect((await stranger.agent.put(url).set("X-CSRF-Token", stranger.csrf).send({ steps })).status).toBe(404);
     const planner = await staff(app, "admin");
-    const put = (body: unknown) => planner.agent.put(url).set("X-CSRF-Token", planner.csrf).send(body);
+    const put = (body: object) => planner.agent.put(url).set("X-CSRF-Token", planner.csrf).send(body);
     let res = await put({ steps: [{ key: "material" }, { key: "paint" }] });
     expect(res.status).toBe(400);
     expect(res.body.error.fields).toHaveProperty("steps.1.key");
