@@ -36,6 +36,9 @@ rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 section("ordering, 10 connections");
 rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
 
+section("shop floor: 100 000 jobs, 1 000 000 scans");
+rows.push(...(await (await import("./shop-floor")).benchShopFloor(Number(process.env.BENCH_SECONDS ?? 3))));
+
 section("client");
 rows.push(...benchInitialJs(path.join(root, "dist")));
 

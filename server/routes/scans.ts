@@ -7,7 +7,6 @@ import { requireUser } from "../middleware/security";
 import { scanRoles } from "../policies/shop-floor";
 import { requireRole } from "../policies/utils";
 import { presentJob, presentScanEvent } from "../presenters/jobs";
-import { loadJobView } from "../services/jobViews";
 import { stepScanner } from "../services/stepScanner";
 import { materialNames } from "./jobs";
 
@@ -28,9 +27,9 @@ export function scansRouter({ sequelize }: AppDeps): Router {
       throw ValidationError({ idempotencyKey: "the Idempotency-Key header and the body name different keys" });
     }
     const input = parseInput(scanRequestSchema, header !== undefined ? { ...body, idempotencyKey: header } : body);
-    const outcome = await sequelize.transaction((transaction) => stepScanner({ actor, input, sequelize, transaction }));
-    const [view, names] = await Promise.all([loadJobView(sequelize, { id: outcome.jobId }), materialNames()]);
-    const answer: ScanJson = { repeat: outcome.repeat, event: presentScanEvent(outcome.scan, outcome.code), job: presentJob(view!, actor, names) };
+    // one statement records the event and moves the job (its own transaction): see stepScanner
+    const outcome = await stepScanner({ actor, input, sequelize });
+    const answer: ScanJson = { repeat: outcome.repeat, event: presentScanEvent(outcome.scan, outcome.code), job: presentJob(outcome.job, actor, await materialNames()) };
     res.status(outcome.repeat ? 200 : 201).json(answer);
   });
 

@@ -3,45 +3,36 @@ import type { ScanData, ScanInput } from "../../shared/schemas/scans";
 import { MAX_OFFLINE_AGE_DAYS } from "../../shared/schemas/scans";
 import { normalizeCode, parseStepBarcode } from "../../shared/shop-floor/codes";
 import { checkScan, stepLabels, type RoutingStep, type StepKey } from "../../shared/shop-floor/routing";
+import { prepared } from "../db/prepared";
 import { AppError, ConflictError, ValidationError } from "../errors";
 import type { Actor } from "../policies/utils";
 import type { ScanRow } from "../presenters/jobs";
+import { jobViewSql, type JobView } from "./jobViews";
 
-// The locked job, its lot's hold and furnace run, and the scan already recorded under the
-// idempotency key if any: one statement.
-const LOCK_JOB = `
-select j.id, j.code, j.routing, j.step_index, j.step_started_at, j.material_id, j.thickness_mm, j.heat_id,
-  l.number as lot_number, l.hold_reason, l.furnace_run_id as lot_furnace_run_id,
-  k.job_id as key_job_id, k.step as key_step, k.action as key_action
-from jobs j
-join lots l on l.id = j.lot_id
-left join scans k on k.idempotency_key = $2
-where j.code = $1
-for update of j`;
+// The job as its page shows it (the answer's job, without a second read), and the scan already
+// recorded under the idempotency key if any: one statement, no lock (the write below decides).
+const READ_JOB = {
+  name: "scan-read-job",
+  text: jobViewSql({
+    columns: "k.job_id as key_job_id, k.step as key_step, k.action as key_action",
+    joins: "left join scans k on k.idempotency_key = $2",
+    where: "j.code = $1",
+  }),
+};
 
-interface LockedJob {
-  id: string;
-  code: string;
-  routing: RoutingStep[];
-  step_index: number;
-  step_started_at: Date | null;
-  material_id: string;
-  thickness_mm: number;
-  heat_id: string | null;
-  lot_number: string;
-  hold_reason: string | null;
-  lot_furnace_run_id: string | null;
-  key_job_id: string | null;
-  key_step: string | null;
-  key_action: string | null;
-}
+type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null };
 
-// The event and the job's move in one statement; the unique (job, step, action) is the last word
-// on "once", whatever the lock let through.
-const RECORD = `
+// The event and the job's move in one statement (one transaction of its own, or the caller's),
+// only from the state the scan was checked against ($16, $17). From each state of a job exactly
+// one event is new (start or complete of its current step), so the unique (job, step, action) lets
+// one of any number of racing scans insert; the others find the row taken and insert nothing. The
+// job's update, which holds its row lock to the end, happens only with the insert. No row back:
+// the job moved since it was read (read it again).
+const RECORD = { name: "scan-record", text: `
 with s as (
   insert into scans (job_id, step_index, step, action, station, operator_id, idempotency_key, data, scanned_at)
-  values ($1, $2, $3, $4, $5, $6, $7, $8, $9)
+  select $1, $2, $3, $4, $5, $6, $7, $8, $9
+  where exists (select 1 from jobs where id = $1 and step_index = $16 and (step_started_at is not null) = $17)
   on conflict (job_id, step_index, action) do nothing
   returning id, job_id, step, action, station, operator_id, idempotency_key, data, scanned_at, created_at),
 u as (
@@ -50,32 +41,44 @@ u as (
     heat_id = coalesce($14, heat_id), furnace_run_id = coalesce($15, furnace_run_id), updated_at = now()
   where id = $1 and exists (select 1 from s)
   returning id)
-select s.*, null::text as operator_name from s`;
+select s.*, null::text as operator_name from s` };
 
-const RECORDED = `
+const RECORDED = { name: "scan-recorded", text: `
 select s.id, s.job_id, s.step, s.action, s.station, s.operator_id, u.name as operator_name, s.idempotency_key, s.data, s.scanned_at, s.created_at
 from scans s left join users u on u.id = s.operator_id
-where s.job_id = $1 and s.step_index = $2 and s.action = $3`;
+where s.job_id = $1 and s.step_index = $2 and s.action = $3` };
 
 export interface ScanOutcome {
   /** nothing new was recorded: the answer is the event already there */
   repeat: boolean;
   scan: ScanRow;
-  jobId: string;
+  /** the job as it stands after the scan */
+  job: JobView;
   code: string;
 }
 
 const sameNumber = (a: number, b: number) => Math.abs(a - b) < 1e-6;
+const ATTEMPTS = 5;
 
 /**
- * Records a step's start or completion from a station. The job's row lock makes scans of one job
- * take turns; the unique (job, step, action) makes each step start once and complete once. What
- * is already recorded answers as a repeat (a second scanner, an offline queue replayed, the same
- * idempotency key again); what is out of sequence is refused in the operator's words. Step data:
- * the heat at material issue (alloy and gauge must match the job), the draws at form, the weld
- * inspection at weld; completing the anneal links the job to its lot's furnace run.
+ * Records a step's start or completion from a station. Each step starts once and completes once:
+ * the unique (job, step, action) decides, and the job moves in the same statement, under its row
+ * lock, only from the state the scan was checked against (a scan that lost a race reads the job
+ * again and is then a repeat or refused). What is already recorded answers as a repeat (a second
+ * scanner, an offline queue replayed, the same idempotency key again); what is out of sequence is
+ * refused in the operator's words. Step data: the heat at material issue (alloy and gauge must
+ * match the job), the draws at form, the weld inspection at weld; completing the anneal links the
+ * job to its lot's furnace run. Runs in the caller's transaction when given one (the demo seed).
  */
-export async function stepScanner(props: { actor: Actor & { name: string }; input: ScanInput; sequelize: Sequelize; transaction: Transaction; now?: Date }): Promise<ScanOutcome> {
+export async function stepScanner(props: { actor: Actor & { name: string }; input: ScanInput; sequelize: Sequelize; transaction?: Transaction; now?: Date }): Promise<ScanOutcome> {
+  for (let attempt = 1; ; attempt++) {
+    const outcome = await attemptScan(props);
+    if (outcome) return outcome;
+    if (attempt === ATTEMPTS) throw ConflictError("JOB_BUSY", "This job is being scanned at another station right now; scan again.");
+  }
+}
+
+async function attemptScan(props: { actor: Actor & { name: string }; input: ScanInput; sequelize: Sequelize; transaction?: Transaction; now?: Date }): Promise<ScanOutcome | null> {
   const { actor, input, sequelize, transaction } = props;
   const now = props.now ?? new Date();
   const code = normalizeCode(input.code);
@@ -89,7 +92,7 @@ export async function stepScanner(props: { actor: Actor & { name: string }; inpu
   }
   const key = input.idempotencyKey ?? null;
 
-  const [job] = await sequelize.query<LockedJob>(LOCK_JOB, { bind: [code, key], type: QueryTypes.SELECT, transaction });
+  const [job] = await prepared<ReadJob>(sequelize, READ_JOB, [code, key], transaction);
   if (!job) throw new AppError(404, "UNKNOWN_CODE", `No job has the code ${code}. Check the traveler, or type the code printed under its barcode.`);
   const what = `job ${job.code}`;
 
@@ -98,7 +101,8 @@ export async function stepScanner(props: { actor: Actor & { name: string }; inpu
     throw ConflictError("IDEMPOTENCY_KEY_REUSED", "This scan's idempotency key was already used for a different scan; the device must give each scan its own key.");
   }
 
-  const verdict = checkScan({ routing: job.routing, stepIndex: job.step_index, started: job.step_started_at !== null }, step, input.action, what);
+  const started = job.step_started_at !== null;
+  const verdict = checkScan({ routing: job.routing, stepIndex: job.step_index, started }, step, input.action, what);
   if (verdict.kind === "refused") throw ConflictError(verdict.code, verdict.message);
   if (verdict.kind === "repeat") return repeatOf(job, verdict.stepIndex, input, sequelize, transaction);
   if (job.hold_reason) throw ConflictError("LOT_ON_HOLD", `Lot ${job.lot_number} is on hold: ${job.hold_reason} Only the planner can release it; leave ${job.code} where it is.`);
@@ -153,28 +157,36 @@ export async function stepScanner(props: { actor: Actor & { name: string }; inpu
   const done = nextIndex >= job.routing.length;
   let rows: ScanRow[];
   try {
-    rows = await sequelize.query<ScanRow>(RECORD, {
-      bind: [
-        job.id, i, step, input.action, input.station, actor.id, key, JSON.stringify(data), scannedAt,
-        nextIndex, complete ? null : scannedAt, done ? null : job.routing[nextIndex].key, done ? scannedAt : null, heatId, furnaceRunId,
-      ],
-      type: QueryTypes.SELECT,
-      transaction,
-    });
+    rows = await prepared<ScanRow>(sequelize, RECORD, [
+      job.id, i, step, input.action, input.station, actor.id, key, JSON.stringify(data), scannedAt,
+      nextIndex, complete ? null : scannedAt, done ? null : job.routing[nextIndex].key, done ? scannedAt : null, heatId, furnaceRunId,
+      job.step_index, started,
+    ], transaction);
   } catch (err) {
     // a concurrent scan took this idempotency key for something else
-    if ((err as { original?: { constraint?: string } }).original?.constraint === "scans_idempotency_key") {
+    const e = err as { constraint?: string; original?: { constraint?: string } };
+    if ((e.constraint ?? e.original?.constraint) === "scans_idempotency_key") {
       throw ConflictError("IDEMPOTENCY_KEY_REUSED", "This scan's idempotency key was already used for a different scan; the device must give each scan its own key.");
     }
     throw err;
   }
-  if (!rows.length) return repeatOf(job, i, input, sequelize, transaction);
-  return { repeat: false, scan: { ...rows[0], operator_name: actor.name }, jobId: job.id, code: job.code };
+  if (!rows.length) return null;
+  const scan = { ...rows[0], operator_name: actor.name };
+  const moved: JobView = {
+    ...job,
+    step_index: nextIndex,
+    step_started_at: complete ? null : scannedAt,
+    completed_at: done ? scannedAt : null,
+    ...(heatId ? { heat_id: heatId, heat_number: data.heatNumber ?? null } : {}),
+    ...(furnaceRunId ? { furnace_run_id: furnaceRunId, furnace_run_number: job.lot_furnace_run_number } : {}),
+    scans: [...job.scans, { stepIndex: i, action: input.action, at: scannedAt.toISOString(), station: input.station, operatorId: actor.id, operatorName: actor.name }],
+  };
+  return { repeat: false, scan, job: moved, code: job.code };
 }
 
 /** The event already recorded for this step and action; a repeat that names other step data is refused. */
-async function repeatOf(job: LockedJob, stepIndex: number, input: ScanInput, sequelize: Sequelize, transaction: Transaction): Promise<ScanOutcome> {
-  const [scan] = await sequelize.query<ScanRow>(RECORDED, { bind: [job.id, stepIndex, input.action], type: QueryTypes.SELECT, transaction });
+async function repeatOf(job: ReadJob, stepIndex: number, input: ScanInput, sequelize: Sequelize, transaction?: Transaction): Promise<ScanOutcome> {
+  const [scan] = await prepared<ScanRow>(sequelize, RECORDED, [job.id, stepIndex, input.action], transaction);
   if (!scan) throw new Error(`job ${job.code}: step ${stepIndex} ${input.action} is recorded in its progress but has no scan`);
   const d = scan.data as ScanData;
   const label = stepLabels[job.routing[stepIndex].key].toLowerCase();
@@ -182,11 +194,11 @@ async function repeatOf(job: LockedJob, stepIndex: number, input: ScanInput, seq
   if (differs(input.heatNumber?.trim(), d.heatNumber) || differs(input.drawStagesDone, d.drawStagesDone) || differs(input.weldInspection?.result, d.weldInspection?.result)) {
     throw ConflictError("ALREADY_RECORDED", `The ${label} ${input.action === "start" ? "start" : "completion"} of ${job.code} is already recorded (${new Date(scan.scanned_at).toISOString()}, ${scan.station}) with other details; ask the planner to correct it.`);
   }
-  return { repeat: true, scan, jobId: job.id, code: job.code };
+  return { repeat: true, scan, job, code: job.code };
 }
 
 /** The heat of this job's alloy and gauge with that number, or the reason it is refused. */
-async function heatFor(job: LockedJob, heatNumber: string, sequelize: Sequelize, transaction: Transaction): Promise<string> {
+async function heatFor(job: ReadJob, heatNumber: string, sequelize: Sequelize, transaction?: Transaction): Promise<string> {
   const heats = await sequelize.query<{ id: string; material_id: string; thickness_mm: number }>(
     `select id, material_id, thickness_mm from material_heats where heat_number = $1`,
     { bind: [heatNumber.trim()], type: QueryTypes.SELECT, transaction },

@@ -112,6 +112,21 @@ describe("POST /api/scans: the sequence", { timeout: 30_000 }, () => {
     }
   });
 
+  it("starts and completions of the same step racing from several stations leave one of each, and the job where its events say", async () => {
+    const { jobs } = await buildReleasedOrder(app);
+    const heat = await buildHeat();
+    const op = await staff(app, "operator");
+    const body = (action: string) => ({ code: jobs[0].code, step: "material", action, ...(action === "complete" ? { heatNumber: heat.heatNumber } : {}) });
+    const answers = await Promise.all(Array.from({ length: 16 }, (_, i) => scan(op, body(i % 2 ? "complete" : "start"))));
+    for (const r of answers) expect([200, 201, 409]).toContain(r.status);
+    expect(answers.filter((r) => r.status === 201).length).toBeLessThanOrEqual(2);
+    const rows = await Scan.findAll({ where: { jobId: jobs[0].id } });
+    expect(rows.map((r) => r.action).sort()).toEqual(answers.some((r) => r.status === 201 && r.body.event.action === "complete") ? ["complete", "start"] : ["start"]);
+    const job = (await Job.findByPk(jobs[0].id))!;
+    expect(job.stepIndex).toBe(rows.length === 2 ? 1 : 0);
+    expect(job.stepStartedAt !== null).toBe(rows.length === 1);
+  });
+
   it("an offline scan keeps the time it was made; one older than two weeks is refused naming scannedAt", async () => {
     const { jobs } = await buildReleasedOrder(app);
     const op = await staff(app, "operator");
