@@ -2,7 +2,7 @@ import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import type { ScanData, ScanInput } from "../../shared/schemas/scans";
 import { MAX_OFFLINE_AGE_DAYS } from "../../shared/schemas/scans";
 import { normalizeCode, parseStepBarcode } from "../../shared/shop-floor/codes";
-import { checkScan, stepLabels, type RoutingStep, type StepKey } from "../../shared/shop-floor/routing";
+import { checkScan, stepLabels, type StepKey } from "../../shared/shop-floor/routing";
 import { prepared } from "../db/prepared";
 import { AppError, ConflictError, ValidationError } from "../errors";
 import type { Actor } from "../policies/utils";

@@ -2,12 +2,15 @@
 // the routes use, heats, signed-in staff, and a scan helper that walks a job through its routing.
 import { randomUUID } from "node:crypto";
 import type { FluxwrightApp } from "../../server/app";
-import { Job, Lot, MaterialHeat, Order, Quote, type User } from "../../server/models";
+import type { Mailer } from "../../server/jobs/mailer";
+import { CheckoutSession, Job, Lot, MaterialHeat, Order, Quote, type User } from "../../server/models";
+import { orderPlacer } from "../../server/services/orderPlacer";
 import { orderReleaser } from "../../server/services/orderReleaser";
+import { paymentEventRecorder } from "../../server/services/paymentEventRecorder";
 import type { Role } from "../../shared/schemas/auth";
 import type { StepKey } from "../../shared/shop-floor/routing";
 import { buildOrganization, buildUser, signIn } from "./app";
-import { buildPaidOrder, configuration } from "./ordering";
+import { buildQuote, completedEvent, configuration } from "./ordering";
 
 export type Agent = Awaited<ReturnType<typeof signIn>>;
 
@@ -39,12 +42,26 @@ export const designs = {
     }),
 };
 
-/** A paid order released to the floor through the release service; returns the order, its lots and jobs. */
+/** Queues nothing: the factory's orders need no mail, and every mail queued slows every test file's `inbox()`. */
+const silent: Mailer = { enqueue: async () => {}, send: () => {}, idle: async () => {} };
+
+/**
+ * A paid order released to the floor through the ordering and release services (without their
+ * mails: the release and shipment tests read those); returns the order, its lots and jobs.
+ */
 export async function buildReleasedOrder(app: FluxwrightApp, opts: { buyer?: User; quantity?: number; configuration?: Record<string, unknown>; requestedDate?: string } = {}) {
   const buyer = opts.buyer ?? (await buildUser({ role: "customer" }));
-  const paid = await buildPaidOrder(app, buyer, { quantity: opts.quantity ?? 2, configuration: opts.configuration });
+  const { sequelize, config } = app.locals.deps;
+  const quote = await buildQuote(app, buyer, { quantity: opts.quantity ?? 2, configuration: opts.configuration });
+  const placed = await sequelize.transaction((transaction) => orderPlacer({ actor: buyer, quote, input: {}, mailer: silent, appUrl: config.appUrl, ip: null, transaction }));
+  const sessionId = `cs_test_${placed.id.slice(0, 8)}${Date.now()}`;
+  await CheckoutSession.create({ id: sessionId, orderId: placed.id, amountCents: placed.totalCents, currency: placed.currency, url: "http://127.0.0.1/x", idempotencyKey: `test-${sessionId}`, createdById: buyer.id });
+  await sequelize.transaction((transaction) =>
+    paymentEventRecorder({ event: completedEvent(sessionId, placed.totalCents, placed.currency.toLowerCase()), mailer: silent, appUrl: config.appUrl, transaction }),
+  );
+  const paid = placed;
   if (opts.requestedDate) await Order.update({ requestedDate: opts.requestedDate }, { where: { id: paid.id } });
-  const { sequelize, mailer, config } = app.locals.deps;
+  const mailer = silent;
   const planner = await buildUser({ role: "admin", organizationId: (await buildOrganization({ kind: "shop" })).id });
   await sequelize.transaction(async (transaction) => {
     const order = (await Order.findByPk(paid.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
