@@ -9,18 +9,44 @@ import type { Actor } from "../policies/utils";
 import type { ScanRow } from "../presenters/jobs";
 import { jobViewSql, type JobView } from "./jobViews";
 
-// The job as its page shows it (the answer's job, without a second read), and the scan already
-// recorded under the idempotency key if any: one statement, no lock (the write below decides).
-const READ_JOB = {
-  name: "scan-read-job",
-  text: jobViewSql({
+// The job as its page shows it (the answer's job, without a second read), the scan already
+// recorded under the idempotency key if any, and — when the scan carries no step data and is the
+// job's plain next move ($9) — that move itself: the event inserted and the job moved in the same
+// statement, so most scans cost one round trip. Whatever else (a repeat, a refusal, a step that
+// needs its data checked) comes back as the read alone, and the code below decides.
+const SCAN = {
+  name: "scan-read-or-move",
+  text: `
+with v as (${jobViewSql({
     columns: "k.job_id as key_job_id, k.step as key_step, k.action as key_action",
-    joins: "left join scans k on k.idempotency_key = $2",
-    where: "j.code = $1",
-  }),
+    joins: "left join scans k on k.idempotency_key = $2::varchar",
+    where: "j.code = $1::varchar",
+  })}),
+s as (
+  insert into scans (job_id, step_index, step, action, station, operator_id, idempotency_key, data, scanned_at)
+  select v.id, v.step_index, $3::varchar, $4::varchar, $5::varchar, $6::uuid, $2::varchar, $7::jsonb, $8::timestamptz
+  from v
+  where $9::boolean and v.key_job_id is null and v.hold_reason is null and v.completed_at is null
+    and v.routing -> v.step_index ->> 'key' = $3 and (v.step_started_at is null) = ($4 = 'start')
+  on conflict (job_id, step_index, action) do nothing
+  returning id, job_id, step, action, station, operator_id, idempotency_key, data, scanned_at, created_at),
+u as (
+  update jobs j set
+    step_index = j.step_index + (case when $4 = 'complete' then 1 else 0 end),
+    step_started_at = case when $4 = 'start' then $8::timestamptz end,
+    current_step = case when $4 = 'start' then j.current_step else j.routing -> (j.step_index + 1) ->> 'key' end,
+    completed_at = case when $4 = 'complete' and j.step_index + 1 >= jsonb_array_length(j.routing) then $8::timestamptz end,
+    updated_at = now()
+  from s where j.id = s.job_id
+  returning j.id)
+select v.*, s.id as moved_scan_id, s.created_at as moved_created_at from v left join s on true`,
 };
 
-type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null };
+/** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run). */
+const needsStepData = (step: StepKey, action: "start" | "complete", input: ScanInput) =>
+  step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || input.drawStagesDone !== undefined;
+
+type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: Date | null };
 
 // The event and the job's move in one statement (one transaction of its own, or the caller's),
 // only from the state the scan was checked against ($16, $17). From each state of a job exactly
@@ -91,14 +117,32 @@ async function attemptScan(props: { actor: Actor & { name: string }; input: Scan
     step = fromBarcode.step;
   }
   const key = input.idempotencyKey ?? null;
+  const scannedAt = stationTime(input.scannedAt, now);
+  const plainData: ScanData = input.note ? { note: input.note } : {};
 
-  const [job] = await prepared<ReadJob>(sequelize, READ_JOB, [code, key], transaction);
+  let job: ReadJob | undefined;
+  try {
+    [job] = await prepared<ReadJob>(sequelize, SCAN, [
+      code, key, step, input.action, input.station, actor.id, JSON.stringify(plainData), scannedAt, !needsStepData(step, input.action, input),
+    ], transaction);
+  } catch (err) {
+    if (isKeyTaken(err)) throw keyReused();
+    throw err;
+  }
   if (!job) throw new AppError(404, "UNKNOWN_CODE", `No job has the code ${code}. Check the traveler, or type the code printed under its barcode.`);
   const what = `job ${job.code}`;
+  if (job.moved_scan_id) {
+    const i = job.step_index;
+    const scan: ScanRow = {
+      id: job.moved_scan_id, job_id: job.id, step, action: input.action, station: input.station, operator_id: actor.id, operator_name: actor.name,
+      idempotency_key: key, data: plainData as Record<string, unknown>, scanned_at: scannedAt, created_at: job.moved_created_at!,
+    };
+    return { repeat: false, scan, job: moved(job, i, input, actor, scannedAt, null, null), code: job.code };
+  }
 
   if (key && job.key_job_id) {
     if (job.key_job_id === job.id && job.key_step === step && job.key_action === input.action) return repeatOf(job, job.routing.findIndex((s) => s.key === step), input, sequelize, transaction);
-    throw ConflictError("IDEMPOTENCY_KEY_REUSED", "This scan's idempotency key was already used for a different scan; the device must give each scan its own key.");
+    throw keyReused();
   }
 
   const started = job.step_started_at !== null;
@@ -109,8 +153,7 @@ async function attemptScan(props: { actor: Actor & { name: string }; input: Scan
 
   const i = verdict.stepIndex;
   const routingStep = job.routing[i];
-  const data: ScanData = {};
-  if (input.note) data.note = input.note;
+  const data: ScanData = { ...plainData };
   let heatId: string | null = null;
   let furnaceRunId: string | null = null;
 
@@ -151,7 +194,6 @@ async function attemptScan(props: { actor: Actor & { name: string }; input: Scan
     data.furnaceRunId = furnaceRunId;
   }
 
-  const scannedAt = stationTime(input.scannedAt, now);
   const complete = input.action === "complete";
   const nextIndex = complete ? i + 1 : i;
   const done = nextIndex >= job.routing.length;
@@ -163,26 +205,36 @@ async function attemptScan(props: { actor: Actor & { name: string }; input: Scan
       job.step_index, started,
     ], transaction);
   } catch (err) {
-    // a concurrent scan took this idempotency key for something else
-    const e = err as { constraint?: string; original?: { constraint?: string } };
-    if ((e.constraint ?? e.original?.constraint) === "scans_idempotency_key") {
-      throw ConflictError("IDEMPOTENCY_KEY_REUSED", "This scan's idempotency key was already used for a different scan; the device must give each scan its own key.");
-    }
+    if (isKeyTaken(err)) throw keyReused();
     throw err;
   }
   if (!rows.length) return null;
   const scan = { ...rows[0], operator_name: actor.name };
-  const moved: JobView = {
-    ...job,
-    step_index: nextIndex,
-    step_started_at: complete ? null : scannedAt,
-    completed_at: done ? scannedAt : null,
-    ...(heatId ? { heat_id: heatId, heat_number: data.heatNumber ?? null } : {}),
-    ...(furnaceRunId ? { furnace_run_id: furnaceRunId, furnace_run_number: job.lot_furnace_run_number } : {}),
-    scans: [...job.scans, { stepIndex: i, action: input.action, at: scannedAt.toISOString(), station: input.station, operatorId: actor.id, operatorName: actor.name }],
-  };
-  return { repeat: false, scan, job: moved, code: job.code };
+  return { repeat: false, scan, job: moved(job, i, input, actor, scannedAt, heatId ? { id: heatId, number: data.heatNumber ?? "" } : null, furnaceRunId), code: job.code };
 }
+
+/** The job as it stands after the move just recorded (what a second read would show). */
+function moved(job: ReadJob, i: number, input: ScanInput, actor: Actor & { name: string }, at: Date, heat: { id: string; number: string } | null, furnaceRunId: string | null): JobView {
+  const complete = input.action === "complete";
+  const next = complete ? i + 1 : i;
+  const { key_job_id: _k, key_step: _s, key_action: _a, moved_scan_id: _m, moved_created_at: _c, ...view } = job;
+  return {
+    ...view,
+    step_index: next,
+    step_started_at: complete ? null : at,
+    completed_at: next >= job.routing.length ? at : null,
+    ...(heat ? { heat_id: heat.id, heat_number: heat.number } : {}),
+    ...(furnaceRunId ? { furnace_run_id: furnaceRunId, furnace_run_number: job.lot_furnace_run_number } : {}),
+    scans: [...job.scans, { stepIndex: i, action: input.action, at: at.toISOString(), station: input.station, operatorId: actor.id, operatorName: actor.name }],
+  };
+}
+
+/** A concurrent scan took this idempotency key for something else. */
+const isKeyTaken = (err: unknown) => {
+  const e = err as { constraint?: string; original?: { constraint?: string } };
+  return (e.constraint ?? e.original?.constraint) === "scans_idempotency_key";
+};
+const keyReused = () => ConflictError("IDEMPOTENCY_KEY_REUSED", "This scan's idempotency key was already used for a different scan; the device must give each scan its own key.");
 
 /** The event already recorded for this step and action; a repeat that names other step data is refused. */
 async function repeatOf(job: ReadJob, stepIndex: number, input: ScanInput, sequelize: Sequelize, transaction?: Transaction): Promise<ScanOutcome> {
