@@ -110,6 +110,16 @@ describe("POST /api/scans: the sequence", { timeout: 30_000 }, () => {
       expect(new Set(answers.map((r) => r.body.event.id)).size).toBe(1);
       expect(await Scan.count({ where: { jobId: job.id } })).toBe(1);
     }
+    // the same at a step that needs no step data (its move is taken in the reading statement)
+    const heat = await buildHeat();
+    await scanThrough(op, jobs[0], "material", heat.heatNumber);
+    const key = `burst-${randomUUID()}`;
+    for (const extra of [{}, { idempotencyKey: key }]) {
+      const answers = await Promise.all(Array.from({ length: 20 }, () => scan(op, { code: jobs[0].code, step: "blank", action: "start", ...extra })));
+      expect(answers.map((r) => r.status).sort()).toEqual(extra.idempotencyKey ? Array(20).fill(200) : [...Array(19).fill(200), 201]);
+      expect(new Set(answers.map((r) => r.body.event.id)).size).toBe(1);
+    }
+    expect(await Scan.count({ where: { jobId: jobs[0].id, step: "blank" } })).toBe(1);
   });
 
   it("starts and completions of the same step racing from several stations leave one of each, and the job where its events say", async () => {
@@ -225,10 +235,12 @@ describe("POST /api/scans: step data", { timeout: 30_000 }, () => {
     let res = await scan(op, { code: jobs[0].code, step: "anneal", action: "complete" });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe("NO_FURNACE_RUN");
+    await scanThrough(op, jobs[1], "material", heat.heatNumber);
     await Lot.update({ holdReason: "Dropped in transit.", heldAt: new Date() }, { where: { id: lots[0].id } });
-    res = await scan(op, { code: jobs[1].code, step: "material", action: "start" });
+    res = await scan(op, { code: jobs[1].code, step: "blank", action: "start" });
     expect(res.status).toBe(409);
     expect(res.body.error).toMatchObject({ code: "LOT_ON_HOLD", message: expect.stringContaining("Dropped in transit.") });
+    expect(await Scan.count({ where: { jobId: jobs[1].id, step: "blank" } })).toBe(0);
     // what is recorded is still answered as a repeat
     expect((await scan(op, { code: jobs[0].code, step: "anneal", action: "start" })).status).toBe(200);
   });
