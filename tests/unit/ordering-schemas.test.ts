@@ -21,7 +21,7 @@ describe("the quote configuration", () => {
   });
 
   it("names the fields either engine refuses", () => {
-    const r = quoteCreateSchema.safeParse({ configuration: { ...quoteConfigurationExample, method: "bent", layers: [{ material: "ni80", thickness_mm: 30 }], requiredAttenuation_db: -3 }, quantity: 1.5 });
+    const r = quoteCreateSchema.safeParse({ configuration: { ...quoteConfigurationExample, method: "bent", layers: [{ material: "ni80", thickness_mm: 60 }], requiredAttenuation_db: -3 }, quantity: 1.5 });
     expect(paths(r)).toEqual(expect.arrayContaining(["configuration.method", "configuration.layers.0.thickness_mm", "configuration.requiredAttenuation_db", "quantity"]));
     // a sphere cannot be formed here
     expect(paths(quoteConfigurationSchema.safeParse({ ...quoteConfigurationExample, shape: "sphere", dimensions_mm: { diameter: 40 } }))).toContain("shape");
