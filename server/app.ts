@@ -23,6 +23,11 @@ import { instrumentReminderQueueDefinition, startInstrumentReminders } from "./j
 import { ShopSettings } from "./models";
 import { createStripe } from "./payments/stripe";
 import { designsRouter } from "./routes/designs";
+import { floorRouter } from "./routes/floor";
+import { furnaceRunsRouter } from "./routes/furnace-runs";
+import { heatsRouter } from "./routes/heats";
+import { jobsRouter } from "./routes/jobs";
+import { scansRouter } from "./routes/scans";
 import { instrumentsRouter } from "./routes/instruments";
 import { qualitySettingsRouter } from "./routes/quality-settings";
 import { samplingPublicRouter } from "./routes/sampling";
@@ -173,6 +178,11 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(quotesRouter(deps));
   api.use(ordersRouter(deps));
   api.use(settingsRouter(deps));
+  api.use(jobsRouter(deps));
+  api.use(scansRouter(deps));
+  api.use(heatsRouter(deps));
+  api.use(furnaceRunsRouter(deps));
+  api.use(floorRouter(deps));
   api.use(qualitySettingsRouter(deps));
   api.use(instrumentsRouter(deps));
   api.use(apiNotFound);

@@ -8,6 +8,9 @@ import type { BenchRow } from "./types";
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 const rows: BenchRow[] = [];
 const section = (title: string) => rows.push({ name: `— ${title}`, value: NaN, unit: "" });
+// BENCH_ONLY=shop-floor,ordering runs just those sections (names as in `wants` below)
+const only = process.env.BENCH_ONLY?.split(",").map((s) => s.trim()).filter(Boolean);
+const wants = (name: string) => !only || only.includes(name);
 
 // Sections contributed by the engines, loaded when present.
 for (const [file, fn, title] of [
@@ -15,6 +18,7 @@ for (const [file, fn, title] of [
   ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
   ["./advisor", "benchAdvisor", "design advisor (in-process)"],
 ] as const) {
+  if (!wants(file.slice(2))) continue;
   try {
     const mod = (await import(file)) as Record<string, () => BenchRow[]>;
     section(title);
@@ -24,24 +28,37 @@ for (const [file, fn, title] of [
   }
 }
 
-section("HTTP, 10 connections, RATE_LIMIT_PUBLIC=0");
-const cases: HttpCase[] = [{ name: "health", path: "/api/health", minRatio: 0.8 }];
-try {
-  const { httpCases } = (await import("./http-cases")) as { httpCases: HttpCase[] };
-  cases.push(...httpCases);
-} catch (err) {
-  if ((err as NodeJS.ErrnoException).code !== "ERR_MODULE_NOT_FOUND") throw err;
+if (wants("http")) {
+  section("HTTP, 10 connections, RATE_LIMIT_PUBLIC=0");
+  const cases: HttpCase[] = [{ name: "health", path: "/api/health", minRatio: 0.8 }];
+  try {
+    const { httpCases } = (await import("./http-cases")) as { httpCases: HttpCase[] };
+    cases.push(...httpCases);
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code !== "ERR_MODULE_NOT_FOUND") throw err;
+  }
+  rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 }
-rows.push(...(await benchHttp(cases, Number(process.env.BENCH_SECONDS ?? 3))));
 
-section("ordering, 10 connections");
-rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
+if (wants("ordering")) {
+  section("ordering, 10 connections");
+  rows.push(...(await (await import("./ordering")).benchOrdering(Number(process.env.BENCH_SECONDS ?? 3))));
+}
 
-section("design advisor route (signed in)");
-rows.push(...(await (await import("./advisor-route")).benchAdvisorRoute()));
+if (wants("shop-floor")) {
+  section("shop floor: 100 000 jobs, 1 000 000 scans");
+  rows.push(...(await (await import("./shop-floor")).benchShopFloor(Number(process.env.BENCH_SECONDS ?? 3))));
+}
 
-section("client");
-rows.push(...benchInitialJs(path.join(root, "dist")));
+if (wants("advisor")) {
+  section("design advisor route (signed in)");
+  rows.push(...(await (await import("./advisor-route")).benchAdvisorRoute()));
+}
+
+if (wants("client")) {
+  section("client");
+  rows.push(...benchInitialJs(path.join(root, "dist")));
+}
 
 const width = Math.max(...rows.map((r) => r.name.length)) + 2;
 for (const r of rows) {

@@ -6,7 +6,10 @@ import { defaultPriceList } from "../../shared/fabrication";
 import { priceListSchema } from "../../shared/schemas/pricing";
 import { Material, Organization, PriceListVersion, ShopSettings, User, initModels, recordEvent } from "../models";
 import { materialSeedRows } from "./material-rows";
+import { loadConfig } from "../config";
+import { createFileStore, type FileStore } from "../files/store";
 import { seedOrdering } from "./seed-ordering";
+import { seedShopFloor } from "./seed-shop-floor";
 import { seedInstruments } from "./seed-quality";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
@@ -32,7 +35,7 @@ export const DEMO_SHOP_DETAILS = {
   mailFrom: "Wrenfield Shield Works (demo) <orders@wrenfield.example>",
 };
 
-export async function seedDemo(sequelize: Sequelize, opts: { password: string; appUrl?: string }): Promise<{ created: string[] }> {
+export async function seedDemo(sequelize: Sequelize, opts: { password: string; appUrl?: string; store?: FileStore }): Promise<{ created: string[] }> {
   initModels(sequelize);
   const created: string[] = [];
   await sequelize.transaction(async (transaction) => {
@@ -75,6 +78,19 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
         customers,
         buyers: [byEmail("customer@demo.test"), byEmail("customer2@demo.test")],
         planner: byEmail("admin@demo.test"),
+        appUrl: opts.appUrl ?? "http://127.0.0.1:4100",
+        transaction,
+      })),
+    );
+    created.push(
+      ...(await seedShopFloor({
+        sequelize,
+        customers,
+        buyers: [byEmail("customer@demo.test"), byEmail("customer2@demo.test")],
+        operator: byEmail("operator@demo.test"),
+        planner: byEmail("admin@demo.test"),
+        // mill certificates and furnace charts are files, like uploads
+        store: opts.store ?? createFileStore(loadConfig().UPLOAD_DIR),
         appUrl: opts.appUrl ?? "http://127.0.0.1:4100",
         transaction,
       })),

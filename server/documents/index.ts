@@ -1,7 +1,13 @@
+import type { Sequelize } from "sequelize";
 import { documentNumber } from "../../shared/schemas/documents";
 import type { PaperSize } from "../../shared/schemas/shop-settings";
 import type { MailAttachmentRef, RenderedAttachment } from "../jobs/mailer";
-import { Invoice, Order, Organization, Payment, Quote, ShopSettings, User } from "../models";
+import { Invoice, Job, Order, Organization, Payment, Quote, ShopSettings, User } from "../models";
+import { partDescription } from "../presenters/jobs";
+import { loadJobView } from "../services/jobViews";
+import { loadLotView, lotHeats, lotJobs } from "../services/lotViews";
+import { renderLotLabels } from "./lot-label-pdf";
+import { renderTravelers, type TravelerData } from "./traveler-pdf";
 import { materialCatalog } from "../services/materialCatalog";
 import { renderInvoicePdf } from "./invoice-pdf";
 import { renderQuotePdf } from "./quote-pdf";
@@ -59,6 +65,63 @@ export async function invoiceDocument(invoice: Invoice): Promise<{ filename: str
     shop: shopDetails(shop),
   });
   return { filename: `invoice-${documentNumber("invoice", invoice.number)}.pdf`, content };
+}
+
+/** The travelers of these jobs, in the order given. */
+export async function travelerDocument(sequelize: Sequelize, jobIds: string[], paperSize: PaperSize): Promise<{ filename: string; content: Buffer }> {
+  const [views, patterns, shop, catalog] = await Promise.all([
+    Promise.all(jobIds.map((id) => loadJobView(sequelize, { id }))),
+    Job.findAll({ where: { id: jobIds }, attributes: ["id", "flatPattern"] }),
+    ShopSettings.current(),
+    materialCatalog(),
+  ]);
+  const jobs: TravelerData[] = views.map((v) => {
+    if (!v) throw new Error("a job of the traveler is missing");
+    return {
+      code: v.code,
+      orderNumber: documentNumber("order", v.order_number),
+      customer: v.organization_name,
+      lotNumber: v.lot_number,
+      description: partDescription(v),
+      materialName: catalog.byId.get(v.material_id)?.name ?? v.material_id,
+      thickness_mm: v.thickness_mm,
+      quantity: v.quantity,
+      blank: v.blank,
+      flatPattern: patterns.find((p) => p.id === v.id)!.flatPattern,
+      weldLength_mm: v.weld_length_mm,
+      dueDate: v.due_date,
+      heatNumber: v.heat_number,
+      weldedTo: v.assembly_code,
+      components: v.components.map((c) => c.code),
+      routing: v.routing,
+    };
+  });
+  const content = await renderTravelers({ jobs, paperSize, shop: shopDetails(shop), printedAt: new Date() });
+  return { filename: jobs.length === 1 ? `traveler-${jobs[0].code}.pdf` : `travelers-${jobs[0]?.code}.pdf`, content };
+}
+
+/** A sheet of labels for one lot. */
+export async function lotLabelDocument(sequelize: Sequelize, lotId: string, paperSize: PaperSize): Promise<{ filename: string; content: Buffer }> {
+  const [lot, jobs, heats, shop, catalog] = await Promise.all([loadLotView(sequelize, lotId), lotJobs(sequelize, lotId), lotHeats(sequelize, lotId), ShopSettings.current(), materialCatalog()]);
+  if (!lot) throw new Error(`no lot ${lotId}`);
+  const content = await renderLotLabels({
+    lot: {
+      number: lot.number,
+      orderNumber: documentNumber("order", lot.order_number),
+      customer: lot.organization_name,
+      materialName: catalog.byId.get(lot.material_id)?.name ?? lot.material_id,
+      pieces: lot.pieces,
+      mass_kg: lot.mass_kg,
+      dueDate: lot.due_date,
+      heats: heats.map((h) => h.heat_number),
+      furnaceRun: lot.furnace_run_number,
+      jobs: jobs.map((j) => j.code),
+    },
+    paperSize,
+    shop: shopDetails(shop),
+    printedAt: new Date(),
+  });
+  return { filename: `lot-label-${lot.number}.pdf`, content };
 }
 
 /** The mail worker's attachments: rendered when the mail goes out. */

@@ -59,8 +59,24 @@ export async function sniffUpload<K extends string>(file: string, filename: stri
   return { ok: true, kind, mime: kinds[kind].mime };
 }
 
+/** The kinds a use accepts, and how to name them to people. */
+export interface Accepted {
+  kinds: readonly DrawingKind[];
+  what: string;
+}
+/** Drawings: PDF, DXF, STEP or an image. */
+export const DRAWINGS: Accepted = { kinds: Object.keys(drawingKinds) as DrawingKind[], what: "a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing" };
+/** A scanned paper record (a mill certificate, a furnace chart): PDF or an image. */
+export const PAPER_RECORDS: Accepted = { kinds: ["pdf", "png", "jpg", "tif", "webp"], what: "a PDF or an image (PNG, JPEG, TIFF, WebP)" };
+
+/** The file's kind by its content, when it is one of the accepted drawing kinds and its name agrees. */
+export function sniffFile(file: string, filename: string, accepted: Accepted): Promise<SniffResult> {
+  const kinds: Partial<UploadKinds<DrawingKind>> = Object.fromEntries(accepted.kinds.map((k) => [k, drawingKinds[k]]));
+  return sniffUpload(file, filename, kinds as UploadKinds<DrawingKind>, accepted.what);
+}
+
 export function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
-  return sniffUpload(file, filename, drawingKinds, "a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing");
+  return sniffFile(file, filename, DRAWINGS);
 }
 
 function path_ext(filename: string): string {

@@ -1,3 +1,4 @@
+import type { AnnealWindow, Furnace } from "../../shared/shop-floor/anneal";
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize, type Transaction } from "sequelize";
 
 /** The shop's own details: what its documents print and who its mails come from (one row). */
@@ -10,6 +11,10 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
   declare taxId: string;
   declare mailFrom: string;
   declare quoteTerms: string;
+  /** the hydrogen furnaces and their heaviest loads */
+  declare furnaces: CreationOptional<Furnace[]>;
+  /** each alloy's final-anneal window */
+  declare annealWindows: CreationOptional<AnnealWindow[]>;
   /** the AQL each new order takes (a column of the sampling tables) */
   declare defaultAql: CreationOptional<number>;
   declare updatedById: string | null;
@@ -26,6 +31,8 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
         taxId: { type: DataTypes.STRING(60), allowNull: false, defaultValue: "" },
         mailFrom: { type: DataTypes.STRING(200), allowNull: false },
         quoteTerms: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
+        furnaces: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+        annealWindows: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         defaultAql: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.0 },
         updatedById: { type: DataTypes.UUID, allowNull: true },
         updatedAt: DataTypes.DATE,

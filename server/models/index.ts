@@ -3,16 +3,22 @@ import { AuthToken } from "./AuthToken";
 import { CheckoutSession } from "./CheckoutSession";
 import { Design } from "./Design";
 import { Event } from "./Event";
+import { FurnaceRun } from "./FurnaceRun";
 import { Instrument } from "./Instrument";
 import { InstrumentCalibration } from "./InstrumentCalibration";
 import { Invoice } from "./Invoice";
+import { Job } from "./Job";
+import { Lot } from "./Lot";
 import { Material } from "./Material";
+import { MaterialHeat } from "./MaterialHeat";
 import { Order } from "./Order";
 import { OrderFile } from "./OrderFile";
 import { Organization } from "./Organization";
 import { Payment } from "./Payment";
 import { PriceListVersion } from "./PriceListVersion";
 import { Quote } from "./Quote";
+import { Scan } from "./Scan";
+import { Shipment } from "./Shipment";
 import { ShopSettings } from "./ShopSettings";
 import { StoredFile } from "./StoredFile";
 import { User } from "./User";
@@ -22,6 +28,7 @@ export { AuthToken, Event, Organization, StoredFile, User };
 export { PriceListVersion };
 export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
+export { FurnaceRun, Job, Lot, MaterialHeat, Scan, Shipment };
 export { Instrument, InstrumentCalibration };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
@@ -50,6 +57,12 @@ export function initModels(sequelize: Sequelize): void {
   Order.belongsTo(Quote, { foreignKey: "quoteId", as: "quote" });
   OrderFile.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
 
+  // shop floor
+  for (const model of [MaterialHeat, FurnaceRun, Shipment, Lot, Job, Scan]) model.initModel(sequelize);
+  MaterialHeat.belongsTo(StoredFile, { foreignKey: "millCertificateFileId", as: "millCertificate" });
+  FurnaceRun.belongsTo(StoredFile, { foreignKey: "chartFileId", as: "chart" });
+  Lot.belongsTo(Order, { foreignKey: "orderId", as: "order" });
+  Job.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
   // quality: the instrument register
   for (const model of [Instrument, InstrumentCalibration]) model.initModel(sequelize);
   Instrument.belongsTo(StoredFile, { foreignKey: "currentCertificateId", as: "currentCertificate" });

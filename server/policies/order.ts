@@ -7,7 +7,7 @@ const own = (actor: Actor, order: Order) => isCustomer(actor) && isOwnOrganizati
  * The ordering organisation and the shop's staff see an order. Roles decide here (403); whether
  * the order's status allows the action is the service's answer (409), so a paid order says so.
  */
-export const orderPolicy = definePolicy<Order, "read" | "update" | "pay" | "cancel" | "upload" | "refund">({
+export const orderPolicy = definePolicy<Order, "read" | "update" | "pay" | "cancel" | "upload" | "refund" | "release" | "ship">({
   name: "order",
   see: (actor, order) => isStaff(actor) || isOwnOrganization(actor, order),
   can: {
@@ -17,6 +17,8 @@ export const orderPolicy = definePolicy<Order, "read" | "update" | "pay" | "canc
     cancel: (actor, order) => own(actor, order) || isAdmin(actor),
     upload: (actor, order) => own(actor, order) || isAdmin(actor),
     refund: (actor) => isAdmin(actor),
+    release: (actor) => isAdmin(actor),
+    ship: (actor) => isAdmin(actor),
   },
 });
 
@@ -27,4 +29,6 @@ export const orderStatusAllows = {
   cancel: (o: Order) => o.status === "awaiting_payment",
   upload: (o: Order) => o.status === "awaiting_payment" || o.status === "paid",
   refund: (o: Order) => ["paid", "released", "shipped"].includes(o.status),
+  release: (o: Order) => o.status === "paid",
+  ship: (o: Order) => o.status === "released",
 };

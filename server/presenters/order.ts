@@ -2,9 +2,9 @@ import { designSummary } from "../../shared/schemas/design";
 import { documentNumber, formatMoney } from "../../shared/schemas/documents";
 import {
   orderEventLabels, staffOnlyOrderEvents,
-  type OrderFileJson, type OrderJson, type OrderSummaryJson, type PaymentIssueJson, type PaymentJson, type TimelineEntry,
+  type LotRef, type OrderFileJson, type OrderJson, type OrderSummaryJson, type PaymentIssueJson, type PaymentJson, type ShipmentJson, type TimelineEntry,
 } from "../../shared/schemas/order";
-import { paymentTotals, type Event, type Invoice, type Order, type OrderFile, type Payment, type User, type WebhookEvent } from "../models";
+import { paymentTotals, type Event, type Invoice, type Lot, type Order, type OrderFile, type Payment, type Shipment, type User, type WebhookEvent } from "../models";
 import { orderPolicy, orderStatusAllows } from "../policies/order";
 import { abilities, isStaff, type Actor } from "../policies/utils";
 
@@ -71,6 +71,11 @@ function timelineDetail(e: Event): string | null {
       return `expected ${money(d.expected_cents, d.expectedCurrency) ?? "?"}, received ${money(d.received_cents, d.receivedCurrency) ?? `${String(d.received_cents)} ${String(d.receivedCurrency)}`}`;
     case "order.updated":
       return Array.isArray(d.fields) ? `changed: ${d.fields.join(", ")}` : null;
+    case "order.released":
+      return Array.isArray(d.lots) && d.lots.length ? `lot${d.lots.length === 1 ? "" : "s"} ${d.lots.join(", ")}` : null;
+    case "order.shipped":
+    case "order.part-shipped":
+      return typeof d.carrier === "string" ? `${d.carrier}, tracking ${String(d.trackingNumber)}${Array.isArray(d.lots) ? ` (lot${d.lots.length === 1 ? "" : "s"} ${d.lots.join(", ")})` : ""}` : null;
     default:
       return null;
   }
@@ -84,6 +89,18 @@ export interface OrderDetailParts {
   invoice: Invoice | null;
   /** webhook events that need the planner (staff only) */
   issues: WebhookEvent[];
+  /** the lots of a released order, each with its jobs' ids and codes */
+  lots: Array<{ lot: Lot; jobs: Array<{ id: string; code: string }> }>;
+  shipments: Shipment[];
+}
+
+export function presentLotRef(l: { lot: Lot; jobs: Array<{ id: string; code: string }> }): LotRef {
+  return { id: l.lot.id, number: l.lot.number, pieces: l.lot.pieces, materialId: l.lot.materialId, jobs: l.jobs };
+}
+
+export function presentShipment(s: Shipment, people: Map<string, User>): ShipmentJson {
+  const by = s.createdById ? people.get(s.createdById) : undefined;
+  return { id: s.id, carrier: s.carrier, trackingNumber: s.trackingNumber, shippedAt: s.shippedAt.toISOString(), parts: s.parts, createdBy: by ? { id: by.id, name: by.name } : null };
 }
 
 function presentIssue(w: WebhookEvent, order: Order): PaymentIssueJson {
@@ -124,7 +141,8 @@ export function presentOrder(order: Order, parts: OrderDetailParts, actor: Actor
     paid_cents: paid,
     refunded_cents: refunded,
     payments: parts.payments.map(presentPayment),
-    lots: [],
+    lots: parts.lots.map(presentLotRef),
+    shipments: parts.shipments.map((sh) => presentShipment(sh, parts.people)),
     files: parts.files.map((f) => presentOrderFile(order.id, f, parts.people)),
     timeline,
     invoice: parts.invoice
@@ -136,6 +154,8 @@ export function presentOrder(order: Order, parts: OrderDetailParts, actor: Actor
       cancel: can.cancel && orderStatusAllows.cancel(order),
       upload: can.upload && orderStatusAllows.upload(order),
       refund: can.refund && orderStatusAllows.refund(order) && paid - refunded > 0,
+      release: can.release && orderStatusAllows.release(order),
+      ship: can.ship && orderStatusAllows.ship(order),
     },
   };
   if (staff) json.paymentIssues = parts.issues.map((w) => presentIssue(w, order));

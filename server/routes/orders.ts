@@ -1,28 +1,28 @@
 import { Router, type Request, type Response } from "express";
-import multer from "multer";
-import { randomBytes } from "node:crypto";
-import { rm } from "node:fs/promises";
 import { Op, type Transaction, type WhereOptions } from "sequelize";
 import { parseDocumentNumber } from "../../shared/schemas/documents";
 import {
-  MAX_DRAWINGS_PER_ORDER, MAX_DRAWING_BYTES, orderCreateSchema, orderListQuerySchema, orderUpdateSchema, refundCreateSchema, type CheckoutJson,
+  MAX_DRAWINGS_PER_ORDER, MAX_DRAWING_BYTES, orderCreateSchema, orderListQuerySchema, orderUpdateSchema, refundCreateSchema, shipmentCreateSchema, type CheckoutJson,
 } from "../../shared/schemas/order";
 import { invoiceDocument } from "../documents";
 import type { AppDeps } from "../deps";
-import { AppError, NotFoundError, ValidationError } from "../errors";
+import { NotFoundError } from "../errors";
+import { discardUploads, receiveUploads } from "../files/upload";
 import { containsPattern, parseInput, recordId } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
-import { Event, Invoice, Order, OrderFile, Organization, Payment, Quote, StoredFile, User, WebhookEvent } from "../models";
+import { Event, Invoice, Job, Lot, Order, OrderFile, Organization, Payment, Quote, Shipment, StoredFile, User, WebhookEvent } from "../models";
 import { orderPolicy } from "../policies/order";
 import { quotePolicy } from "../policies/quote";
 import { authorize, isStaff, type Actor } from "../policies/utils";
 import { presentOrder, presentOrderFile, presentOrderSummary } from "../presenters/order";
 import { checkoutStarter } from "../services/checkoutStarter";
-import { drawingRemover, drawingUploader, type Upload } from "../services/drawingUploader";
+import { drawingRemover, drawingUploader } from "../services/drawingUploader";
 import { orderCanceller } from "../services/orderCanceller";
 import { orderPlacer } from "../services/orderPlacer";
 import { orderUpdater } from "../services/orderUpdater";
+import { orderReleaser } from "../services/orderReleaser";
 import { refundIssuer } from "../services/refundIssuer";
+import { shipmentRecorder } from "../services/shipmentRecorder";
 import { loadQuote } from "./quotes";
 
 const sortColumns = { createdAt: "createdAt", number: "number", total: "totalCents", status: "status", requestedDate: "requestedDate" } as const;
@@ -42,19 +42,24 @@ async function loadOrder(id: unknown, transaction?: Transaction): Promise<Order>
 
 /** Everything the order page shows: payments, drawings, the event trail, the invoice, the people named. */
 async function detailParts(order: Order, transaction?: Transaction) {
-  const [payments, files, events, invoice, issues] = await Promise.all([
+  const [payments, files, events, invoice, issues, lots, jobs, shipments] = await Promise.all([
     Payment.findAll({ where: { orderId: order.id }, order: [["createdAt", "ASC"], ["id", "ASC"]], transaction }),
     OrderFile.findAll({ where: { orderId: order.id }, include: [{ model: StoredFile, as: "file" }], order: [["createdAt", "ASC"]], transaction }),
     Event.findAll({ where: { subjectType: "order", subjectId: order.id }, order: [["createdAt", "ASC"], ["id", "ASC"]], transaction }),
     Invoice.findOne({ where: { orderId: order.id }, transaction }),
     WebhookEvent.findAll({ where: { orderId: order.id, outcome: ["amount_mismatch", "order_not_payable"] }, order: [["receivedAt", "ASC"]], transaction }),
+    Lot.findAll({ where: { orderId: order.id }, order: [["seq", "ASC"]], transaction }),
+    Job.findAll({ where: { orderId: order.id }, attributes: ["id", "code", "lotId"], order: [["seq", "ASC"]], transaction }),
+    Shipment.findAll({ where: { orderId: order.id }, order: [["shippedAt", "ASC"]], transaction }),
   ]);
   const ids = new Set<string>();
   for (const e of events) if (e.actorId) ids.add(e.actorId);
   for (const f of files) if (f.file?.uploadedById) ids.add(f.file.uploadedById);
   if (order.createdById) ids.add(order.createdById);
+  for (const s of shipments) if (s.createdById) ids.add(s.createdById);
   const people = new Map((await User.findAll({ where: { id: [...ids] }, attributes: ["id", "name"], transaction })).map((u) => [u.id, u]));
-  return { payments, files, events, invoice, issues, people };
+  const lotParts = lots.map((lot) => ({ lot, jobs: jobs.filter((j) => j.lotId === lot.id).map((j) => ({ id: j.id, code: j.code })) }));
+  return { payments, files, events, invoice, issues, people, lots: lotParts, shipments };
 }
 
 async function respondWithOrder(res: Response, order: Order, actor: Actor, status = 200) {
@@ -68,33 +73,8 @@ export function ordersRouter(deps: AppDeps): Router {
   const ip = (req: Request) => req.ip ?? null;
 
   // Multipart drawings land in the store's incoming folder under random names while they are checked.
-  const upload = multer({
-    storage: multer.diskStorage({
-      destination: store.incoming,
-      filename: (_req, _file, cb) => cb(null, randomBytes(16).toString("hex")),
-    }),
-    limits: { fileSize: MAX_DRAWING_BYTES, files: MAX_DRAWINGS_PER_ORDER, fields: 10, parts: MAX_DRAWINGS_PER_ORDER + 10 },
-    // keep any folder in the name, so it is refused rather than silently cut off
-    preservePath: true,
-    // browsers send UTF-8 names without saying so
-    defParamCharset: "utf8",
-  }).array("file", MAX_DRAWINGS_PER_ORDER);
-
   const receiveFiles = (req: Request, res: Response) =>
-    new Promise<Upload[]>((resolve, reject) => {
-      upload(req, res, (err: unknown) => {
-        const received = ((req.files as Express.Multer.File[] | undefined) ?? []).map((f) => ({ path: f.path, originalname: f.originalname, size: f.size }));
-        if (!err) return resolve(received);
-        void Promise.all(received.map((f) => rm(f.path, { force: true })));
-        if (err instanceof multer.MulterError) {
-          if (err.code === "LIMIT_FILE_SIZE") return reject(new AppError(413, "FILE_TOO_LARGE", "A drawing is larger than 20 MB.", { file: "is larger than 20 MB" }));
-          if (err.code === "LIMIT_FILE_COUNT") return reject(ValidationError({ file: `send at most ${MAX_DRAWINGS_PER_ORDER} drawings` }));
-          if (err.code === "LIMIT_UNEXPECTED_FILE") return reject(ValidationError({ file: 'send the drawings in the form field "file"' }));
-          return reject(ValidationError({ file: err.message }));
-        }
-        reject(err);
-      });
-    });
+    receiveUploads(req, res, { store, field: "file", maxBytes: MAX_DRAWING_BYTES, maxFiles: MAX_DRAWINGS_PER_ORDER, what: "a drawing" });
 
   router.post("/orders", requireUser, async (req, res) => {
     const actor = req.user!;
@@ -185,6 +165,29 @@ export function ordersRouter(deps: AppDeps): Router {
     await respondWithOrder(res, order, req.user!, 201);
   });
 
+  // Release to the shop floor: jobs and lots from the design, the "released" mail.
+  router.post("/orders/:id/release", requireUser, async (req, res) => {
+    const order = await sequelize.transaction(async (transaction) => {
+      const order = await loadOrder(req.params.id, transaction);
+      authorize(req.user!, "release", orderPolicy, order);
+      await orderReleaser({ actor: req.user!, order, quote: order.quote!, mailer, appUrl: config.appUrl, ip: ip(req), transaction });
+      return order;
+    });
+    await respondWithOrder(res, order, req.user!);
+  });
+
+  // A parcel leaves the shop with packed lots; the last one ships the order.
+  router.post("/orders/:id/shipments", requireUser, async (req, res) => {
+    const input = parseInput(shipmentCreateSchema, req.body);
+    const order = await sequelize.transaction(async (transaction) => {
+      const order = await loadOrder(req.params.id, transaction);
+      authorize(req.user!, "ship", orderPolicy, order);
+      await shipmentRecorder({ actor: req.user!, order, input, sequelize, mailer, appUrl: config.appUrl, ip: ip(req), transaction });
+      return order;
+    });
+    await respondWithOrder(res, order, req.user!, 201);
+  });
+
   router.post("/orders/:id/files", requireUser, async (req, res) => {
     const actor = req.user!;
     // who may attach is settled before the body is read, so a stranger's upload is never stored
@@ -199,7 +202,7 @@ export function ordersRouter(deps: AppDeps): Router {
       const people = new Map([[actor.id, actor as User]]);
       res.status(201).json({ files: stored.map((file) => presentOrderFile(before.id, Object.assign(new OrderFile(), { file }), people)) });
     } finally {
-      await Promise.all(uploads.map((u) => rm(u.path, { force: true })));
+      await discardUploads(uploads);
     }
   });
 

@@ -1,14 +1,16 @@
 import { Router } from "express";
 import { organizationSettingsSchema, shopSettingsSchema, type OrganizationSettingsJson, type ShopSettingsJson } from "../../shared/schemas/shop-settings";
 import type { AppDeps } from "../deps";
-import { NotFoundError } from "../errors";
+import { NotFoundError, ValidationError } from "../errors";
+import { materialCatalog } from "../services/materialCatalog";
 import { parseInput, recordId } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
 import { Organization, ShopSettings, recordEvent } from "../models";
 import { authorize, definePolicy, isAdmin, isOwnOrganization, isStaff, requireRole } from "../policies/utils";
 
 const presentShop = (s: ShopSettings): ShopSettingsJson => ({
-  name: s.name, address: s.address, email: s.email, phone: s.phone, taxId: s.taxId, mailFrom: s.mailFrom, quoteTerms: s.quoteTerms, updatedAt: s.updatedAt.toISOString(),
+  name: s.name, address: s.address, email: s.email, phone: s.phone, taxId: s.taxId, mailFrom: s.mailFrom, quoteTerms: s.quoteTerms,
+  furnaces: s.furnaces, annealWindows: s.annealWindows, updatedAt: s.updatedAt.toISOString(),
 });
 const presentOrgSettings = (o: Organization): OrganizationSettingsJson => ({ id: o.id, name: o.name, kind: o.kind, paperSize: o.paperSize });
 
@@ -30,13 +32,20 @@ export function settingsRouter({ sequelize }: AppDeps): Router {
 
   router.put("/shop-settings", requireUser, async (req, res) => {
     requireRole(req.user!, "admin");
-    const input = parseInput(shopSettingsSchema, req.body);
+    const parsed = parseInput(shopSettingsSchema, req.body);
+    // the furnaces and anneal windows are optional: omitted, they stay as they are
+    const input = Object.fromEntries(Object.entries(parsed).filter(([, v]) => v !== undefined)) as typeof parsed;
+    if (input.annealWindows) {
+      const catalog = await materialCatalog();
+      const unknown = input.annealWindows.findIndex((w) => !catalog.byId.has(w.materialId));
+      if (unknown >= 0) throw ValidationError({ [`annealWindows.${unknown}.materialId`]: `unknown alloy "${input.annealWindows[unknown].materialId}"` });
+    }
     const saved = await sequelize.transaction(async (transaction) => {
       const row = await ShopSettings.findByPk(1, { transaction, lock: transaction.LOCK.UPDATE });
       if (!row) throw NotFoundError("shop settings");
       const before = presentShop(row);
       await row.update({ ...input, updatedById: req.user!.id }, { transaction });
-      const changed = Object.keys(input).filter((k) => before[k as keyof typeof input] !== input[k as keyof typeof input]);
+      const changed = Object.keys(input).filter((k) => JSON.stringify(before[k as keyof typeof input]) !== JSON.stringify(input[k as keyof typeof input]));
       await recordEvent({ actor: req.user!, action: "shop-settings.updated", subject: { type: "shop_settings", id: "1" }, data: { fields: changed }, ip: req.ip ?? null }, transaction);
       return row;
     });

@@ -1,18 +1,14 @@
 import type { Transaction } from "sequelize";
 import { MAX_DRAWINGS_PER_ORDER, MAX_DRAWING_BYTES } from "../../shared/schemas/order";
-import { AppError, ConflictError, ValidationError } from "../errors";
-import { sha256File, type FileStore } from "../files/store";
-import { badFilename, sniffDrawing } from "../files/sniff";
+import { ConflictError, ValidationError } from "../errors";
+import type { FileStore } from "../files/store";
+import { DRAWINGS } from "../files/sniff";
+import { checkUpload, type Upload } from "../files/upload";
 import { OrderFile, StoredFile, recordEvent, type Order } from "../models";
 import { orderStatusAllows } from "../policies/order";
 import type { Actor } from "../policies/utils";
 
-export interface Upload {
-  /** where multer wrote it */
-  path: string;
-  originalname: string;
-  size: number;
-}
+export type { Upload };
 
 /**
  * Attaches drawings to an order (locked by the caller). Every file is checked before any is kept:
@@ -31,13 +27,7 @@ export async function drawingUploader(props: { actor: Actor; order: Order; uploa
   const checked: Array<Upload & { mime: string; sha256: string }> = [];
   for (const [i, u] of uploads.entries()) {
     const field = uploads.length === 1 ? "file" : `file.${i}`;
-    const nameProblem = badFilename(u.originalname);
-    if (nameProblem) throw ValidationError({ [field]: nameProblem });
-    if (u.size === 0) throw ValidationError({ [field]: `${u.originalname} is empty` });
-    if (u.size > MAX_DRAWING_BYTES) throw new AppError(413, "FILE_TOO_LARGE", `${u.originalname} is larger than 20 MB.`, { [field]: "is larger than 20 MB" });
-    const sniffed = await sniffDrawing(u.path, u.originalname);
-    if (!sniffed.ok) throw ValidationError({ [field]: `${u.originalname}: ${sniffed.reason}` }, "This file cannot be attached as a drawing.");
-    checked.push({ ...u, mime: sniffed.mime, sha256: await sha256File(u.path) });
+    checked.push({ ...u, ...(await checkUpload(u, { field, accepted: DRAWINGS, what: "a drawing", maxBytes: MAX_DRAWING_BYTES })) });
   }
 
   const kept: string[] = [];

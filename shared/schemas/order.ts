@@ -130,7 +130,36 @@ export interface PaymentIssueJson {
 export interface LotRef {
   id: string;
   number: string;
+  /** finished pieces in the lot */
+  pieces: number;
+  materialId: string;
   jobs: Array<{ id: string; code: string }>;
+}
+
+// --- shipping ---
+
+const shippingText = (what: string, max: number) =>
+  z
+    .string({ error: `Give the ${what}.` })
+    .trim()
+    .min(1, { error: `Give the ${what}.` })
+    .max(max, { error: `Keep the ${what} under ${max} characters.` });
+
+export const shipmentCreateSchema = z.object({
+  carrier: shippingText("carrier", 100),
+  trackingNumber: shippingText("tracking number", 100),
+  /** the lots in the parcel (default: every packed lot not yet shipped) */
+  lotIds: z.array(z.uuid({ error: "each entry must be a lot's id" }), { error: "lotIds must be a list of lot ids" }).min(1, { error: "Choose at least one lot." }).max(200).optional(),
+});
+export type ShipmentCreateInput = z.input<typeof shipmentCreateSchema>;
+
+export interface ShipmentJson {
+  id: string;
+  carrier: string;
+  trackingNumber: string;
+  shippedAt: string;
+  parts: Array<{ lotId: string; lotNumber: string; pieces: number }>;
+  createdBy: PersonRef | null;
 }
 
 export interface OrderSummaryJson {
@@ -162,12 +191,13 @@ export interface OrderJson extends OrderSummaryJson {
   refunded_cents: number;
   payments: PaymentJson[];
   lots: LotRef[];
+  shipments: ShipmentJson[];
   files: OrderFileJson[];
   timeline: TimelineEntry[];
   invoice: { number: string; issuedAt: string; url: string } | null;
   /** staff only: payment events that need the planner */
   paymentIssues?: PaymentIssueJson[];
-  abilities: { update: boolean; pay: boolean; cancel: boolean; upload: boolean; refund: boolean };
+  abilities: { update: boolean; pay: boolean; cancel: boolean; upload: boolean; refund: boolean; release: boolean; ship: boolean };
 }
 
 export interface CheckoutJson {
@@ -188,6 +218,7 @@ export const orderEventLabels: Record<string, string> = {
   "order.cancelled": "Order cancelled",
   "order.released": "Released to production",
   "order.shipped": "Shipped",
+  "order.part-shipped": "Part of the order shipped",
   "payment.mismatch": "Payment did not match the order",
   "payment.unexpected": "Payment for an order that was not awaiting one",
 };

@@ -1,5 +1,7 @@
 /** The shop's own details (documents, mail sender) and an organisation's document paper size. */
 import { z } from "zod";
+import type { AnnealWindow, Furnace } from "../shop-floor/anneal";
+import { annealWindowsSchema, furnacesSchema } from "./furnace-runs";
 
 const line = (what: string, max: number) => z.string({ error: `${what} must be text.` }).trim().max(max, { error: `Keep ${what.toLowerCase()} under ${max} characters.` });
 
@@ -19,9 +21,13 @@ export const shopSettingsSchema = z.object({
   /** the From of every mail the app sends */
   mailFrom: mailbox,
   quoteTerms: line("The terms", 4000),
+  /** the hydrogen furnaces and their heaviest loads (omitted: unchanged) */
+  furnaces: furnacesSchema.optional(),
+  /** each alloy's final-anneal window, which furnace runs are checked against (omitted: unchanged) */
+  annealWindows: annealWindowsSchema.optional(),
 });
 export type ShopSettingsInput = z.input<typeof shopSettingsSchema>;
-export type ShopSettingsJson = z.output<typeof shopSettingsSchema> & { updatedAt: string };
+export type ShopSettingsJson = Omit<z.output<typeof shopSettingsSchema>, "furnaces" | "annealWindows"> & { furnaces: Furnace[]; annealWindows: AnnealWindow[]; updatedAt: string };
 
 export const paperSizes = ["A4", "LETTER"] as const;
 export type PaperSize = (typeof paperSizes)[number];

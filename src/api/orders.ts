@@ -2,7 +2,7 @@ import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@ta
 import { DEFAULT_PAGE_SIZE, type Page } from "../../shared/schemas/list";
 import {
   orderStatuses, type CheckoutJson, type OrderCreateInput, type OrderFileJson, type OrderJson, type OrderListQuery, type OrderStatus, type OrderSummaryJson,
-  type OrderUpdateInput, type RefundCreateInput,
+  type OrderUpdateInput, type RefundCreateInput, type ShipmentCreateInput,
 } from "../../shared/schemas/order";
 import { api } from "./client";
 import { quoteKeys } from "./quotes";
@@ -106,3 +106,10 @@ export const useUploadDrawings = () =>
 
 export const useRemoveDrawing = () =>
   useOrderMutation(({ orderId, fileId }: { orderId: string; fileId: string }) => api.delete<void>(`/api/orders/${encodeURIComponent(orderId)}/files/${encodeURIComponent(fileId)}`), (v) => v.orderId);
+
+/** The planner releases a paid order to the floor: the answer lists its lots and their jobs' codes. */
+export const useReleaseOrder = () => useOrderMutation((id: string) => api.post<OrderJson>(`/api/orders/${encodeURIComponent(id)}/release`), (id) => id);
+
+/** A parcel with packed lots leaves the shop; the last one ships the order. */
+export const useRecordShipment = () =>
+  useOrderMutation(({ id, ...body }: ShipmentCreateInput & { id: string }) => api.post<OrderJson>(`/api/orders/${encodeURIComponent(id)}/shipments`, body), (v) => v.id);

@@ -1,14 +1,16 @@
 import { describe, expect, it } from "vitest";
 import { DEMO, seedDemo } from "../../server/db/seed";
-import { Design, Invoice, Order, Organization, Payment, Quote } from "../../server/models";
+import { Op } from "sequelize";
+import { Design, FurnaceRun, Invoice, Job, Lot, MaterialHeat, Order, Organization, Payment, Quote, Scan, Shipment } from "../../server/models";
+import { floorBoard } from "../../server/services/floorBoard";
 import { buildTestApp } from "../support/app";
 
 const app = buildTestApp();
 
 describe("the demo scenario's ordering data", () => {
-  it("saved designs, quotes (one expired), orders in every state for the first customer, a few for the second; a second run adds nothing", async () => {
+  it("saved designs, quotes (one expired), orders in every state for the first customer, a few for the second; a second run adds nothing", { timeout: 60_000 }, async () => {
     const { sequelize } = app.locals.deps;
-    await seedDemo(sequelize, { password: "fluxwright-demo" });
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
     const [first, second] = await Promise.all(DEMO.customers.map((name) => Organization.findOne({ where: { name } })));
     const count = async () => ({
       designs: await Design.count({ where: { organizationId: [first!.id, second!.id] } }),
@@ -16,7 +18,7 @@ describe("the demo scenario's ordering data", () => {
       orders: await Order.count({ where: { organizationId: [first!.id, second!.id] } }),
     });
     const before = await count();
-    await seedDemo(sequelize, { password: "fluxwright-demo" });
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
     expect(await count()).toEqual(before);
 
     const orders = await Order.findAll({ where: { organizationId: first!.id } });
@@ -32,7 +34,41 @@ describe("the demo scenario's ordering data", () => {
     const refunded = orders.find((o) => o.status === "refunded")!;
     expect(await Payment.sum("amountCents", { where: { orderId: refunded.id, kind: "refund" } })).toBe(refunded.totalCents);
     const theirs = await Order.findAll({ where: { organizationId: second!.id } });
-    expect(theirs.map((o) => o.status).sort()).toEqual(["awaiting_payment", "paid"]);
+    expect(theirs.map((o) => o.status).sort()).toEqual(["awaiting_payment", "paid", "released"]);
+  });
+});
+
+describe("the demo scenario's shop floor", () => {
+  it("heats with mill certificates, work at every step, a lot waiting for a furnace load, a run outside its window with its lot on hold, a shipped order's parcel; a second run adds nothing", { timeout: 60_000 }, async () => {
+    const { sequelize } = app.locals.deps;
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
+    const counts = async () => ({ heats: await MaterialHeat.count(), lots: await Lot.count(), jobs: await Job.count(), runs: await FurnaceRun.count(), scans: await Scan.count() });
+    const before = await counts();
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
+    expect(await counts()).toEqual(before);
+
+    const heats = await MaterialHeat.findAll({ where: { heatNumber: { [Op.like]: "CV-%" } } });
+    expect(heats).toHaveLength(4);
+    for (const h of heats) expect(h.millCertificateFileId).not.toBeNull();
+    const [first] = await Promise.all(DEMO.customers.map((name) => Organization.findOne({ where: { name } })));
+    const demoOrders = (await Order.findAll({ where: { organizationId: first!.id } })).map((o) => o.id);
+    const demoJobs = await Job.findAll({ where: { orderId: demoOrders } });
+    const atStep = new Set(demoJobs.filter((j) => j.currentStep).map((j) => j.currentStep));
+    expect([...atStep].sort()).toEqual(["anneal", "blank", "clean", "form", "material", "pack", "verify", "weld"]);
+    expect(demoJobs.some((j) => j.completedAt)).toBe(true);
+    const held = await Lot.findAll({ where: { orderId: demoOrders, holdReason: { [Op.ne]: null } } });
+    expect(held).toHaveLength(1);
+    expect(held[0].holdReason).toMatch(/outside the .* anneal window: Peak temperature 1192 °C is above/);
+    const runs = await FurnaceRun.findAll({ where: { id: held[0].furnaceRunId! } });
+    expect(runs[0].withinWindow).toBe(false);
+    expect(await FurnaceRun.count({ where: { chartFileId: { [Op.ne]: null } } })).toBeGreaterThanOrEqual(1);
+    const shipped = await Order.findOne({ where: { organizationId: first!.id, status: "shipped" } });
+    expect(await Shipment.count({ where: { orderId: shipped!.id } })).toBe(1);
+    // the board shows the scenario
+    const board = await floorBoard(sequelize);
+    expect(board.waitingForFurnace.length).toBeGreaterThanOrEqual(1);
+    expect(board.late.count).toBeGreaterThanOrEqual(1);
+    expect(board.holds.some((h) => h.lotId === held[0].id)).toBe(true);
   });
 });
 

@@ -72,3 +72,45 @@ describe("an organisation's paper size", () => {
     expect((await operator.agent.patch(url).set("X-CSRF-Token", operator.csrf).send({ paperSize: "A4" })).status).toBe(403);
   });
 });
+
+describe("furnaces and anneal windows in the shop settings", { timeout: 30_000 }, () => {
+  it("the planner adds a furnace and a window (other files read the first furnace and the 80 % Ni window: those stay, and this file runs its tests one after another); 400 naming the field; omitted, they stay as they are", async () => {
+    const shop = await buildOrganization({ kind: "shop" });
+    const planner = await signIn(app, await buildUser({ role: "admin", organizationId: shop.id }));
+    const put = (body: object) => planner.agent.put("/api/shop-settings").set("X-CSRF-Token", planner.csrf).send(body);
+    const current = (await planner.agent.get("/api/shop-settings")).body;
+    expect(current.furnaces.length).toBeGreaterThanOrEqual(1);
+    expect(current.annealWindows.map((w: { materialId: string }) => w.materialId)).toEqual(expect.arrayContaining(["ni80", "ni50"]));
+    const { updatedAt: _u, ...body } = current;
+    let res = await put({ ...body, furnaces: [...current.furnaces, { id: "bell 2", name: "", maxLoad_kg: 0 }] });
+    expect(res.status).toBe(400);
+    const n = current.furnaces.length;
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([`furnaces.${n}.id`, `furnaces.${n}.maxLoad_kg`, `furnaces.${n}.name`]);
+    res = await put({ ...body, annealWindows: [...current.annealWindows, { ...current.annealWindows[0], peak_c: { min: 1200, max: 1100 } }] });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty(`annealWindows.${current.annealWindows.length}.peak_c.max`);
+    res = await put({ ...body, annealWindows: [...current.annealWindows, { ...current.annealWindows[0], materialId: "unobtainium" }] });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toHaveProperty(`annealWindows.${current.annealWindows.length}.materialId`);
+
+    const steel = { materialId: "steel-lc", peak_c: { min: 780, max: 850 }, soak_min: { min: 60, max: 240 }, dewPointMax_c: -40, coolingRate_c_per_h: { min: 50, max: 300 }, source: "test window" };
+    const extra = { id: "BELL-9", name: "Small bell furnace (test)", maxLoad_kg: 40 };
+    try {
+      res = await put({ ...body, furnaces: [...current.furnaces.filter((f: { id: string }) => f.id !== extra.id), extra], annealWindows: [...current.annealWindows.filter((w: { materialId: string }) => w.materialId !== "steel-lc"), steel] });
+      expect(res.status).toBe(200);
+      expect(res.body.furnaces.at(-1)).toEqual(extra);
+      expect(res.body.annealWindows.at(-1)).toEqual(steel);
+      const floor = await (await signIn(app, await buildUser({ role: "operator", organizationId: shop.id }))).agent.get("/api/furnaces");
+      expect(floor.body.furnaces.map((f: { id: string }) => f.id)).toContain("BELL-9");
+      // a save without them leaves them alone
+      const { furnaces: _f, annealWindows: _w, ...details } = body;
+      res = await put({ ...details, phone: "+44 1632 960 999" });
+      expect(res.status).toBe(200);
+      expect(res.body.furnaces.at(-1)).toEqual(extra);
+    } finally {
+      await ShopSettings.update({ furnaces: current.furnaces, annealWindows: current.annealWindows, phone: current.phone }, { where: { id: 1 } });
+    }
+    const stranger = await signIn(app, await buildUser({ role: "customer" }));
+    expect((await stranger.agent.put("/api/shop-settings").set("X-CSRF-Token", stranger.csrf).send(body)).status).toBe(403);
+  });
+});

@@ -55,7 +55,7 @@ export function useBrowser(): BrowserHarness {
   beforeAll(async () => {
     const config = testConfig({ RATE_LIMIT_PUBLIC: "0" });
     h.app = createApp({ config, serveClient: true });
-    await seedDemo(h.app.locals.deps.sequelize, { password: DEMO_PASSWORD });
+    await seedDemo(h.app.locals.deps.sequelize, { password: DEMO_PASSWORD, store: h.app.locals.deps.files });
     server = h.app.listen(0, "127.0.0.1");
     await new Promise((r) => server.once("listening", r));
     h.baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;

@@ -37,7 +37,7 @@ export async function buildQuote(app: FluxwrightApp, user: User, opts: { quantit
   );
 }
 
-export async function buildOrder(app: FluxwrightApp, user: User, opts: { quantity?: number; purchaseOrder?: string } = {}): Promise<Order> {
+export async function buildOrder(app: FluxwrightApp, user: User, opts: { quantity?: number; purchaseOrder?: string; configuration?: Record<string, unknown> } = {}): Promise<Order> {
   const quote = await buildQuote(app, user, opts);
   const { mailer, config, sequelize } = app.locals.deps;
   return sequelize.transaction((transaction) => orderPlacer({ actor: user, quote, input: { purchaseOrder: opts.purchaseOrder }, mailer, appUrl: config.appUrl, ip: null, transaction }));
@@ -55,7 +55,7 @@ export function signed(event: unknown, secret = WEBHOOK_SECRET): { payload: stri
 }
 
 /** An order paid as the webhook would pay it (without the stand-in): a session row and a signed-event's effect. */
-export async function buildPaidOrder(app: FluxwrightApp, user: User, opts: { quantity?: number } = {}): Promise<Order> {
+export async function buildPaidOrder(app: FluxwrightApp, user: User, opts: { quantity?: number; configuration?: Record<string, unknown> } = {}): Promise<Order> {
   const order = await buildOrder(app, user, opts);
   const sessionId = `cs_test_${order.id.slice(0, 8)}${Date.now()}`;
   await CheckoutSession.create({ id: sessionId, orderId: order.id, amountCents: order.totalCents, currency: order.currency, url: "http://127.0.0.1/x", idempotencyKey: `test-${sessionId}`, createdById: user.id });
@@ -103,13 +103,16 @@ export async function waitFor<T>(probe: () => Promise<T | undefined | null | fal
   }
 }
 
-/** The text of a PDF, read by poppler's pdftotext (an extractor independent of the renderer). */
-export function pdfText(pdf: Buffer): string {
+/**
+ * The text of a PDF, read by poppler's pdftotext (an extractor independent of the renderer): laid
+ * out as on the page, or "raw" in the order it was written (sentences wrapped in a column stay whole).
+ */
+export function pdfText(pdf: Buffer, mode: "layout" | "raw" = "layout"): string {
   const dir = mkdtempSync(path.join(tmpdir(), "fw-pdf-"));
   try {
     const file = path.join(dir, "doc.pdf");
     writeFileSync(file, pdf);
-    return execFileSync("pdftotext", ["-layout", file, "-"], { encoding: "utf8" });
+    return execFileSync("pdftotext", [`-${mode}`, file, "-"], { encoding: "utf8" });
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }

@@ -1,0 +1,52 @@
+// Reads the barcodes printed in a PDF with a decoder that is not the one that drew them: poppler's
+// pdfimages takes the embedded images out, ZXing (a general-purpose reader) decodes each.
+import { BarcodeFormat, BinaryBitmap, DecodeHintType, HybridBinarizer, MultiFormatReader, RGBLuminanceSource } from "@zxing/library";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { PNG } from "pngjs";
+
+function decode(png: PNG): string | null {
+  // a white quiet zone round the symbol, as the paper gives it
+  const pad = 24;
+  const w = png.width + 2 * pad;
+  const h = png.height + 2 * pad;
+  const lum = new Uint8ClampedArray(w * h).fill(255);
+  for (let y = 0; y < png.height; y++) {
+    for (let x = 0; x < png.width; x++) {
+      const i = (y * png.width + x) * 4;
+      const a = png.data[i + 3] / 255;
+      const grey = (png.data[i] + png.data[i + 1] + png.data[i + 2]) / 3;
+      lum[(y + pad) * w + x + pad] = Math.round(grey * a + 255 * (1 - a));
+    }
+  }
+  const reader = new MultiFormatReader();
+  const hints = new Map<DecodeHintType, unknown>([
+    [DecodeHintType.POSSIBLE_FORMATS, [BarcodeFormat.CODE_128, BarcodeFormat.DATA_MATRIX]],
+    [DecodeHintType.TRY_HARDER, true],
+  ]);
+  try {
+    return reader.decode(new BinaryBitmap(new HybridBinarizer(new RGBLuminanceSource(lum, w, h))), hints).getText();
+  } catch {
+    return null;
+  }
+}
+
+/** The text of every barcode image embedded in the PDF, in page order. */
+export function pdfBarcodes(pdf: Buffer): string[] {
+  const dir = mkdtempSync(path.join(tmpdir(), "fw-barcodes-"));
+  try {
+    const file = path.join(dir, "doc.pdf");
+    writeFileSync(file, pdf);
+    execFileSync("pdfimages", ["-png", file, path.join(dir, "img")]);
+    const out: string[] = [];
+    for (const name of readdirSync(dir).filter((f) => f.endsWith(".png")).sort()) {
+      const text = decode(PNG.sync.read(readFileSync(path.join(dir, name))));
+      if (text !== null) out.push(text);
+    }
+    return out;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
