@@ -155,7 +155,7 @@ export function FrontTable({ answer, href }: { answer: DesignAdviceJson; href: D
         }}
       />
       {rows.length > FIRST_ROWS && (
-        <Button variant="secondary" onClick={() => setAll((a) => !a)} aria-controls="front-table">
+        <Button variant="secondary" onClick={() => setAll((a) => !a)}>
           {all ? `Show the first ${FIRST_ROWS}` : `Show all ${rows.length} designs on the front`}
         </Button>
       )}

@@ -163,7 +163,7 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
         )}
 
         {answer && answerFor ? (
-          <div className={`space-y-6 transition-opacity ${answerIsCurrent ? "" : "opacity-70"}`} data-testid="advice" data-current={answerIsCurrent}>
+          <div className={`space-y-6 ${answerIsCurrent ? "" : "border-l-4 border-dashed border-flux-300 pl-3"}`} data-testid="advice" data-current={answerIsCurrent}>
             <p className="text-flux-800" data-testid="answer-for">
               {answerIsCurrent ? "Designs for " : "Still showing the answer for "}
               <span className="font-semibold">{requirementText(answerFor.request, answerFor.units)}</span>
@@ -174,22 +174,10 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
             </StatusNote>
             {answer.recommended !== null ? <Recommendation answer={answer} href={designHref} /> : <NothingMeets answer={answer} href={designHref} />}
             {answer.candidates.length > 0 && (
-              <>
-                <Panel title="Price against attenuation">
-                  <AdviceChart candidates={answer.candidates} recommended={answer.recommended} required_db={answerFor.request.requiredAttenuation_db} evaluated={answer.evaluated} currency={answer.currency} />
-                </Panel>
-                <Panel title="The front: cheapest for what they give">
-                  <p className="mb-3 text-meta text-flux-600">
-                    A design is on the front when no other is at once cheaper, lighter and stronger. Order the table by any figure; open any design in the design check to see it drawn, save it or have it quoted.
-                  </p>
-                  <FrontTable answer={answer} href={designHref} />
-                </Panel>
-                <Disclosure title="Every design on the chart, as a table" digest={`${answer.candidates.length} designs, cheapest first`} testId="all-candidates">
-                  <AllCandidatesTable answer={answer} href={designHref} />
-                </Disclosure>
-              </>
+              <Panel title="Price against attenuation">
+                <AdviceChart candidates={answer.candidates} recommended={answer.recommended} required_db={answerFor.request.requiredAttenuation_db} evaluated={answer.evaluated} currency={answer.currency} />
+              </Panel>
             )}
-            <SearchFacts answer={answer} />
           </div>
         ) : (
           !searching &&
@@ -205,6 +193,26 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
           )
         )}
       </div>
+
+      {/* the tables take the page's whole width: a laptop shows the front as a table, not as cards */}
+      {answer && answerFor && (
+        <div className={`min-w-0 space-y-6 lg:col-span-2 ${answerIsCurrent ? "" : "border-l-4 border-dashed border-flux-300 pl-3"}`} data-testid="advice-tables">
+          {answer.candidates.length > 0 && (
+            <>
+              <Panel title="The front: cheapest for what they give">
+                <p className="mb-3 text-meta text-flux-600">
+                  A design is on the front when no other is at once cheaper, lighter and stronger. Order the table by any figure; open any design in the design check to see it drawn, save it or have it quoted.
+                </p>
+                <FrontTable answer={answer} href={designHref} />
+              </Panel>
+              <Disclosure title="Every design on the chart, as a table" digest={`${answer.candidates.length} designs, cheapest first`} testId="all-candidates">
+                <AllCandidatesTable answer={answer} href={designHref} />
+              </Disclosure>
+            </>
+          )}
+          <SearchFacts answer={answer} />
+        </div>
+      )}
     </div>
   );
 }
