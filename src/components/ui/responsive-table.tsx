@@ -112,7 +112,7 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
                   {sort && c.sortable ? (
                     <button
                       type="button"
-                      className={`inline-flex min-h-touch items-center gap-1 rounded hover:text-flux-900 hover:underline ${c.align === "end" ? "flex-row-reverse text-right" : "text-left"} ${sort.key === c.key ? "text-flux-900" : ""}`}
+                      className={`inline-flex min-h-touch items-center gap-1 rounded hover:text-flux-900 hover:underline ${c.align === "end" ? "justify-end text-right" : "text-left"} ${sort.key === c.key ? "text-flux-900" : ""}`}
                       onClick={() => sort.onSort(c.key)}
                     >
                       {c.header}

@@ -94,7 +94,7 @@ export function NothingMeets({ answer, href }: { answer: DesignAdviceJson; href:
 const sortLabels: Record<FrontSortKey, string> = { price: "Unit price", attenuation: "As built", low: "Likely low end", mass: "Mass", outside: "Largest outside", layers: "Layers" };
 
 function columns(href: DesignHref, recommended: number | null, withFront: boolean): Column<Row>[] {
-  const mono = "font-mono tabular";
+  const mono = "whitespace-nowrap font-mono tabular";
   const cols: Column<Row>[] = [
     {
       key: "design",
@@ -143,7 +143,7 @@ export function FrontTable({ answer, href }: { answer: DesignAdviceJson; href: D
         rowKey={(r) => String(r.index)}
         testId="front-table"
         rowTestId="front-row"
-        cardsBelow={720}
+        cardsBelow={860}
         rowClassName={(r) => (r.index === answer.recommended ? "bg-ok-50" : "")}
         sort={{
           key: sort.key,
@@ -173,7 +173,7 @@ export function AllCandidatesTable({ answer, href }: { answer: DesignAdviceJson;
       rows={rows}
       rowKey={(r) => String(r.index)}
       testId="all-candidates-table"
-      cardsBelow={720}
+      cardsBelow={860}
     />
   );
 }

@@ -13,6 +13,7 @@ import { formatInUnit } from "../../components/ui/unit-input";
 import { useLastGood } from "../../lib/use-last-good";
 import { useSearchState } from "../../lib/use-search-state";
 import { AdviceChart } from "./advice-chart";
+import { ElapsedClock } from "./elapsed-clock";
 import { AllCandidatesTable, FrontTable, NothingMeets, Recommendation, SearchFacts, type DesignHref } from "./advice-parts";
 import { dbText, moneyText } from "./advice-words";
 import { RequirementForm } from "./requirement-form";
@@ -26,21 +27,6 @@ function requirementText(r: DesignAdviceRequest, units: AdviceUnits): string {
   const direction = r.shape === "box" ? "across" : r.field.orientation === "axial" ? "along" : "across";
   const f = r.field.frequency_hz === 0 ? "a static field" : formatInUnit("frequency", r.field.frequency_hz, units.frequency);
   return `${dbText(r.requiredAttenuation_db)} at ${f}, ${formatInUnit("flux", r.field.amplitude_uT, units.field)} ${direction} ${space}, ${r.quantity} off`;
-}
-
-/** Seconds since `running` turned on, ticking while it stays on: an honest clock for a search that gives no progress of its own. */
-function useElapsed(running: boolean): number {
-  const [started, setStarted] = useState<number | null>(null);
-  const [now, setNow] = useState(0);
-  useEffect(() => {
-    if (!running) return;
-    const start = performance.now();
-    setStarted(start);
-    setNow(start);
-    const timer = window.setInterval(() => setNow(performance.now()), 100);
-    return () => window.clearInterval(timer);
-  }, [running]);
-  return running && started !== null ? (now - started) / 1000 : 0;
 }
 
 /** What a screen reader is told when an answer arrives. */
@@ -79,7 +65,6 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
   if (fresh && request && asked && answerFor?.request !== request) setAnswerFor({ request, units: asked.units });
 
   const searching = search.isFetching;
-  const elapsed = useElapsed(searching);
   const refused = search.isError && blamesInputs(search.error) ? search.error : null;
   const inputProblem = refused !== null;
   const serverProblem = search.isError && !inputProblem;
@@ -125,7 +110,6 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
           materialsError={materials.isError}
           onSearch={runSearch}
           searching={searching}
-          elapsed={elapsed}
           onStop={stop}
         />
       </Panel>
@@ -135,13 +119,11 @@ export function FindADesign({ designHref }: { designHref: DesignHref }) {
           {searching ? "Searching designs…" : answerIsCurrent && answer ? answerWords(answer) : stopped ? "Search stopped." : ""}
         </p>
         {searching && (
-          <div className="flex flex-wrap items-center gap-3 rounded-lg border border-flux-200 bg-flux-50 px-4 py-3 text-flux-900" data-testid="search-progress">
-            <Spinner className="size-5" />
-            <span>
-              Searching the designs the shop can make: every alloy, gauge, layer count, gap and method within your limits, each predicted and priced.
-              <span className="ml-2 font-mono tabular" aria-hidden="true">
-                {elapsed.toFixed(1)} s
-              </span>
+          <div className="flex items-start gap-3 rounded-lg border border-flux-200 bg-flux-50 px-4 py-3 text-flux-900" data-testid="search-progress">
+            <Spinner className="mt-0.5 size-5 shrink-0" />
+            <span className="min-w-0">
+              Searching the designs the shop can make: every alloy, gauge, layer count, gap and method within your limits, each predicted and priced.{" "}
+              <ElapsedClock className="font-mono tabular" />
             </span>
           </div>
         )}

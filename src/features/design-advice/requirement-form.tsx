@@ -3,6 +3,7 @@ import { MAX_ADVICE_LAYERS } from "../../../shared/schemas/design-advice";
 import { fieldUnitLabels, frequencyUnitLabels, lengthUnitLabels } from "../../../shared/units";
 import type { MaterialSummary } from "../../api/materials";
 import { Button } from "../../components/ui/button";
+import { ElapsedClock } from "./elapsed-clock";
 import { Disclosure } from "../../components/ui/disclosure";
 import { SelectField } from "../../components/ui/field";
 import { fixedUnitScale, plainScale, quantityScale, UnitInput } from "../../components/ui/unit-input";
@@ -20,8 +21,6 @@ interface Props {
   onSearch: () => void;
   /** a search is running: the button says so and a stop is offered */
   searching: boolean;
-  /** seconds the running search has taken so far */
-  elapsed: number;
   onStop: () => void;
 }
 
@@ -40,7 +39,7 @@ export const hasLimits = (d: RequirementDraft) =>
 const LIMIT_FIELDS = ["maxLayers", "materials", "methods", "maxMass_kg", "constraints", "outside."];
 
 /** What the customer needs (the space, the field, the attenuation) and what bounds the answer. */
-export function RequirementForm({ draft, onChange, errors, materials, materialsError, onSearch, searching, elapsed, onStop }: Props) {
+export function RequirementForm({ draft, onChange, errors, materials, materialsError, onSearch, searching, onStop }: Props) {
   const set = <K extends keyof RequirementDraft>(key: K, value: RequirementDraft[K]) => onChange({ ...draft, [key]: value });
   const lengthScale = quantityScale("length", draft.units.length);
   const keys = dimensionsOf[draft.shape];
@@ -194,6 +193,11 @@ export function RequirementForm({ draft, onChange, errors, materials, materialsE
         </div>
       </Disclosure>
 
+      {Object.keys(errors).length > 0 && (
+        <p role="alert" className="font-semibold text-danger-700" data-testid="form-problem">
+          {errors.constraints ?? "Not searched: see the messages beside the fields."}
+        </p>
+      )}
       <div className="flex flex-wrap items-center gap-3">
         <Button type="submit" pending={searching} pendingLabel="Searching…">
           Search designs
@@ -203,9 +207,7 @@ export function RequirementForm({ draft, onChange, errors, materials, materialsE
             <Button variant="secondary" onClick={onStop}>
               Stop the search
             </Button>
-            <span className="font-mono tabular text-meta text-flux-700" data-testid="search-elapsed">
-              {elapsed.toFixed(1)} s
-            </span>
+            <ElapsedClock className="font-mono tabular text-meta text-flux-700" />
           </>
         )}
       </div>
