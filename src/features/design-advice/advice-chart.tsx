@@ -62,6 +62,10 @@ export function AdviceChart({ candidates, recommended, required_db, evaluated, c
   const lowest = Math.min(required_db, ...candidates.map((c) => c.attenuation_db));
   const highest = Math.max(...candidates.map((c) => c.attenuation_db));
   const order: Group[] = ["other", "front", "recommended"];
+  // whole tens at an even step, so the last tick is not squeezed against the one before
+  const from = Math.floor((lowest - 5) / 10) * 10;
+  const step = Math.ceil((highest + 5 - from) / 60) * 10;
+  const ticks = Array.from({ length: Math.ceil((highest + 5 - from) / step) + 1 }, (_, i) => from + i * step);
   return (
     <figure className="space-y-3" data-testid="advice-chart-figure">
       <ul className="flex flex-wrap gap-x-5 gap-y-1 text-meta text-flux-800" aria-label="Marks on the chart">
@@ -92,7 +96,8 @@ export function AdviceChart({ candidates, recommended, required_db, evaluated, c
               dataKey="attenuation_db"
               type="number"
               name="Attenuation"
-              domain={[Math.floor((lowest - 5) / 10) * 10, Math.ceil((highest + 5) / 10) * 10]}
+              domain={[from, ticks[ticks.length - 1]]}
+              ticks={ticks}
               tick={tick}
               tickFormatter={(v: number) => `${v}`}
               label={{ value: "Attenuation as built (dB)", position: "insideBottom", offset: -14, fill: "#384859", fontSize: FONT_PX }}
