@@ -8,6 +8,7 @@ import { PriceListVersion, User } from "../models";
 import { requireRole } from "../policies/utils";
 import { presentShopRates, presentShopRatesVersion } from "../presenters/shop-rates";
 import { invalidateBuildModel } from "../services/buildModelCatalog";
+import { invalidateShopRatesCatalog } from "../services/shopRatesCatalog";
 import { currentShopRates, shopRatesUpdater, type ShopRatesChange } from "../services/shopRatesUpdater";
 
 const historyQuery = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) });
@@ -39,6 +40,7 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
     );
     // predictions read the construction settings in process: the new version from now on
     if (part === "construction") invalidateBuildModel();
+    invalidateShopRatesCatalog();
     await version.reload(withCreator);
     res.json(presentShopRates(version));
   };

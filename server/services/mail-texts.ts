@@ -177,3 +177,19 @@ export function calibrationDueMail(p: { to: string; instrumentName: string; seri
     ].join("\n"),
   };
 }
+
+/** To the owner of an address someone tried to register again: no account is made, nobody is signed in. */
+export function registrationAttemptMail(p: { to: string; appUrl: string }) {
+  return {
+    to: p.to,
+    subject: "Someone tried to create a Fluxwright account with your address",
+    text: [
+      `Hello,`,
+      ``,
+      `Someone tried to create a new Fluxwright account with this address, which already has one. No new account was made and nothing about your account changed.`,
+      ``,
+      `If it was you, sign in at ${p.appUrl}/sign-in, or choose a new password at ${p.appUrl}/forgot-password.`,
+      `If it was not you, you can ignore this mail.`,
+    ].join("\n"),
+  };
+}

@@ -225,3 +225,64 @@ export const defaultPriceList: PriceList = {
 export function formingLimitsFor(materialId: string, priceList: PriceList = defaultPriceList) {
   return priceList.formingLimits.find((f) => f.materialId === materialId);
 }
+
+/** A line of the price as a customer reads it: what, how much of it, and its amount (the shop's margin included). */
+export interface CustomerPriceLine {
+  key: string;
+  label: string;
+  quantity: number;
+  total_cents: number;
+}
+
+/**
+ * The price build-up without the shop's margin and internal rates: each line's amount carries
+ * its share of the margin (spread in proportion, whole cents, largest remainders first, so the
+ * lines still add up to the subtotal), and no line shows a rate. Discount, rounding, the price
+ * per piece and the total are the same figures the shop sees.
+ */
+export interface CustomerPriceBuildUp {
+  lines: CustomerPriceLine[];
+  subtotal_cents: number;
+  discountPercent: number;
+  discount_cents: number;
+  rounding_cents: number;
+  setupPerUnit_cents: number;
+  unitPrice_cents: number;
+  quantity: number;
+  total_cents: number;
+  currency: string;
+}
+
+/** Whole cents that add up to `target`, in proportion to `weights` (largest remainder). */
+export function spreadCents(weights: readonly number[], target: number): number[] {
+  const sum = weights.reduce((s, w) => s + w, 0);
+  if (sum === 0) return weights.map(() => 0);
+  const exact = weights.map((w) => (w * target) / sum);
+  const floors = exact.map(Math.floor);
+  let left = target - floors.reduce((s, x) => s + x, 0);
+  const order = exact.map((x, i) => ({ i, frac: x - Math.floor(x) })).sort((a, b) => b.frac - a.frac || a.i - b.i);
+  for (const { i } of order) {
+    if (left <= 0) break;
+    floors[i] += 1;
+    left -= 1;
+  }
+  return floors.map((x) => x || 0);
+}
+
+export function customerPrice(p: PriceBuildUp): CustomerPriceBuildUp {
+  const withMargin = p.subtotal_cents + p.margin_cents;
+  const totals = p.subtotal_cents === 0 ? p.lines.map((l) => l.total_cents) : spreadCents(p.lines.map((l) => l.total_cents), withMargin);
+  return {
+    lines: p.lines.map((l, i) => ({ key: l.key, label: l.label, quantity: l.quantity, total_cents: totals[i] })),
+    subtotal_cents: withMargin,
+    discountPercent: p.discountPercent,
+    discount_cents: p.discount_cents,
+    rounding_cents: p.rounding_cents,
+    // the setup share a piece carries, margin included
+    setupPerUnit_cents: p.subtotal_cents === 0 ? p.setupPerUnit_cents : roundCents((p.setupPerUnit_cents * withMargin) / p.subtotal_cents),
+    unitPrice_cents: p.unitPrice_cents,
+    quantity: p.quantity,
+    total_cents: p.total_cents,
+    currency: p.currency,
+  };
+}

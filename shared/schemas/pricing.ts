@@ -3,6 +3,7 @@
  * validated before they reach a quote. Money is integer cents in the list's ISO 4217 currency.
  */
 import { z } from "zod";
+import "./messages"; // the one error map: every field named in plain words
 import { DEFAULT_CONSTRUCTION_SETTINGS, type ConstructionSettings } from "../physics/build-model";
 import { NEAR_SATURATION_FRACTION } from "../physics/saturation";
 
@@ -122,7 +123,7 @@ export const DEFAULT_DESIGN_SEARCH_SETTINGS: DesignSearchSettings = {
 };
 
 export const priceListSchema = z.object({
-  currency: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code, e.g. EUR"),
+  currency: z.string().regex(/^[A-Z]{3}$/, { error: "Currency must be a three-letter ISO 4217 code, e.g. EUR." }),
   materials: z.array(materialPriceSchema).min(1),
   /** credit offcuts at the material's scrap price */
   scrapCredit: z.boolean(),

@@ -34,7 +34,7 @@ describe("an advisor's candidate → the design check's form", () => {
         const checked = checkDraft(draftFromConfiguration(c));
         if (!checked.request) throw new Error(JSON.stringify(checked.errors));
         expect(checked.request).toEqual(predictionRequestSchema.parse(c));
-        const price = toPriceEstimateBody(checked.request, methodOf(checked.request), "10");
+        const price = toPriceEstimateBody(checked.request, methodOf(checked.request), 10);
         if (!price.ok) throw new Error(price.message);
         // every fabrication field the candidate was priced with, the same
         const { configuration } = price.body;

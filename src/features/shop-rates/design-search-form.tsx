@@ -1,13 +1,12 @@
 import { useState, type FormEvent } from "react";
+import type { DesignSearchUpdate } from "../../../shared/schemas/shop-rates";
 import { DEFAULT_DESIGN_SEARCH_SETTINGS } from "../../../shared/schemas/pricing";
 import { designSearchUpdateSchema } from "../../../shared/schemas/shop-rates";
 import { ApiError } from "../../api/client";
 import { useSaveShopRates, type ShopRates } from "../../api/fabrication";
 import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
-import { Panel } from "../../components/ui/panel";
-import { StatusNote } from "../../components/ui/status-note";
-import { ConfirmSave } from "./form-bits";
+import { SaveBar, type SaveMessage } from "./form-bits";
 
 const listText = (xs: readonly number[]) => xs.join(", ");
 
@@ -26,36 +25,43 @@ export function DesignSearchForm({ current }: { current: ShopRates }) {
   const [gauges, setGauges] = useState(listText(current.designSearch.gauges_mm));
   const [margin, setMargin] = useState(String(current.designSearch.minSaturationMargin));
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [message, setMessage] = useState<{ tone: "ok" | "danger"; text: string } | null>(null);
+  const [message, setMessage] = useState<SaveMessage>(null);
+  const [asking, setAsking] = useState<DesignSearchUpdate | null>(null);
 
-  const submit = async (e?: FormEvent) => {
-    e?.preventDefault();
+  // checked first; then the second step names the version
+  const ask = (e: FormEvent) => {
+    e.preventDefault();
     setMessage(null);
     const parsed = designSearchUpdateSchema.safeParse({
       designSearch: { gapSteps_mm: parseMillimetreList(gaps), gauges_mm: parseMillimetreList(gauges), minSaturationMargin: margin.trim() === "" ? NaN : Number(margin) },
     });
-    const input = (path: string) => (path.startsWith("designSearch.gapSteps_mm") ? "gaps" : path.startsWith("designSearch.gauges_mm") ? "gauges" : "margin");
-    const fieldsOf = (pairs: [string, string][]) => Object.fromEntries(pairs.map(([path, text]) => [input(path), text]));
     if (!parsed.success) {
       setErrors(fieldsOf(parsed.error.issues.map((i) => [i.path.join("."), i.message])));
+      setMessage({ tone: "danger", text: "Some values need attention; see the messages beside them." });
       return;
     }
     setErrors({});
+    setAsking(parsed.data);
+  };
+  const fieldsOf = (pairs: [string, string][]) =>
+    Object.fromEntries(pairs.map(([path, text]) => [path.startsWith("designSearch.gapSteps_mm") ? "gaps" : path.startsWith("designSearch.gauges_mm") ? "gauges" : "margin", text]));
+  const confirm = async () => {
+    if (!asking) return;
     try {
-      const saved = await save.mutateAsync({ part: "design-search", body: parsed.data });
+      const saved = await save.mutateAsync({ part: "design-search", body: asking });
       setGaps(listText(saved.designSearch.gapSteps_mm));
       setGauges(listText(saved.designSearch.gauges_mm));
       setMessage({ tone: "ok", text: `Saved as version ${saved.version}. The design advisor searches with it from now on.` });
     } catch (error) {
       if (error instanceof ApiError && Object.keys(error.fields).length) setErrors(fieldsOf(Object.entries(error.fields)));
       setMessage({ tone: "danger", text: error instanceof ApiError ? error.message : "Something went wrong. Try again." });
+    } finally {
+      setAsking(null);
     }
   };
 
   return (
-    <Panel title="Design advisor">
-      <form onSubmit={(e) => void submit(e)} noValidate className="space-y-4" aria-label="Design advisor settings">
-        {message && <StatusNote tone={message.tone} word={message.tone === "ok" ? "Saved" : "Not saved"}>{message.text}</StatusNote>}
+      <form onSubmit={ask} noValidate className="space-y-4" aria-label="Design advisor settings">
         <p className="text-meta text-flux-600">
           The advisor tries every nest of the alloys in stock at these gauges (unless the customer names other stocked ones), with these gaps between neighbouring layers, and
           recommends only designs whose every wall stays at or below the given share of its saturation. Each gauge and gap step adds to the designs a search tries.
@@ -74,8 +80,15 @@ export function DesignSearchForm({ current }: { current: ShopRates }) {
             error={errors.margin}
           />
         </div>
-        <div className="flex flex-wrap items-start gap-3">
-          <ConfirmSave what="advisor settings" nextVersion={current.version + 1} pending={save.isPending} onConfirm={() => void submit()} />
+        <SaveBar
+          what="advisor settings"
+          nextVersion={current.version + 1}
+          asking={asking !== null}
+          pending={save.isPending}
+          message={message}
+          onConfirm={() => void confirm()}
+          onCancel={() => setAsking(null)}
+          extra={
           <Button
             variant="quiet"
             onClick={() => {
@@ -86,8 +99,8 @@ export function DesignSearchForm({ current }: { current: ShopRates }) {
           >
             Back to the defaults
           </Button>
-        </div>
+          }
+        />
       </form>
-    </Panel>
   );
 }
