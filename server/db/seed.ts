@@ -8,6 +8,9 @@ import { Material, Organization, PriceListVersion, ShopSettings, User, initModel
 import { materialSeedRows } from "./material-rows";
 import { seedOrdering } from "./seed-ordering";
 import { seedInstruments } from "./seed-quality";
+import { seedMeasuredLots } from "./seed-calibration";
+import { calibrationRefitter } from "../services/calibrationRefitter";
+import { createMeasuredLotsReader } from "../services/measuredLotsReader";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -35,6 +38,7 @@ export const DEMO_SHOP_DETAILS = {
 export async function seedDemo(sequelize: Sequelize, opts: { password: string; appUrl?: string }): Promise<{ created: string[] }> {
   initModels(sequelize);
   const created: string[] = [];
+  const measuredLots: string[] = [];
   await sequelize.transaction(async (transaction) => {
     // one seed at a time (two test runners or a start and a test may seed the same database)
     await sequelize.query(`select pg_advisory_xact_lock(hashtext('fluxwright-demo-seed'))`, { transaction });
@@ -80,7 +84,11 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
       })),
     );
     created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
+    measuredLots.push(...(await seedMeasuredLots({ sequelize, transaction })));
   });
+  created.push(...measuredLots);
+  // the demo's first calibration, so the page shows fits on a fresh start
+  if (measuredLots.length) await calibrationRefitter({ sequelize, readLots: createMeasuredLotsReader(sequelize), actor: null, reason: "the demo scenario", force: true });
   return { created };
 }
 

@@ -240,7 +240,10 @@ export function* fitClassSteps(key: ClassKey, lots: MeasuredLot[], shop: FitShop
       },
       clamp(t) {
         let k = 0;
-        if (free[0]) (t[k] = Math.min(xMax, Math.max(xMin, t[k])), k++);
+        if (free[0]) {
+          t[k] = Math.min(xMax, Math.max(xMin, t[k]));
+          k++;
+        }
         if (free[1]) t[k] = Math.min(CEILING_RANGE_DB[1], Math.max(CEILING_RANGE_DB[0], t[k]));
       },
     };
@@ -278,7 +281,10 @@ export function* fitClassSteps(key: ClassKey, lots: MeasuredLot[], shop: FitShop
         for (const { k, r } of at) condF[k] = responseDb(r, c);
         let cost = 0;
         for (let i = 0; i < subset.length; i++) cost += w[i] * Math.abs(measured[subset[i]] - condF[rowCond[subset[i]]]);
-        if (cost < bestCost) (bestCost = cost), (best = [x, c]);
+        if (cost < bestCost) {
+          bestCost = cost;
+          best = [x, c];
+        }
       }
     }
     return best;

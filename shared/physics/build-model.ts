@@ -81,6 +81,8 @@ export interface CalibrationNote {
   source: "shop" | "library";
   lots: number;
   fittedAt: string;
+  /** the stored fit (a quote's prediction names the one it used) */
+  fitId?: string;
 }
 
 /**

@@ -26,13 +26,19 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     { label: "Design check", to: paths.designCheck.href() },
     { label: "Flat blank", to: paths.flatBlank.href() },
   ];
+  // calibrated predictions and control charts: the quality inspectors' and the planner's
+  const quality: NavItem[] = [
+    { label: "Calibration", to: paths.calibration.href() },
+    { label: "Control charts", to: paths.controlCharts.href() },
+  ];
   switch (user.role) {
     case "customer":
       return [home, ...tools, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
-    case "operator":
+      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...quality, ...tools, account];
     case "qa":
+      return [home, ...quality, ...tools, account];
+    case "operator":
       return [home, ...tools, account];
   }
 }
