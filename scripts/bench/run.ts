@@ -14,6 +14,7 @@ for (const [file, fn, title] of [
   ["./physics", "benchPhysics", "prediction engine (in-process)"],
   ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
   ["./advisor", "benchAdvisor", "design advisor (in-process)"],
+  ["./calibration", "benchCalibration", "calibration from measured lots (in-process)"],
 ] as const) {
   try {
     const mod = (await import(file)) as Record<string, () => BenchRow[]>;

@@ -9,8 +9,6 @@ import { materialSeedRows } from "./material-rows";
 import { seedOrdering } from "./seed-ordering";
 import { seedInstruments } from "./seed-quality";
 import { seedMeasuredLots } from "./seed-calibration";
-import { calibrationRefitter } from "../services/calibrationRefitter";
-import { createMeasuredLotsReader } from "../services/measuredLotsReader";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -87,8 +85,6 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
     measuredLots.push(...(await seedMeasuredLots({ sequelize, transaction })));
   });
   created.push(...measuredLots);
-  // the demo's first calibration, so the page shows fits on a fresh start
-  if (measuredLots.length) await calibrationRefitter({ sequelize, readLots: createMeasuredLotsReader(sequelize), actor: null, reason: "the demo scenario", force: true });
   return { created };
 }
 

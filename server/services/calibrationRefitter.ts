@@ -84,3 +84,13 @@ export async function calibrationRefitter(props: {
   invalidateBuildModel();
   return { runId, calibration };
 }
+
+/** Fits once when there are measured lots and no refit yet (a fresh start); false when there was nothing to do. */
+export async function firstCalibration(props: { sequelize: Sequelize; readLots: MeasuredLotsReader }): Promise<boolean> {
+  const [row] = await props.sequelize.query<{ runs: number; lots: number }>(
+    "select (select count(*) from calibration_runs)::int as runs, (select count(*) from calibration_measured_parts)::int as lots",
+    { type: QueryTypes.SELECT },
+  );
+  if (row.runs > 0 || row.lots === 0) return false;
+  return (await calibrationRefitter({ ...props, actor: null, reason: "the first fit of the measured lots", force: true })) !== null;
+}

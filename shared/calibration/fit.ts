@@ -218,7 +218,21 @@ export function* fitClassSteps(key: ClassKey, lots: MeasuredLot[], shop: FitShop
   function leastSquares(subset: Int32Array, weights: Float64Array, mode: FitMode, theta0: [number, number]): { theta: [number, number]; converged: boolean } {
     const free = FREE[mode];
     const dims = (free[0] ? 1 : 0) + (free[1] ? 1 : 0);
-    const conds = [...new Set(Array.from(subset, (i) => rowCond[i]))];
+    // every part of one condition has the same prediction, so Σ w (y − f)² over its parts is
+    // W·(ȳ − f)² plus a constant (W = Σ w, ȳ the weighted mean): the solver works on conditions
+    const at = new Map<number, number>();
+    const sumW: number[] = [], sumWy: number[] = [], conds: number[] = [];
+    subset.forEach((row, i) => {
+      const k = rowCond[row];
+      let j = at.get(k);
+      if (j === undefined) {
+        at.set(k, (j = conds.push(k) - 1));
+        sumW.push(0);
+        sumWy.push(0);
+      }
+      sumW[j] += weights[i];
+      sumWy[j] += weights[i] * measured[row];
+    });
     const full = (t: Float64Array): [number, number] => {
       let k = 0;
       return [free[0] ? t[k++] : theta0[0], free[1] ? t[k++] : theta0[1]];
@@ -228,13 +242,13 @@ export function* fitClassSteps(key: ClassKey, lots: MeasuredLot[], shop: FitShop
       evaluate(t, f, J) {
         const [x, c] = full(t);
         evaluateConds(x, c, !!J, conds);
-        for (let i = 0; i < subset.length; i++) {
-          const k = rowCond[subset[i]];
-          f[i] = condF[k];
+        for (let j = 0; j < conds.length; j++) {
+          const k = conds[j];
+          f[j] = condF[k];
           if (J) {
             let d = 0;
-            if (free[0]) J[i * dims + d++] = condDx[k];
-            if (free[1]) J[i * dims + d++] = condDc[k];
+            if (free[0]) J[j * dims + d++] = condDx[k];
+            if (free[1]) J[j * dims + d++] = condDc[k];
           }
         }
       },
@@ -248,8 +262,9 @@ export function* fitClassSteps(key: ClassKey, lots: MeasuredLot[], shop: FitShop
       },
     };
     const start = Float64Array.from([...(free[0] ? [theta0[0]] : []), ...(free[1] ? [theta0[1]] : [])]);
-    const y = Float64Array.from(subset, (i) => measured[i]);
-    const r = levenbergMarquardt(model, y, weights, start);
+    const W = Float64Array.from(sumW);
+    const y = Float64Array.from(sumWy, (v, j) => (W[j] > 0 ? v / W[j] : 0));
+    const r = levenbergMarquardt(model, y, W, start);
     return { theta: full(r.theta), converged: r.converged };
   }
 

@@ -75,7 +75,7 @@ export function Component() {
                 {when(data.run.fittedAt)}, on {data.run.lots} measured lots ({data.run.reason}{data.run.fittedBy ? `, by ${data.run.fittedBy.name}` : ""}); {data.run.classesInUse} of {data.fits.length} classes in use. A new fit runs by itself when a certificate is issued.
               </p>
             ) : (
-              <p className="text-body">No fit yet: the first runs when measured lots are recorded.</p>
+              <p className="text-body" data-testid="latest-run">No fit yet: the first runs when measured lots are recorded, or now with "Fit again now".</p>
             )}
             {data.refitPending && <StatusNote tone="info" live="polite" className="mt-3">A new fit is queued or running; this page updates when it is done.</StatusNote>}
             {refit.error && <StatusNote tone="danger" live="assertive" className="mt-3">{refit.error.message}</StatusNote>}

@@ -1,8 +1,10 @@
 import { randomUUID } from "node:crypto";
 import type { Page } from "playwright-core";
 import { QueryTypes } from "sequelize";
-import { describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it } from "vitest";
 import { queueCalibrationRefit } from "../../server/jobs/calibration-refit";
+import { firstCalibration } from "../../server/services/calibrationRefitter";
+import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
 // The quality inspector's calibration and control charts on the demo scenario's measured lots; a
@@ -11,6 +13,12 @@ import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 // same class shows the calibrated figure and its band.
 
 const h = useBrowser();
+
+// the first fit of the demo's lots, as the seed command makes it on a fresh start
+beforeAll(async () => {
+  const { sequelize } = h.app.locals.deps;
+  await firstCalibration({ sequelize, readLots: createMeasuredLotsReader(sequelize) });
+}, 120_000);
 
 async function signInAs(page: Page, email: string) {
   await page.goto(`${h.baseUrl}/sign-in`);
