@@ -128,7 +128,8 @@ interface RobustResult {
   converged: boolean;
 }
 
-const fmt = (x: number, digits = 2) => x.toFixed(digits);
+/** Fixed digits, and never a "-0.0". */
+const fmt = (x: number, digits = 2) => (Math.abs(x) < 0.5 * 10 ** -digits ? 0 : x).toFixed(digits);
 
 /** The alloy's library value of the parameter fitted: its μ table's low-field value. */
 export function libraryMuOf(materials: MaterialLookup, id: string): number | null {

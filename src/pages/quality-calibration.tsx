@@ -106,7 +106,7 @@ export function Component() {
               columns={[
                 { key: "when", header: "When", primary: true, className: "whitespace-nowrap", cell: (r) => when(r.fittedAt) },
                 { key: "why", header: "Why", cell: (r) => r.reason },
-                { key: "who", header: "Who", cell: (r) => r.fittedBy?.name ?? "scheduled" },
+                { key: "who", header: "Who", cell: (r) => r.fittedBy?.name ?? "automatic" },
                 { key: "lots", header: "Lots", align: "end", className: "font-mono", cell: (r) => r.lots },
                 { key: "use", header: "Classes in use", align: "end", className: "font-mono", cell: (r) => r.classesInUse },
               ]}

@@ -3,7 +3,7 @@ import type { Page } from "playwright-core";
 import { QueryTypes } from "sequelize";
 import { beforeAll, describe, expect, it } from "vitest";
 import { queueCalibrationRefit } from "../../server/jobs/calibration-refit";
-import { firstCalibration } from "../../server/services/calibrationRefitter";
+import { calibrationRefitter } from "../../server/services/calibrationRefitter";
 import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
@@ -14,10 +14,11 @@ import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
 const h = useBrowser();
 
-// the first fit of the demo's lots, as the seed command makes it on a fresh start
+// a fit of every measured lot there is (the demo's, and any other test's), as the seed command
+// makes the first one on a fresh start
 beforeAll(async () => {
   const { sequelize } = h.app.locals.deps;
-  await firstCalibration({ sequelize, readLots: createMeasuredLotsReader(sequelize) });
+  await calibrationRefitter({ sequelize, readLots: createMeasuredLotsReader(sequelize), actor: null, reason: "the demo scenario", force: true });
 }, 120_000);
 
 async function signInAs(page: Page, email: string) {

@@ -22,7 +22,7 @@ function SeriesChart({ chart, which, name }: { chart: IndividualsChart; which: "
         <LineChart data={data} margin={{ top: 10, right: 48, bottom: 22, left: 0 }}>
           <CartesianGrid stroke="#dfdfda" strokeDasharray="2 4" />
           <XAxis dataKey="i" type="number" domain={[1, Math.max(2, data.length + (which === "individuals" ? 0 : 1))]} tick={tick} stroke="#7690a8" allowDecimals={false} label={{ value: "Lot, in the order decided", position: "insideBottom", offset: -14, fill: "#384859", fontSize: FONT }} />
-          <YAxis domain={[lo, hi]} tick={tick} width={52} stroke="#7690a8" label={{ value: which === "individuals" ? "Margin (dB)" : "Moving range (dB)", angle: -90, position: "insideLeft", offset: 10, fill: "#384859", fontSize: FONT }} />
+          <YAxis domain={[lo, hi]} tick={tick} width={52} stroke="#7690a8" label={{ value: which === "individuals" ? "Margin (dB)" : "Range (dB)", angle: -90, position: "insideLeft", offset: 10, fill: "#384859", fontSize: FONT }} />
           {limits && (
             <>
               <ReferenceLine y={limits.center_db} stroke="#1f7a45" label={{ value: "CL", position: "right", fill: "#1f7a45", fontSize: FONT }} />
