@@ -5,13 +5,14 @@ import { libraryMuOf } from "../../shared/calibration/fit";
 import { materialLibrary } from "../../shared/physics/materials";
 
 // The demo scenario's measured lots (invented: made by the engine from chosen parameters plus
-// noise, never real data): two alloys and routes with enough lots for the calibration to beat
+// noise, never real data): two alloys and routes (rolled and seam-welded 80 % nickel-iron cans,
+// bent 50 % nickel-iron boxes) with enough lots for the calibration to beat
 // the library in cross-validation and for the control charts to give a capability. One lot of
 // 80 % nickel-iron was re-annealed badly (it reads far low and was rejected) and one part was
 // knocked after the anneal, so the page has outliers to show.
 
 const can = (diameter: number, length: number, t: number, layers = 1): MeasuredDesign => ({
-  shape: "cylinder", ends: "closed", method: "drawn", dimensions_mm: { diameter, length },
+  shape: "cylinder", ends: "closed", method: "rolled", dimensions_mm: { diameter, length },
   layers: Array.from({ length: layers }, (_, i) => ({ material: "ni80", thickness_mm: t, ...(i < layers - 1 ? { gap_mm: 6 } : {}) })),
 });
 const box = (width: number, depth: number, height: number, t: number): MeasuredDesign => ({
@@ -24,7 +25,7 @@ const requiredUnder = (predicted_db: number) => Math.max(10, Math.floor((predict
 export function demoMeasuredLots(now = new Date()): MeasuredLot[] {
   const start = new Date(now.getTime() - 80 * 86_400_000).toISOString();
   const ni80 = syntheticLots({
-    key: { material: "ni80", method: "drawn", construction: "closed-can" },
+    key: { material: "ni80", method: "rolled", construction: "closed-can" },
     mu_effective: 0.55 * libraryMuOf(materialLibrary, "ni80")!, ceiling_db: 62,
     designs: [can(40, 80, 1), can(80, 150, 0.5), can(30, 60, 1, 2)], frequencies_hz: [10, 60, 400],
     lots: 26, partsPerLot: 5, partNoise_db: 0.6, lotNoise_db: 1.1, requiredAttenuation_db: (_d, p) => requiredUnder(p),

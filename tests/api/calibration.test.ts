@@ -7,7 +7,14 @@ import { materialLibrary } from "../../shared/physics/materials";
 import { calibrationRefitter } from "../../server/services/calibrationRefitter";
 import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
-import { CAN_DESIGNS, NI80_DRAWN } from "../support/calibration-lots";
+import type { MeasuredDesign } from "../../shared/calibration";
+
+// A class no other test predicts (rolled low-carbon steel cans), so this file's lots move no other figure.
+const STEEL_ROLLED = { material: "steel-lc", method: "rolled", construction: "closed-can" } as const;
+const STEEL_CANS: MeasuredDesign[] = [
+  { shape: "cylinder", ends: "closed", method: "rolled", dimensions_mm: { diameter: 40, length: 80 }, layers: [{ material: "steel-lc", thickness_mm: 1.5 }] },
+  { shape: "cylinder", ends: "closed", method: "rolled", dimensions_mm: { diameter: 80, length: 150 }, layers: [{ material: "steel-lc", thickness_mm: 2 }] },
+];
 
 const app = buildTestApp();
 const { sequelize } = app.locals.deps;
@@ -33,7 +40,7 @@ async function storeLots(lots: MeasuredLot[]) {
 }
 
 const lots = syntheticLots({
-  key: NI80_DRAWN, mu_effective: 0.6 * libraryMuOf(materialLibrary, "ni80")!, ceiling_db: 60, designs: CAN_DESIGNS, frequencies_hz: [10, 60, 400],
+  key: STEEL_ROLLED, mu_effective: 0.6 * libraryMuOf(materialLibrary, "steel-lc")!, ceiling_db: 60, designs: STEEL_CANS, frequencies_hz: [10, 60, 400],
   lots: 12, partsPerLot: 4, partNoise_db: 0.5, lotNoise_db: 1, requiredAttenuation_db: 30, seed: 21, numberPrefix: `T${randomUUID().slice(0, 6)}`,
 });
 
@@ -51,14 +58,14 @@ describe("GET /api/calibration", () => {
     for (const who of [(await staff("qa")).agent, (await staff("admin")).agent]) {
       const res = await who.get("/api/calibration");
       expect(res.status).toBe(200);
-      const fit = res.body.find((f: { material: string; method: string; construction: string }) => f.material === "ni80" && f.method === "drawn" && f.construction === "closed-can");
+      const fit = res.body.find((f: { material: string; method: string; construction: string }) => f.material === "steel-lc" && f.method === "rolled" && f.construction === "closed-can");
       expect(Object.keys(fit).sort()).toEqual(["ceiling_db", "construction", "error_db", "fittedAt", "id", "inUse", "lots", "material", "method", "mu_effective"].sort());
       expect(fit.inUse).toBe(true);
       expect(fit.lots).toBeGreaterThanOrEqual(12);
       expect(fit.error_db.crossValidated).toBeLessThan(fit.error_db.library);
       expect(Number.isNaN(Date.parse(fit.fittedAt))).toBe(false);
     }
-    const prediction = await request(app).post("/api/predictions").send({ ...CAN_DESIGNS[0], field: { frequency_hz: 60, amplitude_uT: 50, orientation: "transverse" } });
+    const prediction = await request(app).post("/api/predictions").send({ ...STEEL_CANS[0], field: { frequency_hz: 60, amplitude_uT: 50, orientation: "transverse" } });
     expect(prediction.status).toBe(200);
     expect(prediction.body.calibration).toMatchObject({ source: "shop" });
     expect(prediction.body.calibration.lots).toBeGreaterThanOrEqual(12);
@@ -69,13 +76,14 @@ describe("GET /api/calibration", () => {
 
     const overview = await (await staff("qa")).agent.get("/api/calibration/overview");
     expect(overview.status).toBe(200);
-    const full = overview.body.fits.find((f: { material: string; method: string }) => f.material === "ni80" && f.method === "drawn");
+    const full = overview.body.fits.find((f: { material: string; method: string }) => f.material === "steel-lc" && f.method === "rolled");
     expect(full.points.length).toBeGreaterThanOrEqual(12);
     expect(full.uncertainty.mu_effective).toBeGreaterThan(0);
+    expect(full.lotsUsed).toEqual(expect.arrayContaining([expect.any(String)]));
     const charts = await (await staff("qa")).agent.get("/api/calibration/control-charts");
-    const ni80 = charts.body.find((c: { material: string; method: string }) => c.material === "ni80" && c.method === "drawn");
-    expect(ni80.chart.points.map((p: { number: string }) => p.number)).toEqual(expect.arrayContaining(lots.map((l) => l.number)));
-    expect(ni80.chart.constants).toEqual({ d2: 1.128, D3: 0, D4: 3.267 });
+    const steel = charts.body.find((c: { material: string; method: string }) => c.material === "steel-lc" && c.method === "rolled");
+    expect(steel.chart.points.map((p: { number: string }) => p.number)).toEqual(expect.arrayContaining(lots.map((l) => l.number)));
+    expect(steel.chart.constants).toEqual({ d2: 1.128, D3: 0, D4: 3.267 });
   });
 });
 

@@ -29,10 +29,10 @@ async function signInAs(page: Page, email: string) {
   await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
 }
 
-/** A lot just certified: 80 % nickel-iron, drawn can, five parts, measured a little above the fit. */
+/** A lot just certified: 80 % nickel-iron, rolled can, five parts. */
 async function certifyLot(number: string) {
   const { sequelize, jobs } = h.app.locals.deps;
-  const design = { shape: "cylinder", ends: "closed", method: "drawn", dimensions_mm: { diameter: 40, length: 80 }, layers: [{ material: "ni80", thickness_mm: 1 }] };
+  const design = { shape: "cylinder", ends: "closed", method: "rolled", dimensions_mm: { diameter: 40, length: 80 }, layers: [{ material: "ni80", thickness_mm: 1 }] };
   await sequelize.transaction(async (transaction) => {
     const [row] = await sequelize.query<{ lot_id: string }>(
       "insert into measured_lot_records (number, disposition, decided_at, required_attenuation_db, design) values ($1, 'accepted', now(), 40, $2) returning lot_id",
@@ -52,7 +52,7 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     await signInAs(page, "qa@demo.test");
     await page.getByRole("link", { name: "Calibration", exact: true }).first().click();
     await page.getByRole("heading", { level: 1, name: /calibrated by measured lots/i }).waitFor();
-    const ni80 = page.locator('[data-class="ni80|drawn|closed-can"]');
+    const ni80 = page.locator('[data-class="ni80|rolled|closed-can"]');
     const ni50 = page.locator('[data-class="ni50|bent|box"]');
     await ni80.waitFor();
     await ni50.waitFor();
@@ -82,7 +82,7 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     await page.setViewportSize({ width: 1366, height: 900 });
     await signInAs(page, "qa@demo.test");
     await page.goto(`${h.baseUrl}/quality/control-charts`);
-    const chart = page.locator('[data-group="ni80|drawn"]');
+    const chart = page.locator('[data-group="ni80|rolled"]');
     await chart.getByTestId("latest-lot").getByText(number).waitFor();
     await expect(chart.getByTestId("capability").textContent()).resolves.toMatch(/Cpk \d/);
     expect(await page.locator('[data-group="ni50|bent"]').count()).toBe(1);
@@ -92,8 +92,9 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     await page.goto(`${h.baseUrl}/quality/calibration`);
     await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor({ timeout: 30_000 });
 
-    // the design check's default design is a deep-drawn 80 % nickel-iron can: calibrated
+    // the design check's default 80 % nickel-iron can, made rolled and seam-welded: that class is calibrated
     await page.goto(`${h.baseUrl}/design-check`);
+    await page.getByLabel(/how it is made/i).selectOption("rolled");
     const source = page.getByTestId("calibration-source");
     await source.waitFor();
     expect(await source.getAttribute("data-source")).toBe("shop");
