@@ -20,6 +20,10 @@ import { createMailer, mailQueueDefinition, type Mailer } from "./jobs/mailer";
 import { createJobQueue } from "./jobs/queue";
 import { quoteReminderQueueDefinition, startQuoteReminders } from "./jobs/reminders";
 import { instrumentReminderQueueDefinition, startInstrumentReminders } from "./jobs/instrument-reminders";
+import { calibrationRefitQueueDefinition, startCalibrationRefits } from "./jobs/calibration-refit";
+import { calibrationRouter } from "./routes/calibration";
+import { buildModelCatalog } from "./services/buildModelCatalog";
+import { createMeasuredLotsReader } from "./services/measuredLotsReader";
 import { ShopSettings } from "./models";
 import { createStripe } from "./payments/stripe";
 import { designsRouter } from "./routes/designs";
@@ -70,7 +74,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
   initModels(sequelize);
   // Mail and scheduled work go through the job queue in PostgreSQL (started in the background).
-  const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition, instrumentReminderQueueDefinition] });
+  const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition, instrumentReminderQueueDefinition, calibrationRefitQueueDefinition] });
   const mailer =
     options.mailer ??
     createMailer({
@@ -88,6 +92,11 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   };
   void startQuoteReminders({ queue: jobs, sequelize, mailer, config, logger }).catch((err) => logger.error({ err }, "quote reminders did not start"));
   void startInstrumentReminders({ queue: jobs, sequelize, mailer, config, logger }).catch((err) => logger.error({ err }, "calibration reminders did not start"));
+  // measured lots for the calibration and its control charts (the seam: see measuredLotsReader.ts)
+  const readLots = createMeasuredLotsReader(sequelize);
+  void startCalibrationRefits({ queue: jobs, sequelize, readLots, config, logger }).catch((err) => logger.error({ err }, "calibration refits did not start"));
+  // the as-built model with the calibration fits, loaded before the first quote needs it
+  void Promise.resolve(buildModelCatalog()).catch((err) => logger.warn({ err }, "as-built model not loaded yet"));
   const secure = config.appUrl.startsWith("https://");
 
   const app = express() as FluxwrightApp;
@@ -185,6 +194,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(floorRouter(deps));
   api.use(qualitySettingsRouter(deps));
   api.use(instrumentsRouter(deps));
+  api.use(calibrationRouter(deps, { readLots }));
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -13,6 +13,14 @@ export const httpCases: HttpCase[] = [
     body: contractPredictionExample,
     minRatio: 0.6,
   },
+  // a deep-drawn 80 % nickel-iron can: a class the demo's measured lots calibrate (calibration on)
+  {
+    name: "prediction, calibrated class",
+    method: "POST",
+    path: "/api/predictions",
+    body: { shape: "cylinder", dimensions_mm: { diameter: 50, length: 120 }, ends: "closed", method: "drawn", layers: [{ material: "ni80", thickness_mm: 1 }], field: { frequency_hz: 60, amplitude_uT: 100, orientation: "transverse" } },
+    minRatio: 0.6,
+  },
   // ISO 2859-1 plan for a lot of 500 at AQL 1.0 (public reference data)
   { name: "sampling plan", path: "/api/sampling-plan?lotSize=500&aql=1.0", minRatio: 0.6 },
 ];

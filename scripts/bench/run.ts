@@ -17,6 +17,7 @@ for (const [file, fn, title] of [
   ["./physics", "benchPhysics", "prediction engine (in-process)"],
   ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
   ["./advisor", "benchAdvisor", "design advisor (in-process)"],
+  ["./calibration", "benchCalibration", "calibration from measured lots (in-process)"],
 ] as const) {
   if (!wants(file.slice(2))) continue;
   try {

@@ -11,6 +11,7 @@ import { createFileStore, type FileStore } from "../files/store";
 import { seedOrdering } from "./seed-ordering";
 import { seedShopFloor } from "./seed-shop-floor";
 import { seedInstruments } from "./seed-quality";
+import { seedMeasuredLots } from "./seed-calibration";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -38,6 +39,7 @@ export const DEMO_SHOP_DETAILS = {
 export async function seedDemo(sequelize: Sequelize, opts: { password: string; appUrl?: string; store?: FileStore }): Promise<{ created: string[] }> {
   initModels(sequelize);
   const created: string[] = [];
+  const measuredLots: string[] = [];
   await sequelize.transaction(async (transaction) => {
     // one seed at a time (two test runners or a start and a test may seed the same database)
     await sequelize.query(`select pg_advisory_xact_lock(hashtext('fluxwright-demo-seed'))`, { transaction });
@@ -96,7 +98,9 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
       })),
     );
     created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
+    measuredLots.push(...(await seedMeasuredLots({ sequelize, transaction })));
   });
+  created.push(...measuredLots);
   return { created };
 }
 

@@ -7,6 +7,7 @@ import { forFabrication, type QuoteBlank, type QuoteBlankPart, type QuoteConfigu
 import { ValidationError } from "../errors";
 import { Quote } from "../models";
 import type { Actor } from "../policies/utils";
+import { buildModelCatalog, calibrationFitsSnapshot } from "./buildModelCatalog";
 import { materialCatalog, type MaterialCatalog } from "./materialCatalog";
 import { designPrice } from "./priceEstimator";
 import { currentPriceList } from "./shopRatesUpdater";
@@ -45,7 +46,8 @@ export interface Priced {
 /** Prediction, blanks and price of a configuration at a quantity: pure, given the catalog and the list. */
 export function priceAndPredict(props: { configuration: QuoteConfiguration; quantity: number; priceList: PriceList; catalog: MaterialCatalog }): Priced {
   // the as-built model of the same shop-rates version the price comes from, so a quote names one set of settings
-  const prediction = predictionOf(props.configuration, props.catalog, buildModelFrom(constructionSettingsOf(props.priceList)));
+  // and the shop's calibration fits as last loaded: the prediction's `calibration` names the fit used
+  const prediction = predictionOf(props.configuration, props.catalog, buildModelFrom(constructionSettingsOf(props.priceList), { fits: calibrationFitsSnapshot() }));
   const { parts, price } = designPrice({ configuration: forFabrication(props.configuration), quantity: props.quantity, priceList: props.priceList });
   return { prediction, ...blankOf(parts), price };
 }
@@ -91,6 +93,7 @@ export async function quoteBuilder(props: {
   const { transaction } = props;
   const now = props.now ?? new Date();
   const catalog = await materialCatalog();
+  await buildModelCatalog(); // loads the calibration fits when a refit cleared them
   for (let attempt = 0; attempt < 3; attempt++) {
     const rates = await currentPriceList(transaction, { fresh: attempt > 0 });
     const priceList = rates.data;

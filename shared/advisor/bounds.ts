@@ -14,7 +14,7 @@
 //    rounding of kg to 0.001 and of each line, the margin, the discount and the unit price to
 //    whole cents is allowed for (see priceLowerBound).
 
-import { ceiling_db, constructionOf, fitFor, type BuildModel } from "../physics/build-model";
+import { ceiling_db, constructionOf, fitFor, fitInUse, type BuildModel } from "../physics/build-model";
 import { discountFor, priceBuildUp, type FabricatedPart, type PriceList } from "../fabrication";
 import type { AdviceProblem, Design, LayerOption } from "./space";
 
@@ -26,9 +26,16 @@ export function attenuationCeiling_db(p: AdviceProblem, d: Design, model: BuildM
   return ceiling_db(model, construction, d.layers.length, fitFor(model, outer.material, d.method, construction)?.ceiling_db);
 }
 
-/** The highest low end of the band the construction allows: the band's low end takes the ceiling lowered by the model's spread. */
+/**
+ * The highest low end of the band the construction allows: the band's low end takes the ceiling
+ * lowered by the model's spread, or, for a class whose shop calibration is in use, the figure
+ * (at most the ceiling) less the calibrated band's depth below it.
+ */
 export function lowEndCeiling_db(p: AdviceProblem, d: Design, model: BuildModel): number {
-  return attenuationCeiling_db(p, d, model) - Math.max(0, model.spread.ceiling_db);
+  const outer = d.layers[d.layers.length - 1];
+  const fit = fitFor(model, outer.material, d.method, constructionOf(p.shape, "closed"));
+  const below = fitInUse(fit) && fit.band_db ? fit.band_db.below : model.spread.ceiling_db;
+  return attenuationCeiling_db(p, d, model) - Math.max(0, below);
 }
 
 export interface PriceBounder {

@@ -55,6 +55,13 @@ export function lnCombine(lns: number[]): number {
   return -(m + Math.log(sum));
 }
 
+/** lnCombine of two terms, without the list (a fit combines millions of pairs); the same arithmetic. */
+export function lnCombine2(a: number, b: number): number {
+  const m = Math.max(-a, -b);
+  if (m === -Infinity) return Infinity;
+  return -(m + Math.log((a !== Infinity ? Math.exp(-a - m) : 0) + (b !== Infinity ? Math.exp(-b - m) : 0)));
+}
+
 interface TermProps {
   ctx: ShapeCtx;
   layers: GeometryLayer[];
@@ -160,6 +167,22 @@ export function jointTerms(p: TermProps): JointTerms {
   };
 }
 
+/** The built walls (open ends included) before the ceiling, and the seamless core they never exceed. */
+export interface WallsBeforeCeiling {
+  lnWalls: number;
+  lnCore: number;
+}
+
+export function wallsBeforeCeiling(core: Core, terms: Pick<JointTerms, "weld" | "lid">): WallsBeforeCeiling {
+  const lnOpen = core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity;
+  return { lnWalls: lnCombine([closedWalls(core, terms.weld, terms.lid, true, true), lnOpen]), lnCore: lnCombine([core.lnClosed, lnOpen]) };
+}
+
+/** 1/S = 1/S_walls + 1/S_ceiling, never above the seamless core: the one place the ceiling is combined. */
+export function lnWithCeiling(w: WallsBeforeCeiling, ceiling_db: number): number {
+  return Math.min(lnCombine2(w.lnWalls, ceiling_db / dbOfLn(1)), w.lnCore);
+}
+
 /** The built walls' ln|S| for a core, the joints' terms and a scenario (the band moves the clearance and the ceiling). */
 export function combineWalls(core: Core, terms: JointTerms, scenario: Scenario = NOMINAL): number {
   let lid = terms.lid;
@@ -168,10 +191,7 @@ export function combineWalls(core: Core, terms: JointTerms, scenario: Scenario =
     const shift = Math.log(scenario.clearanceFactor);
     lid = terms.lid.map((x, i) => (x === Infinity ? x : x - terms.share[i] * shift));
   }
-  const lnCeiling = (terms.ceiling_db + scenario.ceilingShift_db) / dbOfLn(1);
-  const lnOpen = core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity;
-  const lnIdeal = lnCombine([core.lnClosed, lnOpen]);
-  return Math.min(lnCombine([closedWalls(core, terms.weld, lid, true, true), lnOpen, lnCeiling]), lnIdeal);
+  return lnWithCeiling(wallsBeforeCeiling(core, { weld: terms.weld, lid }), terms.ceiling_db + scenario.ceilingShift_db);
 }
 
 /** What a cause takes from the ideal, dB, at most the ideal as stated (a core beyond the report limit is "far" above anything built). */

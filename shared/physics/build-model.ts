@@ -75,23 +75,44 @@ export interface BuildSpread {
   basis: string;
 }
 
-/** Parameters fitted to measured lots for one alloy × forming method × construction. */
+/** What a prediction says of the shop's calibration of its class (the answer's `calibration`). */
+export interface CalibrationNote {
+  /** shop: the class's parameters are fitted to its measured lots; library: the lots did not (yet) earn it */
+  source: "shop" | "library";
+  lots: number;
+  fittedAt: string;
+  /** the stored fit (a quote's prediction names the one it used) */
+  fitId?: string;
+}
+
+/**
+ * The shop's calibration of one class, alloy × forming method × construction: the parameters
+ * fitted to its measured lots (shared/calibration). A class's fit applies to the designs whose
+ * outermost layer is of its alloy: μ to the layers of that alloy, the ceiling to the nest, the
+ * band to the figure; other alloys' layers keep their library μ (that is how the fit was made).
+ * A fit without parameters is a class whose lots did not earn a calibration: the library values
+ * stand and the answer says so.
+ */
 export interface BuildFit {
   material: string;
   method: BuildMethod;
   construction: Construction;
   /** effective low-field μ (scales the alloy's μ(B) table) */
   mu_effective?: number;
-  /** the construction ceiling for this alloy and method, replacing the shop setting */
+  /** the construction ceiling of one layer for this alloy and method, replacing the shop setting */
   ceiling_db?: number;
+  /** the band from the cross-validated errors: how far below and above the figure a lot falls, dB */
+  band_db?: { below: number; above: number; basis: string };
+  calibration?: CalibrationNote;
+  /** the stored fit (a quote names the one it used) */
+  id?: string;
 }
 
 export interface BuildModel extends ConstructionSettings {
   weld: WeldSetting;
   spread: BuildSpread;
+  /** at most one per class */
   fits?: BuildFit[];
-  /** set when the shop's measured lots calibrate the prediction; echoed in the answer */
-  calibration?: { source: "shop" | "library"; lots: number; fittedAt: string };
 }
 
 export const DEFAULT_WELD: WeldSetting = { zoneWidthPerThickness: 3, muFraction: 1 / 3 };
@@ -106,8 +127,8 @@ export const DEFAULT_SPREAD: BuildSpread = {
 };
 
 /** The shop's settings with the model's defaults for the rest. */
-export function buildModelFrom(settings: ConstructionSettings, extra: Partial<Pick<BuildModel, "fits" | "calibration" | "spread" | "weld">> = {}): BuildModel {
-  return { ...settings, weld: extra.weld ?? DEFAULT_WELD, spread: extra.spread ?? DEFAULT_SPREAD, ...(extra.fits ? { fits: extra.fits } : {}), ...(extra.calibration ? { calibration: extra.calibration } : {}) };
+export function buildModelFrom(settings: ConstructionSettings, extra: Partial<Pick<BuildModel, "fits" | "spread" | "weld">> = {}): BuildModel {
+  return { ...settings, weld: extra.weld ?? DEFAULT_WELD, spread: extra.spread ?? DEFAULT_SPREAD, ...(extra.fits?.length ? { fits: extra.fits } : {}) };
 }
 
 export const DEFAULT_BUILD_MODEL: BuildModel = buildModelFrom(DEFAULT_CONSTRUCTION_SETTINGS);
@@ -125,9 +146,26 @@ export const METHODS_FOR: Record<"cylinder" | "box" | "sphere", readonly BuildMe
   sphere: ["drawn"],
 };
 
-export function fitFor(model: BuildModel, material: string | null, method: BuildMethod, construction: Construction): BuildFit | undefined {
+export function fitFor(model: BuildModel, material: string | null | undefined, method: BuildMethod, construction: Construction): BuildFit | undefined {
   if (!material || !model.fits) return undefined;
   return model.fits.find((f) => f.material === material && f.method === method && f.construction === construction);
+}
+
+/** The fit's parameters are in use (a fit without any is the library's). */
+export const fitInUse = (fit: BuildFit | undefined): fit is BuildFit => fit !== undefined && (fit.mu_effective !== undefined || fit.ceiling_db !== undefined);
+
+/** The class a design belongs to: its outermost layer's alloy (it meets the field first), method and construction. */
+export function classOf(design: { shape: "cylinder" | "box" | "sphere"; ends?: "closed" | "open"; method?: BuildMethod; layers: readonly { material?: string | null }[] }): {
+  material: string | null;
+  method: BuildMethod;
+  construction: Construction;
+} {
+  const outer = design.layers[design.layers.length - 1];
+  return {
+    material: outer?.material ?? null,
+    method: design.method ?? METHODS_FOR[design.shape][0],
+    construction: constructionOf(design.shape, design.shape === "cylinder" ? (design.ends ?? "closed") : "closed"),
+  };
 }
 
 /** The ceiling in dB for `layers` nested layers (a fitted one replaces the shop setting). */

@@ -6,17 +6,20 @@
 // exact solution at the asked frequency, and the saturation check from its peak. Every figure
 // is an engineering estimate.
 
-import { asBuiltFrom, combineWalls, jointTerms, lnCombine, NOMINAL, type JointTerms, type LossCause, type Scenario } from "./as-built";
+import { asBuiltFrom, combineWalls, jointTerms, lnCombine, lnCombine2, lnWithCeiling, NOMINAL, wallsBeforeCeiling, type JointTerms, type LossCause, type Scenario } from "./as-built";
 import {
+  ceiling_db,
   CONSTRUCTION_WORDS,
   constructionOf,
   DEFAULT_BUILD_MODEL,
   fitFor,
+  fitInUse,
   METHOD_WORDS,
   METHODS_FOR,
   type BuildFit,
   type BuildMethod,
   type BuildModel,
+  type CalibrationNote,
   type Construction,
 } from "./build-model";
 import { skinDepth_m } from "./exact";
@@ -121,7 +124,8 @@ export interface PredictionResult {
   estimate: true;
   /** box only: both estimates of the ideal, the lower is used */
   boxEstimates?: { rule_db: number; circumscribedSphere_db: number };
-  calibration?: { source: "shop" | "library"; lots: number; fittedAt: string };
+  /** present when the shop's measured lots of this design's class were fitted: whether the fit is used, on how many lots, when */
+  calibration?: CalibrationNote;
 }
 
 export class PredictionInputError extends Error {
@@ -159,6 +163,8 @@ interface Prepared {
   B0: number;
   holes: HoleInput[];
   model: BuildModel;
+  /** the shop's fit of the design's class (outermost alloy, method, construction), when there is one */
+  classFit?: BuildFit;
 }
 
 interface Settled {
@@ -191,6 +197,9 @@ function prepare(input: PredictionInput, materials: MaterialLookup, model: Build
   const ends = shape === "cylinder" ? (input.ends ?? "closed") : "closed";
   const ctx: ShapeCtx = { shape, orientation: shape === "cylinder" ? (input.field.orientation ?? "transverse") : "transverse", ends, f };
   const construction = constructionOf(shape, ends);
+  // the class's fit, by the outermost layer's alloy (a layer of another alloy keeps the library's μ: the fit was made so)
+  const classFit = Array.isArray(input.layers) ? fitFor(model, input.layers[input.layers.length - 1]?.material, method, construction) : undefined;
+  const muFit = classFit?.mu_effective !== undefined ? classFit : undefined;
 
   const d = input.dimensions_mm ?? {};
   let a: number, L = 0, box: [number, number, number] = [0, 0, 0];
@@ -223,7 +232,7 @@ function prepare(input: PredictionInput, materials: MaterialLookup, model: Build
       rho = check(`layers.${i}.resistivity_ohm_m`, "The resistivity", li.resistivity_ohm_m, INPUT_LIMITS.resistivity_ohm_m);
       sat = li.saturation_T == null ? null : check(`layers.${i}.saturation_T`, "The saturation", li.saturation_T, INPUT_LIMITS.saturation_T);
     }
-    const fit = fitFor(model, material?.id ?? null, method, construction);
+    const fit = muFit && material?.id === muFit.material ? muFit : undefined;
     const layer: Layer = { index: i, material, t, a, L, box: [...box], rho, sat, explicitMu, ...(fit?.mu_effective !== undefined ? { fit } : {}) };
     // next layer's inside = this one's outside plus the gap
     const grow = 2 * (t + gap);
@@ -243,7 +252,7 @@ function prepare(input: PredictionInput, materials: MaterialLookup, model: Build
     if (h.collarLength_mm !== undefined) check(`holes.${i}.collarLength_mm`, "The collar length", h.collarLength_mm, INPUT_LIMITS.collarLength_mm);
   });
 
-  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model };
+  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model, ...(classFit ? { classFit } : {}) };
 }
 
 /**
@@ -269,19 +278,31 @@ function settle(p: Prepared): Settled {
   return { core, mus, sources: choice.map((c) => c.muSource), means: core.fields!.map((w) => w.mean * B0) };
 }
 
-/** The seamless figure, ln|S|, with the library's design μ where a shop fit replaced it. */
+/**
+ * The seamless figure, ln|S|. Where a shop fit sets a layer's μ, the ideal keeps the alloy's
+ * design μ when the fit is lower (the fit's μ is an effective one, with the construction's losses
+ * in it) and takes the fit's when it is higher: the library's μ are guaranteed minimums, and a
+ * shield of the shop's own better material is no longer bounded by a shell of the minimum.
+ */
 function idealLn(p: Prepared, s: Settled): number {
-  if (!p.layers.some((l) => l.fit)) return lnCombine([s.core.lnClosed, s.core.openLeak > 0 ? -Math.log(s.core.openLeak) : Infinity]);
-  const design = chooseMu(p, s.means, true).map((c) => c.mu_r);
-  const core = solveCore(p.ctx, p.layers, design, false);
+  let core = s.core;
+  if (p.layers.some((l) => l.fit)) {
+    const design = chooseMu(p, s.means, true).map((c) => c.mu_r);
+    const mus = p.layers.map((l, i) => (l.fit ? Math.max(design[i], s.mus[i]) : s.mus[i]));
+    if (mus.some((mu, i) => mu !== s.mus[i])) core = solveCore(p.ctx, p.layers, mus, false);
+  }
   return lnCombine([core.lnClosed, core.openLeak > 0 ? -Math.log(core.openLeak) : Infinity]);
 }
 
 function termsFor(p: Prepared, mus: number[]): JointTerms {
-  // a fitted ceiling is looked up by the outermost layer's alloy: it meets the field first
-  const outer = p.layers[p.layers.length - 1];
-  const fitted = fitFor(p.model, outer.material?.id ?? null, p.method, p.construction)?.ceiling_db;
-  return jointTerms({ ctx: p.ctx, layers: p.layers, mus, model: p.model, method: p.method, construction: p.construction, fittedCeiling_db: fitted });
+  // the class's fitted ceiling (the outermost layer's alloy meets the field first)
+  return jointTerms({ ctx: p.ctx, layers: p.layers, mus, model: p.model, method: p.method, construction: p.construction, fittedCeiling_db: p.classFit?.ceiling_db });
+}
+
+/** ln of the holes' 1/leak beside the walls (Infinity without holes). */
+function holesLn(p: Prepared, mus: number[]): number {
+  if (!p.holes.length) return Infinity;
+  return -Math.log(holeLeak(holeResults(p.holes, 0, collarRoot(p, mus)), insideArea_mm2(p)));
 }
 
 /** The as-built ln|S| (holes included) with the library layers' μ scaled by k and the scenario's joints and ceiling. */
@@ -321,6 +342,9 @@ function figure(ln: number): Figure {
   const stated = Math.min(db, REPORT_LIMIT_DB);
   return { shieldingFactor: 10 ** (stated / 20), attenuation_db: stated, beyondLimit: db > REPORT_LIMIT_DB };
 }
+
+/** The figure's dB alone (as figure(ln).attenuation_db). */
+const statedDb = (ln: number): number => Math.min(Math.max(0, dbOfLn(ln)), REPORT_LIMIT_DB);
 
 const fmt = (x: number, digits = 3) => String(+x.toPrecision(digits));
 const tesla = (B: number) => (B >= 0.1 ? `${fmt(B)} T` : B >= 1e-4 ? `${fmt(B * 1000)} mT` : `${fmt(B * 1e6)} µT`);
@@ -384,14 +408,7 @@ export function predictShield(
   const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
   const built = figure(lnBuilt);
 
-  // the band: the same model with its parameters across their spread
-  const spread = build.spread;
-  // each layer's own thin-wall strength (across the axis the core already has it)
-  const lnKadens = ctx.shape === "cylinder" && ctx.orientation === "transverse" ? s.core.lnSingle : layers.map((l, i) => lnSingleKaden(ctx, l, s.mus[i]));
-  const lowLn = bandLn(p, s, terms, lnKadens, spread.muLow, { clearanceFactor: spread.clearanceFactor, ceilingShift_db: -spread.ceiling_db }, lnHoles);
-  const highLn = bandLn(p, s, terms, lnKadens, spread.muHigh, { clearanceFactor: 1 / spread.clearanceFactor, ceilingShift_db: spread.ceiling_db }, lnHoles);
-  const low = Math.min(built.attenuation_db, figure(lowLn).attenuation_db);
-  const high = Math.min(ideal.attenuation_db, Math.max(built.attenuation_db, figure(highLn).attenuation_db));
+  const band = bandOf(p, s, terms, lnHoles, built.attenuation_db, ideal.attenuation_db);
 
   const losses: AsBuiltSummary["losses"] = !detail ? [] : (Object.entries(walls.losses) as [LossCause, number][])
     .map(([cause, db]): AsBuiltSummary["losses"][number] => ({ cause, db }))
@@ -406,7 +423,7 @@ export function predictShield(
     lid: walls.lid,
     losses,
     summary: "",
-    source: layers.some((l) => l.fit) || build.calibration?.source === "shop" ? "shop" : "library",
+    source: fitInUse(p.classFit) ? "shop" : "library",
   };
   if (detail) asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
 
@@ -443,12 +460,67 @@ export function predictShield(
     layers: layerResults,
     warnings,
     method: s.core.method,
-    band: { low_db: low, high_db: high, margin_db: built.attenuation_db - low, basis: spread.basis },
+    band,
     fieldDirection: fieldDirection(ctx),
     estimate: true,
     ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
-    ...(build.calibration ? { calibration: build.calibration } : {}),
+    ...(p.classFit?.calibration ? { calibration: p.classFit.calibration } : {}),
   };
+}
+
+/**
+ * The likely range. With a calibration of the design's class in use: the spread of its
+ * cross-validated errors around the figure (measured lots of this class, each predicted by a
+ * fit that had not seen it). Otherwise the same model with its parameters across their usual
+ * spread. Never above the ideal, and the figure is always inside it.
+ */
+function bandOf(p: Prepared, s: Settled, terms: JointTerms, lnHoles: number, built_db: number, ideal_db: number): PredictionResult["band"] {
+  const fitted = fitInUse(p.classFit) ? p.classFit.band_db : undefined;
+  if (fitted) {
+    const low = Math.max(0, built_db - fitted.below);
+    return { low_db: low, high_db: Math.min(ideal_db, built_db + fitted.above), margin_db: built_db - low, basis: fitted.basis };
+  }
+  const { ctx, layers } = p;
+  const spread = p.model.spread;
+  // each layer's own thin-wall strength (across the axis the core already has it)
+  const lnKadens = ctx.shape === "cylinder" && ctx.orientation === "transverse" ? s.core.lnSingle : layers.map((l, i) => lnSingleKaden(ctx, l, s.mus[i]));
+  const lowLn = bandLn(p, s, terms, lnKadens, spread.muLow, { clearanceFactor: spread.clearanceFactor, ceilingShift_db: -spread.ceiling_db }, lnHoles);
+  const highLn = bandLn(p, s, terms, lnKadens, spread.muHigh, { clearanceFactor: 1 / spread.clearanceFactor, ceilingShift_db: spread.ceiling_db }, lnHoles);
+  const low = Math.min(built_db, figure(lowLn).attenuation_db);
+  const high = Math.min(ideal_db, Math.max(built_db, figure(highLn).attenuation_db));
+  return { low_db: low, high_db: high, margin_db: built_db - low, basis: spread.basis };
+}
+
+/**
+ * The engine's terms of one design that the construction ceiling combines with, so that a fit
+ * can try many ceilings without solving the walls again: responseDb(ceilingResponse(x, m, b), c)
+ * is predictShield(x, m, b) with the class's one-layer ceiling set to c (the same functions
+ * combine them; tests/unit/calibration-fit.test.ts checks the two agree).
+ */
+export interface CeilingResponse {
+  /** ln|S| of the built walls and open ends, before the ceiling */
+  lnWalls: number;
+  /** ln|S| of the seamless core with the μ used (the walls never exceed it) */
+  lnCore: number;
+  /** ln|S| of the ideal (the library's design μ) */
+  lnIdeal: number;
+  /** ln of the holes' 1/leak (Infinity: no holes) */
+  lnHoles: number;
+  /** what the nest's further layers add to the one-layer ceiling, dB */
+  extraLayers_db: number;
+}
+
+export function ceilingResponse(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): CeilingResponse {
+  const p = prepare(input, materials, build);
+  const s = settle(p);
+  const { lnWalls, lnCore } = wallsBeforeCeiling(s.core, termsFor(p, s.mus));
+  return { lnWalls, lnCore, lnIdeal: idealLn(p, s), lnHoles: holesLn(p, s.mus), extraLayers_db: ceiling_db(p.model, p.construction, p.layers.length, 0) };
+}
+
+/** The as-built attenuation, dB, of a design's response with its class's one-layer ceiling at `ceiling1_db`. */
+export function responseDb(r: CeilingResponse, ceiling1_db: number): number {
+  const lnWalls = Math.min(lnWithCeiling(r, ceiling1_db + r.extraLayers_db), r.lnIdeal);
+  return statedDb(Math.min(lnCombine2(lnWalls, r.lnHoles), r.lnIdeal));
 }
 
 function warningsFor(

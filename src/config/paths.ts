@@ -53,6 +53,9 @@ export const paths = {
       return query ? `/admin/users?${query}` : "/admin/users";
     },
   },
+  calibration: { path: "/quality/calibration", href: () => "/quality/calibration" },
+  controlCharts: { path: "/quality/control-charts", href: () => "/quality/control-charts" },
+  measuredLot: { path: "/quality/measured-lots/:lotId", href: (lotId: string) => `/quality/measured-lots/${encode(lotId)}` },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

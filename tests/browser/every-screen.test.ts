@@ -49,6 +49,8 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
   ],
   qa: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
+    { path: "/quality/calibration", name: "calibration", ready: (p) => p.getByTestId("latest-run").waitFor() },
+    { path: "/quality/control-charts", name: "control-charts", ready: (p) => p.locator("[data-group]").first().waitFor() },
     { path: "/design-check", name: "design-check", ready: designCheckReady },
     { path: "/flat-blank", name: "flat-blank", ready: flatBlankReady },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
@@ -59,6 +61,8 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/admin/shop-rates", name: "shop-rates", ready: (p) => p.getByTestId("group-prices").waitFor() },
     { path: "/admin/materials", name: "materials", ready: (p) => p.getByTestId("materials-table").waitFor() },
     { path: "/find-a-design", name: "find-a-design", ready: (p) => p.getByTestId("no-search-yet").waitFor() },
+    { path: "/quality/calibration", name: "calibration", ready: (p) => p.getByTestId("latest-run").waitFor() },
+    { path: "/quality/control-charts", name: "control-charts", ready: (p) => p.locator("[data-group]").first().waitFor() },
     { path: "/design-check", name: "design-check", ready: async (p) => { await designCheckReady(p); await p.getByTestId("make-panel").getByTestId("total-price").waitFor(); } },
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },

@@ -282,8 +282,12 @@ describe("the as-built figure", () => {
 
   it("a shop fit replaces the library's μ and ceiling for its alloy, method and construction, and the answer says it is calibrated", () => {
     const model = buildModelFrom(DEFAULT_CONSTRUCTION_SETTINGS, {
-      fits: [{ material: "ni80", method: "drawn", construction: "closed-can", mu_effective: 25_000, ceiling_db: 64 }],
-      calibration: { source: "shop", lots: 12, fittedAt: "2026-11-30T00:00:00.000Z" },
+      fits: [
+        {
+          material: "ni80", method: "drawn", construction: "closed-can", mu_effective: 25_000, ceiling_db: 64,
+          calibration: { source: "shop", lots: 12, fittedAt: "2026-11-30T00:00:00.000Z" },
+        },
+      ],
     });
     const r = predictShield(can({}, { frequency_hz: 0 }), materialLibrary, model);
     expect(r.layers[0].mu_r).toBe(25_000);

@@ -28,13 +28,19 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   // the design advisor: customers start there, the planner answers their questions with it
   const findADesign: NavItem = { label: "Find a design", to: paths.findADesign.href() };
+  // calibrated predictions and control charts: the quality inspectors' and the planner's
+  const quality: NavItem[] = [
+    { label: "Calibration", to: paths.calibration.href() },
+    { label: "Control charts", to: paths.controlCharts.href() },
+  ];
   switch (user.role) {
     case "customer":
       return [home, findADesign, ...tools, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...tools, account];
-    case "operator":
+      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...quality, ...tools, account];
     case "qa":
+      return [home, ...quality, ...tools, account];
+    case "operator":
       return [home, ...tools, account];
   }
 }

@@ -39,6 +39,18 @@ export function marginWord(l: Pick<LayerResult, "saturation_T" | "saturationMarg
 
 const db = (figure: { attenuation_db: number; beyondLimit: boolean }) => (figure.beyondLimit ? `over ${figure.attenuation_db.toFixed(0)} dB` : `${figure.attenuation_db.toFixed(1)} dB`);
 
+/** Whether the shop's measured lots of this design's class set the figure and its band. */
+function CalibrationLine({ calibration }: { calibration: NonNullable<PredictionResult["calibration"]> }) {
+  const day = new Date(calibration.fittedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+  return (
+    <p className="text-meta text-flux-700" data-testid="calibration-source" data-source={calibration.source}>
+      {calibration.source === "shop"
+        ? `Calibrated on ${calibration.lots} of the shop's measured lots (fitted ${day}); the range is how far such lots fell from predictions made without them.`
+        : `Library values: the shop's ${calibration.lots} measured lots of this kind do not yet improve on them (checked ${day}).`}
+    </p>
+  );
+}
+
 /** The built figure as the headline with its likely range; the seamless shell beside it, smaller, and one sentence on the difference. */
 export function Headline({ result, frequency, units }: { result: PredictionResult; frequency: number; units: DesignUnits }) {
   const { band, ideal, asBuilt } = result;
@@ -53,6 +65,7 @@ export function Headline({ result, frequency, units }: { result: PredictionResul
           <p className="text-meta text-flux-700" data-testid="band">
             likely {band.low_db.toFixed(0)}–{band.high_db.toFixed(0)} dB
           </p>
+          {result.calibration && <CalibrationLine calibration={result.calibration} />}
         </div>
         <div>
           <p className="text-meta text-flux-600">Shielding factor (outside ÷ inside)</p>

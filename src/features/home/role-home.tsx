@@ -14,6 +14,8 @@ interface Area {
 const designCheck: Area = { title: "Design check", text: "Predicted attenuation of a shield design as built, with its likely range, saturation margins and what it takes to make.", link: { to: paths.designCheck.href(), label: "Check a design" } };
 const flatBlank: Area = { title: "Flat blank", text: "The blank a can or box is cut from, its draw stages or bend allowance, the flat pattern to scale and its DXF.", link: { to: paths.flatBlank.href(), label: "Size a blank" } };
 const findADesign: Area = { title: "Find a design", text: "From the space, the field and the attenuation you need to the designs the shop can make that meet it, priced, with the one we would choose.", link: { to: paths.findADesign.href(), label: "Find a design" } };
+const calibration: Area = { title: "Calibrated predictions", text: "Each kind of shield fitted to the shop's measured lots, and how much closer that brings the predictions.", link: { to: paths.calibration.href(), label: "See the calibration" } };
+const controlCharts: Area = { title: "Control charts", text: "Each lot's attenuation margin per alloy and route, the run rules and the process capability.", link: { to: paths.controlCharts.href(), label: "See the charts" } };
 const account: Area = { title: "Your account", text: "Your name as others see it, and your password.", link: { to: paths.account.href(), label: "Open your account" } };
 
 // What each role's home holds: the pages that exist first, with their links; then, as plain notes,
@@ -52,6 +54,8 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       account,
       { title: "Lots waiting for inspection", text: "Sampling plan per lot, measurements entered so far, accept or reject." },
       { title: "Instruments and calibration", text: "Which instruments are in calibration and which are due or overdue." },
+      calibration,
+      controlCharts,
     ],
   },
   admin: {
@@ -62,6 +66,8 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       { title: "Materials", text: "The material library the predictions and blanks compute with, each value with its source.", link: { to: paths.adminMaterials.href(), label: "Edit materials" } },
       { title: "Users", text: "Invite customers and staff, change roles, deactivate, and see who has access.", link: { to: paths.adminUsers.href(), label: "Manage users" } },
       findADesign,
+      calibration,
+      controlCharts,
       designCheck,
       flatBlank,
       { title: "Orders to release", text: "Paid orders waiting to be split into jobs and lots for the floor." },

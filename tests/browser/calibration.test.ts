@@ -1,0 +1,119 @@
+import { randomUUID } from "node:crypto";
+import type { Page } from "playwright-core";
+import { QueryTypes } from "sequelize";
+import { beforeAll, describe, expect, it } from "vitest";
+import { queueCalibrationRefit } from "../../server/jobs/calibration-refit";
+import { calibrationRefitter } from "../../server/services/calibrationRefitter";
+import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
+import { DEMO_PASSWORD, useBrowser } from "../support/browser";
+
+// The quality inspector's calibration and control charts on the demo scenario's measured lots; a
+// lot certified (recorded where the calibration reads it, and the refit queued as the
+// certificate's issuer queues it) shows on the chart and in a new fit; the design check of the
+// same class shows the calibrated figure and its band.
+
+const h = useBrowser();
+
+// a fit of every measured lot there is (the demo's, and any other test's), as the seed command
+// makes the first one on a fresh start
+beforeAll(async () => {
+  const { sequelize } = h.app.locals.deps;
+  await calibrationRefitter({ sequelize, readLots: createMeasuredLotsReader(sequelize), actor: null, reason: "the demo scenario", force: true });
+}, 120_000);
+
+async function signInAs(page: Page, email: string) {
+  await page.goto(`${h.baseUrl}/sign-in`);
+  await page.getByLabel(/e-?mail/i).fill(email);
+  await page.getByLabel(/^password/i).fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: /^sign in$/i }).click();
+  await page.getByRole("heading", { level: 1, name: /welcome/i }).waitFor();
+}
+
+/** A lot just certified: 80 % nickel-iron, rolled can, five parts. */
+async function certifyLot(number: string) {
+  const { sequelize, jobs } = h.app.locals.deps;
+  const design = { shape: "cylinder", ends: "closed", method: "rolled", dimensions_mm: { diameter: 40, length: 80 }, layers: [{ material: "ni80", thickness_mm: 1 }] };
+  await sequelize.transaction(async (transaction) => {
+    const [row] = await sequelize.query<{ lot_id: string }>(
+      "insert into measured_lot_records (number, disposition, decided_at, required_attenuation_db, design) values ($1, 'accepted', now(), 40, $2) returning lot_id",
+      { type: QueryTypes.SELECT, transaction, bind: [number, JSON.stringify(design)] },
+    );
+    for (const [i, a] of [48.2, 48.9, 47.6, 48.4, 48.8].entries())
+      await sequelize.query("insert into measured_part_records (lot_id, serial, frequency_hz, applied_field_ut, attenuation_db) values ($1, $2, 60, 50, $3)", { transaction, bind: [row.lot_id, `${number}-0${i + 1}`, a] });
+    const [qa] = await sequelize.query<{ id: string }>("select id from users where email = 'qa@demo.test'", { type: QueryTypes.SELECT, transaction });
+    await queueCalibrationRefit(jobs, { actorId: qa.id, reason: `certificate of lot ${number}` }, transaction);
+  });
+}
+
+describe("calibration from measured lots, as the quality inspector uses it", () => {
+  it("shows each class's fit beating the library in cross-validation, the scatter before and after, and the outliers with links", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await page.setViewportSize({ width: 1366, height: 900 });
+    await signInAs(page, "qa@demo.test");
+    await page.getByRole("link", { name: "Calibration", exact: true }).first().click();
+    await page.getByRole("heading", { level: 1, name: /calibrated by measured lots/i }).waitFor();
+    const ni80 = page.locator('[data-class="ni80|rolled|closed-can"]');
+    const ni50 = page.locator('[data-class="ni50|bent|box"]');
+    await ni80.waitFor();
+    await ni50.waitFor();
+    for (const fit of [ni80, ni50]) {
+      await fit.getByText("In use", { exact: true }).waitFor();
+      const rows = await fit.getByTestId("fit-errors").locator("tbody tr td").allTextContents();
+      const [library, , cv] = rows.map((t) => parseFloat(t));
+      expect(cv).toBeLessThan(library);
+      expect(await fit.getByTestId("fit-scatter").locator(".recharts-scatter-symbol").count()).toBeGreaterThan(20);
+    }
+    await expect(ni80.getByTestId("left-out").getByRole("link").count()).resolves.toBeGreaterThanOrEqual(2);
+    await page.getByText(/engineering estimates, not a guarantee/i).first().waitFor();
+    await h.shot(page, "calibration-qa-laptop");
+
+    // an outlier's link opens the lot's measured parts
+    await ni80.getByTestId("left-out").getByRole("link", { name: /^Lot / }).first().click();
+    await page.getByTestId("lot-parts").waitFor();
+    await h.shot(page, "calibration-outlier-lot");
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
+
+  it("a certified lot appears on the control chart and in a new fit; the design check of that class shows the calibrated figure and band", async () => {
+    const number = `L80-${randomUUID().slice(0, 4).toUpperCase()}`;
+    await certifyLot(number);
+    const { page, consoleErrors } = await h.newPage();
+    await page.setViewportSize({ width: 1366, height: 900 });
+    await signInAs(page, "qa@demo.test");
+    await page.goto(`${h.baseUrl}/quality/control-charts`);
+    const chart = page.locator('[data-group="ni80|rolled"]');
+    await chart.getByTestId("latest-lot").getByText(number).waitFor();
+    await expect(chart.getByTestId("capability").textContent()).resolves.toMatch(/Cpk \d/);
+    expect(await page.locator('[data-group="ni50|bent"]').count()).toBe(1);
+    await h.shot(page, "control-charts-qa-laptop");
+
+    // the refit the certificate queued: kept with who asked and why
+    await page.goto(`${h.baseUrl}/quality/calibration`);
+    await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor({ timeout: 30_000 });
+
+    // the design check's default 80 % nickel-iron can, made rolled and seam-welded: that class is calibrated
+    await page.goto(`${h.baseUrl}/design-check`);
+    await page.getByLabel(/how it is made/i).selectOption("rolled");
+    const source = page.getByTestId("calibration-source");
+    await source.waitFor();
+    expect(await source.getAttribute("data-source")).toBe("shop");
+    await expect(source.textContent()).resolves.toMatch(/Calibrated on \d+ of the shop's measured lots/);
+    await h.shot(page, "design-check-calibrated");
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
+
+  it("the phone: no sideways scroll on either page", async () => {
+    const { page } = await h.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
+    await signInAs(page, "admin@demo.test");
+    for (const [path, name] of [["/quality/calibration", "calibration"], ["/quality/control-charts", "control-charts"]]) {
+      await page.goto(`${h.baseUrl}${path}`);
+      await page.locator(name === "calibration" ? "[data-class]" : "[data-group]").first().waitFor();
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+      await h.shot(page, `${name}-admin-phone`);
+    }
+    await page.close();
+  });
+});
