@@ -8,7 +8,7 @@ import pg from "pg";
 import pino, { type Logger } from "pino";
 import { pinoHttp } from "pino-http";
 import type { Sequelize } from "sequelize";
-import { createPassport } from "./auth/passport";
+import { createPassport, signedInUser } from "./auth/passport";
 import { createSessionStore } from "./auth/session-store";
 import { projectRoot } from "./project-root";
 import { loadConfig, type Config } from "./config";
@@ -41,6 +41,7 @@ import { settingsRouter } from "./routes/settings";
 import { webhooksRouter } from "./routes/webhooks";
 import { apiNotFound, onError } from "./middleware/on-error";
 import { createCsrf, publicRateLimit } from "./middleware/security";
+import { fixedHeaders, quietLog, stationSession } from "./middleware/station";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { blanksRouter } from "./routes/blanks";
@@ -114,21 +115,54 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   // any body parser), no session, no page-security headers; failures are still logged.
   app.use("/api", webhooksRouter(deps));
 
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          "default-src": ["'self'"],
-          "img-src": ["'self'", "data:", "blob:"],
-          "style-src": ["'self'", "'unsafe-inline'"], // charts set inline style attributes
-          "font-src": ["'self'", "data:"],
-          "connect-src": ["'self'"],
-          "upgrade-insecure-requests": secure ? [] : null,
-        },
+  const pageSecurity = helmet({
+    contentSecurityPolicy: {
+      directives: {
+        "default-src": ["'self'"],
+        "img-src": ["'self'", "data:", "blob:"],
+        "style-src": ["'self'", "'unsafe-inline'"], // charts set inline style attributes
+        "font-src": ["'self'", "data:"],
+        "connect-src": ["'self'"],
+        "upgrade-insecure-requests": secure ? [] : null,
       },
-      strictTransportSecurity: secure,
-    }),
-  );
+    },
+    strictTransportSecurity: secure,
+  });
+
+  // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
+  // (a CSRF token, a sign-in), so public read-only routes create no session rows.
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
+  sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
+  const store = createSessionStore(sessionPool);
+  const sessionCookie = { httpOnly: true, sameSite: "lax" as const, secure, maxAge: 8 * 3600_000 };
+  const sessionMiddleware = session({
+    name: "fw.sid",
+    secret: config.SESSION_SECRET,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: sessionCookie,
+  });
+  const passport = createPassport();
+  const csrf = createCsrf({ secret: config.SESSION_SECRET, secure });
+
+  // The scan station's two calls (a scan, the job looked up by its barcode), before the general
+  // chain: the same headers, session, user, CSRF and role checks with less work per request
+  // (middleware/station.ts); every other request on /api passes through untouched.
+  const stationChain = [
+    fixedHeaders(pageSecurity),
+    quietLog(logger),
+    express.json({ limit: "200kb" }),
+    ...stationSession({ store, secret: config.SESSION_SECRET, cookieName: "fw.sid", cookie: sessionCookie, loadUser: signedInUser }),
+    csrf.protect,
+  ];
+  const station = express.Router();
+  station.post("/scans", ...stationChain, scansRouter(deps));
+  station.get("/jobs/by-code/:code", ...stationChain, jobsRouter(deps));
+  app.use("/api", station);
+
+  app.use(pageSecurity);
   const requestLog = pinoHttp({
     logger,
     autoLogging: { ignore: (req) => !req.url?.startsWith("/api") },
@@ -147,23 +181,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
     req.log = logger;
     next();
   });
-
-  // Sessions live in PostgreSQL. Nothing is stored for a visitor until something needs it
-  // (a CSRF token, a sign-in), so public read-only routes create no session rows.
-  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 5 });
-  sessionPool.on("error", (err) => logger.warn({ err }, "session pool error"));
-  const store = createSessionStore(sessionPool);
-  const sessionMiddleware = session({
-    name: "fw.sid",
-    secret: config.SESSION_SECRET,
-    store,
-    resave: false,
-    saveUninitialized: false,
-    rolling: true,
-    cookie: { httpOnly: true, sameSite: "lax", secure, maxAge: 8 * 3600_000 },
-  });
-  const passport = createPassport();
-  const csrf = createCsrf({ secret: config.SESSION_SECRET, secure });
 
   const api = express.Router();
   api.use(express.json({ limit: "200kb" }));
@@ -188,7 +205,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(ordersRouter(deps));
   api.use(settingsRouter(deps));
   api.use(jobsRouter(deps));
-  api.use(scansRouter(deps));
   api.use(heatsRouter(deps));
   api.use(furnaceRunsRouter(deps));
   api.use(floorRouter(deps));

@@ -15,6 +15,18 @@ function forgetUsersOnChange(): void {
   for (const hook of ["afterSave", "afterUpdate", "afterDestroy", "afterBulkUpdate", "afterBulkDestroy"] as const) User.addHook(hook, "forget-recent-users", () => recent.clear());
 }
 
+/** The signed-in user named by a session (read in the last second, or now); false when gone or disabled. */
+export async function signedInUser(id: string): Promise<User | false> {
+  forgetUsersOnChange();
+  const hit = recent.get(id);
+  if (hit && Date.now() - hit.at < RECENT_MS) return hit.user;
+  const user = await User.findByPk(id, { include: [{ model: Organization, as: "organization" }] });
+  if (!user || user.disabledAt) return false;
+  if (recent.size > 10_000) recent.clear();
+  recent.set(id, { user, at: Date.now() });
+  return user;
+}
+
 /** A Passport instance of this app (not the global one), so several apps can live in one test process. */
 export function createPassport(): PassportStatic {
   const passport = new Passport() as PassportStatic;
@@ -36,14 +48,7 @@ export function createPassport(): PassportStatic {
   forgetUsersOnChange();
   passport.deserializeUser(async (id: string, done) => {
     try {
-      const hit = recent.get(id);
-      if (hit && Date.now() - hit.at < RECENT_MS) return done(null, hit.user);
-      const user = await User.findByPk(id, { include: [{ model: Organization, as: "organization" }] });
-      if (user && !user.disabledAt) {
-        if (recent.size > 10_000) recent.clear();
-        recent.set(id, { user, at: Date.now() });
-      }
-      done(null, user && !user.disabledAt ? user : false);
+      done(null, await signedInUser(id));
     } catch (err) {
       done(err);
     }
