@@ -28,9 +28,9 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   switch (user.role) {
     case "customer":
-      return [home, ...tools, account];
+      return [home, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
+      return [home, { label: "Orders", to: paths.orders.href() }, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
     case "operator":
     case "qa":
       return [home, ...tools, account];

@@ -10,6 +10,10 @@ export interface Column<R> {
   /** the cell that names the row: the card's title on a narrow screen */
   primary?: boolean;
   className?: string;
+  /** in the table's header row only (a sort button); the cards name the value with `header` */
+  headerControl?: ReactNode;
+  /** how the rows are sorted by this column, for the header's aria-sort */
+  sorted?: "ascending" | "descending";
 }
 
 export interface FooterLine {
@@ -87,8 +91,8 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
           <thead className="border-b-2 border-nickel-300 text-meta text-flux-600">
             <tr>
               {columns.map((c) => (
-                <th key={c.key} scope="col" className={`py-1.5 pr-3 font-semibold last:pr-0 ${align(c.align)}`}>
-                  {c.header}
+                <th key={c.key} scope="col" aria-sort={c.sorted} className={`py-1.5 pr-3 font-semibold last:pr-0 ${align(c.align)}`}>
+                  {c.headerControl ?? c.header}
                 </th>
               ))}
             </tr>
