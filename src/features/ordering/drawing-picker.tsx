@@ -18,13 +18,13 @@ export function drawingProblem(file: Pick<File, "name" | "size">): string | null
 }
 
 /** Choose drawings (a button that opens the file chooser), see them listed, remove one before sending. */
-export function DrawingPicker({ files, onChange, already = 0, error }: { files: File[]; onChange: (files: File[]) => void; already?: number; error?: string | null }) {
+export function DrawingPicker({ files, onChange, already = 0, error, label = "Drawings" }: { files: File[]; onChange: (files: File[]) => void; already?: number; error?: string | null; label?: string }) {
   const id = useId();
   const room = MAX_DRAWINGS_PER_ORDER - already;
   return (
     <div className="space-y-2">
       <label htmlFor={id} className="block font-semibold text-flux-900">
-        Drawings
+        {label}
       </label>
       <p id={`${id}-hint`} className="text-meta text-flux-600">
         PDF, DXF, STEP or images, at most {fileSize(MAX_DRAWING_BYTES)} each and {MAX_DRAWINGS_PER_ORDER} per order{already ? ` (${already} attached already)` : ""}.

@@ -193,7 +193,7 @@ function Payments({ order: o }: { order: OrderJson }) {
           rowTestId="payment-row"
           rows={o.payments}
           rowKey={(p) => p.id}
-          cardsBelow={520}
+          cardsBelow={420}
           columns={[
             { key: "what", header: "What", primary: true, cell: (p) => (p.kind === "refund" ? "Refund" : "Payment") },
             { key: "amount", header: "Amount", align: "end", className: "font-mono whitespace-nowrap", cell: (p) => money(p.kind === "refund" ? -p.amount_cents : p.amount_cents) },
@@ -281,7 +281,7 @@ function Drawings({ order: o }: { order: OrderJson }) {
       )}
       {o.abilities.upload && o.files.length < MAX_DRAWINGS_PER_ORDER && (
         <div className="mt-4 space-y-3 border-t border-nickel-200 pt-4">
-          <DrawingPicker files={files} onChange={setFiles} already={o.files.length} error={problem} />
+          <DrawingPicker label="Add drawings" files={files} onChange={setFiles} already={o.files.length} error={problem} />
           {files.length > 0 && (
             <Button onClick={attach} pending={upload.isPending} pendingLabel="Sending…">
               Attach {files.length} drawing{files.length === 1 ? "" : "s"}
