@@ -18,7 +18,7 @@ export function Component() {
   const staff = useQuery(meQueryOptions).data?.role !== "customer";
   return (
     <>
-      <PageHeader title="Orders" lead={staff ? "Every customer's orders: search, filter by status, sort by any underlined column." : "Your organisation's orders, their payment and their progress through the shop."} />
+      <PageHeader title="Orders" lead={staff ? "Every customer's orders: search, filter by status, sort by a column heading with arrows." : "Your organisation's orders, their payment and their progress through the shop."} />
       <PanelBoundary name="the order list">
         <OrdersTable staff={staff} />
       </PanelBoundary>

@@ -119,7 +119,7 @@ export function DesignComparison({ ids }: { ids: string[] }) {
 
       <PanelBoundary name="the cross-sections">
         <Panel title="Cross-sections">
-          <div className="grid gap-6 md:grid-cols-2 xl:grid-cols-3">
+          <div className="grid grid-cols-1 gap-6 md:grid-cols-2 xl:grid-cols-3">
             {items.map((item, i) => {
               const r = requests[i];
               return (

@@ -32,7 +32,7 @@ export function OrderDetail({ id }: { id: string }) {
   return (
     <div className="space-y-6">
       <CheckoutReturn order={o} returned={returned} />
-      <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-2">
         <PanelBoundary name="the order's details">
           <Summary order={o} />
         </PanelBoundary>
@@ -40,7 +40,7 @@ export function OrderDetail({ id }: { id: string }) {
           <Payments order={o} />
         </PanelBoundary>
       </div>
-      <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-2">
         <PanelBoundary name="the drawings">
           <Drawings order={o} />
         </PanelBoundary>
@@ -193,7 +193,7 @@ function Payments({ order: o }: { order: OrderJson }) {
           rowTestId="payment-row"
           rows={o.payments}
           rowKey={(p) => p.id}
-          cardsBelow={420}
+          cardsBelow={600}
           columns={[
             { key: "what", header: "What", primary: true, cell: (p) => (p.kind === "refund" ? "Refund" : "Payment") },
             { key: "amount", header: "Amount", align: "end", className: "font-mono whitespace-nowrap", cell: (p) => money(p.kind === "refund" ? -p.amount_cents : p.amount_cents) },

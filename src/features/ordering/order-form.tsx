@@ -83,7 +83,7 @@ export function OrderForm({ quoteId }: { quoteId: string }) {
   const { errors, isSubmitting } = formState;
   const today = new Date().toISOString().slice(0, 10);
   return (
-    <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+    <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
       <Panel title="Order details">
         <form noValidate onSubmit={onSubmit} className="space-y-5">
           {formMessage && (

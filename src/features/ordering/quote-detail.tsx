@@ -43,7 +43,7 @@ function QuoteView({ q }: { q: QuoteJson }) {
     <div className="space-y-6">
       <Panel>
         <div className="flex flex-wrap items-start justify-between gap-4">
-          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1">
+          <dl className="grid grid-cols-[auto_minmax(0,1fr)] gap-x-4 gap-y-1">
             <dt className="font-semibold text-flux-700">Status</dt>
             <dd>
               <QuoteStatusChip status={q.status} />
@@ -102,7 +102,7 @@ function QuoteView({ q }: { q: QuoteJson }) {
         )}
       </Panel>
 
-      <div className="grid items-start gap-6 lg:grid-cols-2">
+      <div className="grid grid-cols-1 items-start gap-6 lg:grid-cols-2">
         <Panel title="The design quoted">
           <p className="mb-3 font-semibold text-flux-900" data-testid="quote-design">{designSummary(c)}</p>
           <ol className="space-y-1" aria-label="Layers, innermost first">

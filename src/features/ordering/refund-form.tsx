@@ -62,7 +62,7 @@ export function RefundForm({ order }: { order: OrderJson }) {
           {formMessage}
         </StatusNote>
       )}
-      <div className="grid gap-4 sm:grid-cols-[12rem_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 gap-4 sm:grid-cols-[12rem_minmax(0,1fr)]">
         <ControlledUnitInput control={control} errors={errors} name="amount_cents" label="Amount" scale={moneyScale(order.currency)} />
         <TextField label="Reason" hint="The customer sees it on the order." error={errors.reason?.message} {...register("reason")} />
       </div>
