@@ -14,7 +14,8 @@ import { StatusNote } from "../../components/ui/status-note";
 import { paths } from "../../config/paths";
 import { formatDate, formatDateTime } from "../../lib/format";
 import { formatMoney } from "../../lib/money";
-import { DrawingPicker, drawingProblem, fileSize } from "./drawing-picker";
+import { drawingProblem, fileSize } from "./drawing-check";
+import { DrawingPicker } from "./drawing-picker";
 import { RefundForm } from "./refund-form";
 import { OrderStatusChip } from "./status-chip";
 

@@ -18,7 +18,8 @@ import { paths } from "../../config/paths";
 import { formatDate } from "../../lib/format";
 import { formatMoney } from "../../lib/money";
 import { useServerErrors } from "../../lib/use-server-errors";
-import { DrawingPicker, drawingProblem } from "./drawing-picker";
+import { drawingProblem } from "./drawing-check";
+import { DrawingPicker } from "./drawing-picker";
 
 type Details = { purchaseOrder?: string; deliveryAddress?: string; requestedDate?: string; notes?: string };
 const FIELDS = ["purchaseOrder", "deliveryAddress", "requestedDate", "notes"] as const;
