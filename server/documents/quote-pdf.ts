@@ -1,9 +1,8 @@
-import type { PriceBuildUp } from "../../shared/fabrication";
+import { customerPrice, type PriceBuildUp } from "../../shared/fabrication";
 import type { PredictionResult } from "../../shared/physics/predict";
 import { documentNumber, formatMoney } from "../../shared/schemas/documents";
 import type { QuoteConfiguration } from "../../shared/schemas/quote";
 import type { PaperSize } from "../../shared/schemas/shop-settings";
-import { sellingLines } from "../presenters/quote";
 import { drawCrossSection } from "./cross-section";
 import {
   ACCENT, INK, MUTED, contentWidth, createDocument, ensureSpace, fmtDate, footers, header, heading, num, paragraph, pdfText, table, toBuffer, type ShopDetails,
@@ -122,9 +121,9 @@ export async function renderQuotePdf(q: QuoteDocumentData): Promise<Buffer> {
 
   // --- the price: selling amounts only, never the shop's rates or margin ---
   heading(doc, "Price");
-  const lines = sellingLines(q.price);
-  const rows = lines.map((l) => [l.label, num(l.quantity, 3), money(l.total_cents, currency)]);
-  rows.push(["Sum of the lines", "", money(q.price.subtotal_cents + q.price.margin_cents, currency)]);
+  const selling = customerPrice(q.price);
+  const rows = selling.lines.filter((l) => l.total_cents !== 0).map((l) => [l.label, num(l.quantity, 3), money(l.total_cents, currency)]);
+  rows.push(["Sum of the lines", "", money(selling.subtotal_cents, currency)]);
   if (q.price.discount_cents) rows.push([`Quantity discount (${num(q.price.discountPercent)} %)`, "", `-${money(q.price.discount_cents, currency)}`]);
   if (q.price.rounding_cents) rows.push(["Rounding to whole cents per assembly", "", money(q.price.rounding_cents, currency)]);
   rows.push(["Price per assembly", "", money(q.price.unitPrice_cents, currency)]);

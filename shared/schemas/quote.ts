@@ -11,7 +11,7 @@ import { materialLibrary } from "../physics/materials";
 import type { PredictionResult } from "../physics/predict";
 import type { PersonRef } from "./list";
 import { listQuerySchema } from "./list";
-import { designConfigurationSchema, MAX_ESTIMATE_QUANTITY, type DesignConfiguration } from "./price-estimate";
+import { designConfigurationSchema, MAX_ESTIMATE_QUANTITY, type DesignConfiguration, type PriceView } from "./price-estimate";
 import { predictionRequestSchema, type PredictionRequest } from "./prediction";
 
 export const requiredAttenuationSchema = z
@@ -109,38 +109,6 @@ export const quoteListQuerySchema = listQuerySchema(["createdAt", "number", "tot
 });
 export type QuoteListQuery = z.input<typeof quoteListQuerySchema>;
 
-/** A price line as the customer sees it: the selling amount, never the shop's rate or margin. */
-export interface QuotePriceLine {
-  key: string;
-  label: string;
-  quantity: number;
-  total_cents: number;
-}
-
-/** The planner's view of the same build-up: the rates, the subtotal and the margin. */
-export interface QuoteInternalPrice {
-  lines: Array<QuotePriceLine & { unit_cents: number }>;
-  subtotal_cents: number;
-  marginPercent: number;
-  margin_cents: number;
-  priceListVersion: number;
-}
-
-export interface QuotePrice {
-  lines: QuotePriceLine[];
-  /** the lines' sum: selling prices before the quantity discount */
-  linesTotal_cents: number;
-  discountPercent: number;
-  discount_cents: number;
-  rounding_cents: number;
-  unitPrice_cents: number;
-  quantity: number;
-  total_cents: number;
-  currency: string;
-  /** staff only */
-  internal?: QuoteInternalPrice;
-}
-
 /** One blank of the assembly: which layer and part it makes, its flat shape and mass. */
 export interface QuoteBlankPart {
   layer: number;
@@ -176,7 +144,8 @@ export interface QuoteJson {
   blank: QuoteBlank;
   /** total mass of one assembly */
   mass_kg: number | null;
-  price: QuotePrice;
+  /** the frozen build-up as the viewer may see it (the one price view of estimates and quotes) */
+  price: PriceView;
   priceListVersion: number;
   leadTime_workingDays: number;
   validity_days: number;

@@ -9,6 +9,25 @@ export const flatBlankPrefillKeys = [
 ] as const;
 export type FlatBlankPrefill = Partial<Record<(typeof flatBlankPrefillKeys)[number], string>>;
 
+/** A list page's state in its address: search, filter, sort and page (defaults left out). */
+export interface ListFilters {
+  q?: string;
+  status?: string;
+  sort?: string;
+  dir?: "asc" | "desc";
+  page?: number;
+}
+function withList(path: string, f?: ListFilters): string {
+  const search = new URLSearchParams();
+  if (f?.q) search.set("q", f.q);
+  if (f?.status) search.set("status", f.status);
+  if (f?.sort) search.set("sort", f.sort);
+  if (f?.dir) search.set("dir", f.dir);
+  if (f?.page && f.page > 1) search.set("page", String(f.page));
+  const query = search.toString();
+  return query ? `${path}?${query}` : path;
+}
+
 export const paths = {
   home: { path: "/", href: () => "/" },
   signIn: {
@@ -56,6 +75,13 @@ export const paths = {
   calibration: { path: "/quality/calibration", href: () => "/quality/calibration" },
   controlCharts: { path: "/quality/control-charts", href: () => "/quality/control-charts" },
   measuredLot: { path: "/quality/measured-lots/:lotId", href: (lotId: string) => `/quality/measured-lots/${encode(lotId)}` },
+  designs: { path: "/designs", href: (filters?: ListFilters) => withList("/designs", filters) },
+  designCompare: { path: "/designs/compare", href: (ids: readonly string[]) => `/designs/compare?ids=${ids.map(encode).join(",")}` },
+  quotes: { path: "/quotes", href: (filters?: ListFilters & { status?: string }) => withList("/quotes", filters) },
+  quote: { path: "/quotes/:id", href: (id: string) => `/quotes/${encode(id)}` },
+  orderNew: { path: "/quotes/:id/order", href: (quoteId: string) => `/quotes/${encode(quoteId)}/order` },
+  orders: { path: "/orders", href: (filters?: ListFilters & { status?: string }) => withList("/orders", filters) },
+  order: { path: "/orders/:id", href: (id: string) => `/orders/${encode(id)}` },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

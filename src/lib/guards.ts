@@ -1,6 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { data, redirect } from "react-router-dom";
 import { meQueryOptions, type Role, type User } from "../api/auth";
+import { ApiError } from "../api/client";
 import { paths } from "../config/paths";
 
 // Route guards only decide what to show; the server still authorizes every request.
@@ -28,4 +29,16 @@ export async function requireRole(queryClient: QueryClient, request: Request, ro
  */
 export async function warm(...loads: Promise<unknown>[]): Promise<void> {
   await Promise.allSettled(loads);
+}
+
+/**
+ * Warms a record the page is about: when the server says it does not exist (or belongs to another
+ * organisation, which it answers the same way), the page is the not-found page, not a panel error.
+ */
+export async function warmRecord(load: Promise<unknown>): Promise<void> {
+  try {
+    await load;
+  } catch (error) {
+    if (error instanceof ApiError && error.status === 404) throw data({ message: "Not found." }, { status: 404, statusText: "Not Found" });
+  }
 }

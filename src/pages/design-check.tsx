@@ -1,4 +1,5 @@
-import type { QueryClient } from "@tanstack/react-query";
+import { useQuery, type QueryClient } from "@tanstack/react-query";
+import { meQueryOptions } from "../api/auth";
 import { materialsQueryOptions } from "../api/materials";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
@@ -12,12 +13,14 @@ export const makeLoader = (queryClient: QueryClient) => async () => {
 };
 
 export function Component() {
+  // signed in, a customer configures here: the design is saved, compared and quoted from this page
+  const customer = useQuery(meQueryOptions).data?.role === "customer";
   return (
     <>
       <PageHeader
-        eyebrow="Public · no sign-in needed"
+        eyebrow={customer ? "Configure · save · quote" : "Public · no sign-in needed"}
         title="Design check"
-        lead="Describe a shield's shape, layers and the field it must block. The predicted attenuation, each layer's saturation margin, the curve against frequency and a drawing to scale update as you type."
+        lead={`Describe a shield's shape, layers and the field it must block. The predicted attenuation, each layer's saturation margin, the curve against frequency and a drawing to scale update as you type.${customer ? " Save it under a name, then compare it or get a quote." : ""}`}
       />
       <PanelBoundary name="the design check">
         <DesignCheck />

@@ -76,12 +76,12 @@ describe("POST /api/quotes", () => {
     const days = (Date.parse(q.expiresAt) - Date.parse(q.createdAt)) / 86_400_000;
     expect(days).toBeCloseTo(30, 5);
     expect(q.configuration).not.toHaveProperty("junk");
-    // a customer sees selling lines that add up, never the shop's rates or margin
-    expect(q.price.internal).toBeUndefined();
+    // a customer sees the customer's price view (as a price estimate does): lines that add up, never the shop's rates or margin
+    expect(q.price.view).toBe("customer");
     expect(JSON.stringify(q.price)).not.toMatch(/margin|unit_cents/);
     const sum = q.price.lines.reduce((s: number, l: { total_cents: number }) => s + l.total_cents, 0);
-    expect(sum).toBe(q.price.linesTotal_cents);
-    expect(q.price.linesTotal_cents - q.price.discount_cents + q.price.rounding_cents).toBe(q.total_cents);
+    expect(sum).toBe(q.price.subtotal_cents);
+    expect(q.price.subtotal_cents - q.price.discount_cents + q.price.rounding_cents).toBe(q.total_cents);
     // stored as frozen, with the version id, and an event in the trail
     const row = await Quote.findByPk(q.id);
     expect(row!.priceListVersion).toBe(q.priceListVersion);
@@ -132,8 +132,9 @@ describe("reading quotes", () => {
     const planner = await signIn(app, await buildUser({ role: "admin", organizationId: shop.id }));
     const staffView = await planner.agent.get(`/api/quotes/${quote.id}`);
     expect(staffView.status).toBe(200);
-    expect(staffView.body.price.internal.margin_cents).toBeGreaterThan(0);
-    expect(staffView.body.price.internal.lines[0].unit_cents).toBeGreaterThan(0);
+    expect(staffView.body.price.view).toBe("shop");
+    expect(staffView.body.price.margin_cents).toBeGreaterThan(0);
+    expect(staffView.body.price.lines[0].unit_cents).toBeGreaterThan(0);
     expect(staffView.body.abilities.order).toBe(false);
   });
 

@@ -1,5 +1,6 @@
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
+import { Design, Order, Quote, User } from "../../server/models";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
 // Every page there is, as each role finds it, at the sizes its people use: a laptop 1366 × 900,
@@ -22,7 +23,7 @@ type Role = "anonymous" | "customer" | "operator" | "qa" | "admin";
 const ADVICE_EXAMPLE = "shape=cylinder&d=50&l=120&att=60&f=60&B=100&dir=transverse&qty=10&layers=3&lu=mm&fu=uT&fq=Hz";
 
 /** What each role can open, and what shows the page has finished arriving. */
-const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page) => Promise<unknown> }>> = {
+const PAGES: Record<Role, Array<{ path: string | (() => Promise<string>); name: string; ready: (page: Page) => Promise<unknown> }>> = {
   anonymous: [
     { path: "/", name: "home", ready: (p) => p.getByRole("link", { name: /check a design/i }).waitFor() },
     { path: "/sign-in", name: "sign-in", ready: (p) => p.getByLabel(/^password/i).waitFor() },
@@ -40,6 +41,15 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
     { path: `/find-a-design?${ADVICE_EXAMPLE}`, name: "find-a-design", ready: findADesignAnswered },
+    { path: "/designs", name: "designs", ready: (p) => p.getByTestId("designs-table").waitFor() },
+    { path: async () => `/designs/compare?ids=${(await demoDesignIds()).join(",")}`, name: "designs-compare", ready: async (p) => { await p.getByTestId("comparison-table").waitFor(); await p.getByTestId("attenuation-chart").locator(".recharts-line").nth(2).waitFor(); } },
+    { path: "/quotes", name: "quotes", ready: (p) => p.getByTestId("quotes-table").waitFor() },
+    { path: async () => `/quotes/${await demoQuoteId("open")}`, name: "quote-open", ready: (p) => p.getByTestId("price-table").waitFor() },
+    { path: async () => `/quotes/${await demoQuoteId("expired")}`, name: "quote-expired", ready: (p) => p.getByRole("button", { name: /re-quote/i }).waitFor() },
+    { path: async () => `/quotes/${await demoQuoteId("open")}/order`, name: "order-form", ready: (p) => p.getByRole("button", { name: /place the order/i }).waitFor() },
+    { path: "/orders", name: "orders", ready: (p) => p.getByTestId("orders-table").waitFor() },
+    { path: async () => `/orders/${await demoOrderId("awaiting_payment")}`, name: "order-to-pay", ready: (p) => p.getByRole("button", { name: /^pay /i }).waitFor() },
+    { path: async () => `/orders/${await demoOrderId("refunded")}`, name: "order-refunded", ready: (p) => p.getByTestId("payments-table").waitFor() },
   ],
   operator: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -63,6 +73,9 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/find-a-design", name: "find-a-design", ready: (p) => p.getByTestId("no-search-yet").waitFor() },
     { path: "/quality/calibration", name: "calibration", ready: (p) => p.getByTestId("latest-run").waitFor() },
     { path: "/quality/control-charts", name: "control-charts", ready: (p) => p.locator("[data-group]").first().waitFor() },
+    { path: "/orders", name: "orders", ready: (p) => p.getByTestId("orders-table").waitFor() },
+    { path: async () => `/orders/${await demoOrderId("paid")}`, name: "order-paid", ready: (p) => p.getByTestId("refund-form").waitFor() },
+    { path: "/quotes", name: "quotes", ready: (p) => p.getByTestId("quotes-table").waitFor() },
     { path: "/design-check", name: "design-check", ready: async (p) => { await designCheckReady(p); await p.getByTestId("make-panel").getByTestId("total-price").waitFor(); } },
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
@@ -73,6 +86,22 @@ async function findADesignAnswered(page: Page) {
   await page.getByTestId("advice").and(page.locator('[data-current="true"]')).waitFor({ timeout: 60_000 });
   await page.getByTestId("advice-chart").locator(".recharts-scatter-symbol").first().waitFor();
   await page.getByTestId("front-table").waitFor();
+}
+
+// The demo's records of the first customer organisation, for the pages about one record.
+const firstCustomer = async () => (await User.findOne({ where: { email: "customer@demo.test" } }))!.organizationId!;
+async function demoDesignIds(): Promise<string[]> {
+  return (await Design.findAll({ where: { organizationId: await firstCustomer() }, order: [["name", "ASC"]], limit: 3 })).map((d) => d.id);
+}
+async function demoQuoteId(status: "open" | "expired"): Promise<string> {
+  const organizationId = await firstCustomer();
+  const quotes = await Quote.findAll({ where: { organizationId }, order: [["number", "ASC"]] });
+  const ordered = new Set((await Order.findAll({ where: { organizationId } })).map((o) => o.quoteId));
+  const now = new Date();
+  return quotes.find((q) => (status === "expired" ? q.expiresAt < now : q.expiresAt > now && !ordered.has(q.id)))!.id;
+}
+async function demoOrderId(status: string): Promise<string> {
+  return (await Order.findOne({ where: { organizationId: await firstCustomer(), status }, order: [["number", "ASC"]] }))!.id;
 }
 
 async function designCheckReady(page: Page) {
@@ -124,7 +153,7 @@ async function walk(role: Role) {
   for (const size of SIZES) {
     await page.setViewportSize({ width: size.width, height: size.height });
     for (const p of PAGES[role]) {
-      await page.goto(`${h.baseUrl}${p.path}`);
+      await page.goto(`${h.baseUrl}${typeof p.path === "string" ? p.path : await p.path()}`);
       await p.ready(page);
       await page.waitForTimeout(250); // drawings measure their width after the first paint
       const where = `${role} ${p.name} at ${size.name}`;

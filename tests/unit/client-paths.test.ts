@@ -22,6 +22,30 @@ describe("paths", () => {
   });
 });
 
+describe("ordering paths", () => {
+  it("a list's search, status, sort and page go in its address only when they matter", () => {
+    expect(paths.orders.href()).toBe("/orders");
+    expect(paths.orders.href({ status: "paid", page: 1 })).toBe("/orders?status=paid");
+    expect(paths.orders.href({ q: "O-1002", sort: "total", dir: "asc", page: 2 })).toBe("/orders?q=O-1002&sort=total&dir=asc&page=2");
+    expect(paths.quotes.href({ status: "expired" })).toBe("/quotes?status=expired");
+    expect(paths.designs.href({ q: "can" })).toBe("/designs?q=can");
+  });
+
+  it("records and the comparison by id; a saved design opens the design check with its own search", () => {
+    expect(paths.order.href("a/b")).toBe("/orders/a%2Fb");
+    expect(paths.orderNew.href("q1")).toBe("/quotes/q1/order");
+    expect(paths.designCompare.href(["a", "b"])).toBe("/designs/compare?ids=a,b");
+    expect(paths.designCheck.href()).toBe("/design-check");
+    expect(paths.designCheck.href(new URLSearchParams({ shape: "box", saved: "x" }))).toBe("/design-check?shape=box&saved=x");
+  });
+
+  it("the customer's menu has designs, quotes and orders; the planner's has the orders", () => {
+    expect(navItemsFor({ role: "customer" }).map((i) => i.label)).toEqual(expect.arrayContaining(["Designs", "Quotes", "Orders"]));
+    expect(navItemsFor({ role: "admin" }).map((i) => i.label)).toContain("Orders");
+    expect(navItemsFor({ role: "operator" }).map((i) => i.label)).not.toContain("Orders");
+  });
+});
+
 describe("safeRedirect", () => {
   it("accepts same-origin paths", () => {
     expect(safeRedirect("/account")).toBe("/account");

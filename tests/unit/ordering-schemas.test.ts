@@ -1,13 +1,12 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { defaultPriceList, partsForDesign, priceBuildUp } from "../../shared/fabrication";
+import { customerPrice, defaultPriceList, partsForDesign, priceBuildUp } from "../../shared/fabrication";
 import { contractPredictionExample, quoteConfigurationExample } from "../../shared/schemas/contract-examples";
 import { designSummary } from "../../shared/schemas/design";
 import { documentNumber, parseDocumentNumber } from "../../shared/schemas/documents";
 import { orderCreateSchema, refundCreateSchema } from "../../shared/schemas/order";
 import { priceListSchema } from "../../shared/schemas/pricing";
 import { closestLibraryMaterial, forFabrication, quoteConfigurationSchema, quoteCreateSchema } from "../../shared/schemas/quote";
-import { sellingLines } from "../../server/presenters/quote";
 import { pdfText } from "../../server/documents/pdf";
 
 const paths = (r: { success: boolean; error?: { issues: Array<{ path: PropertyKey[] }> } }) => (r.error?.issues ?? []).map((i) => i.path.join("."));
@@ -79,7 +78,7 @@ describe("the shop rates document", () => {
   });
 });
 
-describe("selling lines", () => {
+describe("a quote's price as the customer reads it (customerPrice, as for an estimate)", () => {
   const cup = (t: number, gap: number) =>
     partsForDesign({ shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 60 }, cornerRadius_mm: 3, layers: [{ thickness_mm: t, gap_mm: gap, materialId: "ni80", density_kg_m3: 8740 }, { thickness_mm: t, materialId: "ni50", density_kg_m3: 8250 }] });
 
@@ -87,7 +86,7 @@ describe("selling lines", () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 500 }), fc.constantFrom(0.5, 1, 1.5), fc.integer({ min: 0, max: 20 }), fc.integer({ min: 0, max: 60 }), (quantity, t, gap, margin) => {
         const price = priceBuildUp({ parts: cup(t, gap), quantity, priceList: { ...defaultPriceList, marginPercent: margin } });
-        const lines = sellingLines(price);
+        const lines = customerPrice(price).lines;
         expect(lines.reduce((s, l) => s + l.total_cents, 0)).toBe(price.subtotal_cents + price.margin_cents);
         expect(lines.every((l) => !("unit_cents" in l))).toBe(true);
         expect(price.subtotal_cents + price.margin_cents - price.discount_cents + price.rounding_cents).toBe(price.total_cents);

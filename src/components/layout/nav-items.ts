@@ -35,9 +35,9 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   switch (user.role) {
     case "customer":
-      return [home, findADesign, ...tools, account];
+      return [home, findADesign, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...quality, ...tools, account];
+      return [home, { label: "Orders", to: paths.orders.href() }, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...quality, ...tools, account];
     case "qa":
       return [home, ...quality, ...tools, account];
     case "operator":

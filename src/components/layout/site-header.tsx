@@ -76,7 +76,7 @@ export function SiteHeader({ user }: { user: User | null }) {
                 type="button"
                 onClick={signOut}
                 disabled={logout.isPending}
-                className="inline-flex min-h-touch items-center gap-2 rounded-md border border-flux-500 px-3 font-semibold text-white hover:bg-flux-800 disabled:opacity-60"
+                className="inline-flex min-h-touch items-center gap-2 whitespace-nowrap rounded-md border border-flux-500 px-3 font-semibold text-white hover:bg-flux-800 disabled:opacity-60"
               >
                 {logout.isPending && <Spinner />}
                 {logout.isPending ? "Signing out…" : "Sign out"}

@@ -12,9 +12,10 @@ type Line = { key: string; label: string; quantity: number; total_cents: number;
  * A price estimate as its viewer may read it (the server decides what is sent): the shop's staff
  * see each line's rate and the margin; a customer sees each line's amount with the margin already
  * spread over it. Then the price per piece and the total, then the nesting on the sheet.
- * Used by the flat-blank page (one blank) and the design check (the whole nested design).
+ * Used by the flat-blank page (one blank), the design check (the whole nested design) and a quote
+ * (`fixed`: the build-up frozen when it was made, without the nesting).
  */
-export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEstimate; dimmed?: boolean }) {
+export function PriceBreakdown({ estimate: data, dimmed, fixed }: { estimate: Pick<PriceEstimate, "price" | "currency" | "priceListVersion"> & { nesting?: PriceEstimate["nesting"] }; dimmed?: boolean; fixed?: boolean }) {
   const money = (c: number) => formatMoney(c, data.currency);
   const p = data.price;
   // a line the design does not use (no bends on a drawn can) is left out of the reading, not of the sum
@@ -46,12 +47,12 @@ export function PriceBreakdown({ estimate: data, dimmed }: { estimate: PriceEsti
         cardsBelow={520}
       />
       <p className="text-meta text-flux-600">
-        Prices in {data.currency}, an estimate from price list version {data.priceListVersion}; a quote fixes the price. Setup is spread over the quantity: {money(p.setupPerUnit_cents)} a piece.
+        {fixed ? `Prices in ${data.currency}, fixed by this quote with price list version ${data.priceListVersion}.` : `Prices in ${data.currency}, an estimate from price list version ${data.priceListVersion}; a quote fixes the price.`} Setup is spread over the quantity: {money(p.setupPerUnit_cents)} a piece.
         {p.view === "shop" ? " You see the shop's rates and margin; customers see each line's amount with the margin in it, and no rates." : ""}
       </p>
-      {data.nesting.map((g) => (
+      {(data.nesting ?? []).map((g) => (
         <div key={`${g.materialId}@${g.thickness_mm}`} className="space-y-2">
-          <h3 className="text-h4">How the blanks sit on the stock sheet{data.nesting.length > 1 ? ` · ${g.materialId} ${g.thickness_mm} mm` : ""}</h3>
+          <h3 className="text-h4">How the blanks sit on the stock sheet{(data.nesting ?? []).length > 1 ? ` · ${g.materialId} ${g.thickness_mm} mm` : ""}</h3>
           {g.sheet ? <NestingSvg group={g} /> : <StatusNote tone="info">No stock sheet of {g.materialId} {g.thickness_mm} mm is listed; material is priced at the planner's assumed use of {(g.utilisation * 100).toFixed(0)} % of the sheet.</StatusNote>}
         </div>
       ))}

@@ -15,6 +15,10 @@ export interface Column<R> {
   sortable?: boolean;
   /** the column's name in the sort choice of the card layout, when its header is not plain text */
   sortLabel?: string;
+  /** in the table's header row only (a sort button); the cards name the value with `header` */
+  headerControl?: ReactNode;
+  /** how the rows are sorted by this column, for the header's aria-sort */
+  sorted?: "ascending" | "descending";
 }
 
 /** The order the rows are shown in; the caller sorts them and is told what the person picked. */
@@ -107,7 +111,7 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
                   key={c.key}
                   scope="col"
                   className={`py-1.5 pr-3 font-semibold last:pr-0 ${align(c.align)}`}
-                  aria-sort={sort && c.sortable ? (sort.key === c.key ? (sort.descending ? "descending" : "ascending") : "none") : undefined}
+                  aria-sort={sort && c.sortable ? (sort.key === c.key ? (sort.descending ? "descending" : "ascending") : "none") : c.sorted}
                 >
                   {sort && c.sortable ? (
                     <button
@@ -119,7 +123,7 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
                       <SortMark state={sort.key === c.key ? (sort.descending ? "descending" : "ascending") : "none"} />
                     </button>
                   ) : (
-                    c.header
+                    (c.headerControl ?? c.header)
                   )}
                 </th>
               ))}

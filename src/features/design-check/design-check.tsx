@@ -1,6 +1,7 @@
 import { useEffect, useMemo, useState } from "react";
 import { useQueries, useQuery } from "@tanstack/react-query";
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
+import { meQueryOptions } from "../../api/auth";
 import { blamesInputs } from "../../api/client";
 import { materialsQueryOptions } from "../../api/materials";
 import { predictionQueryOptions, sweepQueryOptions, type PredictionResult, type SweepPoint, type SweepRange } from "../../api/predictions";
@@ -22,6 +23,7 @@ import { CrossSection } from "./cross-section";
 import { DesignForm } from "./design-form";
 import { chartRangeFromParams, chartRangeToParams, designFromParams, designToParams } from "./design-url";
 import { MakePanel } from "./make-panel";
+import { SavePanel } from "./save-panel";
 import { checkDraft, describeDesign, designFrequencyUnits, draftErrors, type DesignDraft, type DesignUnits } from "./design-model";
 import { frequencyText, Headline, HoleTable, LayerBars, Warnings } from "./results";
 
@@ -35,13 +37,19 @@ interface Variant {
   attenuation_db: number;
 }
 
-/** Everything the address bar holds: the design, and the chart's range. */
+/** Everything the address bar holds: the design, the chart's range, and the saved design it was opened from. */
 interface PageState {
   design: DesignDraft;
   chart: ChartRangeDraft;
+  saved: string | null;
 }
-const readPage = (p: URLSearchParams): PageState => ({ design: designFromParams(p), chart: chartRangeFromParams(p, defaultRange()) });
-const writePage = (s: PageState): URLSearchParams => chartRangeToParams(s.chart, designToParams(s.design));
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const readPage = (p: URLSearchParams): PageState => ({ design: designFromParams(p), chart: chartRangeFromParams(p, defaultRange()), saved: UUID.test(p.get("saved") ?? "") ? p.get("saved") : null });
+const writePage = (s: PageState): URLSearchParams => {
+  const p = chartRangeToParams(s.chart, designToParams(s.design));
+  if (s.saved) p.set("saved", s.saved);
+  return p;
+};
 
 const dbText = (figure: { attenuation_db: number; beyondLimit: boolean }) => (figure.beyondLimit ? `over ${figure.attenuation_db.toFixed(0)} dB` : `${figure.attenuation_db.toFixed(1)} dB`);
 
@@ -61,6 +69,7 @@ export function DesignCheck() {
   const draft = page.design;
   const setDraft = (design: DesignDraft, kind: "typing" | "commit") => setPage({ ...page, design }, kind);
   const materials = useQuery(materialsQueryOptions);
+  const me = useQuery(meQueryOptions).data;
   const library = materials.data ?? [];
   const nameOf = (id: string) => id;
 
@@ -130,9 +139,18 @@ export function DesignCheck() {
       <p role="status" className="sr-only" data-testid="result-announcement">
         {announcement}
       </p>
-      <Panel title="The design" className="min-w-0">
-        <DesignForm draft={draft} onChange={setDraft} onCommit={commit} errors={errors} materials={library} materialsError={materials.isError} />
-      </Panel>
+      <div className="min-w-0 space-y-6">
+        <Panel title="The design" className="min-w-0">
+          <DesignForm draft={draft} onChange={setDraft} onCommit={commit} errors={errors} materials={library} materialsError={materials.isError} />
+        </Panel>
+        {me?.role === "customer" && (
+          <PanelBoundary name="saving and quoting">
+            <Panel title="Save and quote">
+              <SavePanel request={checked.request} savedId={page.saved} predicted_db={result?.attenuation_db ?? null} onSaved={(id) => setPage({ ...page, saved: id }, "commit")} />
+            </Panel>
+          </PanelBoundary>
+        )}
+      </div>
 
       {/* On a phone or tablet the form fills the screen: the headline figures stay in view at its foot while the person edits. */}
       <ResultSummary result={result} frequency={frequency} units={units} working={working} problem={checked.errors !== null || inputProblem} />
