@@ -48,6 +48,15 @@ export const paths = {
       return query ? `/admin/users?${query}` : "/admin/users";
     },
   },
+  // the shop floor
+  floorBoard: { path: "/floor", href: (search?: string) => (search ? `/floor?${search}` : "/floor") },
+  scanStation: { path: "/floor/scan", href: () => "/floor/scan" },
+  floorJob: { path: "/floor/jobs/:id", href: (id: string) => `/floor/jobs/${encode(id)}` },
+  floorLot: { path: "/floor/lots/:id", href: (id: string) => `/floor/lots/${encode(id)}` },
+  floorRelease: { path: "/floor/release", href: () => "/floor/release" },
+  furnaceRuns: { path: "/floor/furnace", href: () => "/floor/furnace" },
+  heats: { path: "/floor/heats", href: () => "/floor/heats" },
+  shipping: { path: "/floor/shipping", href: () => "/floor/shipping" },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

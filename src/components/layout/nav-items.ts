@@ -30,9 +30,20 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     case "customer":
       return [home, ...tools, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
+      return [home, ...floorFor("admin"), { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
     case "operator":
     case "qa":
-      return [home, ...tools, account];
+      return [home, ...floorFor(user.role), ...tools, account];
   }
+}
+
+/** The shop floor's pages each staff role works in. */
+function floorFor(role: "admin" | "operator" | "qa"): NavItem[] {
+  const scan: NavItem = { label: "Scan", to: paths.scanStation.href() };
+  const board: NavItem = { label: "Floor board", to: paths.floorBoard.href(), end: true };
+  const furnace: NavItem = { label: "Furnace", to: paths.furnaceRuns.href() };
+  const heats: NavItem = { label: "Heats", to: paths.heats.href() };
+  if (role === "qa") return [scan, heats];
+  if (role === "operator") return [scan, board, furnace, heats];
+  return [board, { label: "Release", to: paths.floorRelease.href() }, furnace, heats, { label: "Shipping", to: paths.shipping.href() }, scan];
 }
