@@ -7,6 +7,7 @@ import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { ButtonLink } from "../components/ui/button";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { BoardSide, FloorJobList, StepTiles } from "../features/floor/floor-board";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -19,6 +20,7 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor" title="Floor board" lead="Open work by step, what is late, lots waiting for the furnace and lots on hold." />
       <div className="mb-6 flex flex-wrap gap-3">
         <ButtonLink variant="primary" to={paths.scanStation.href()}>

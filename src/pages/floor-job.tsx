@@ -5,6 +5,7 @@ import { jobQueryOptions } from "../api/jobs";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { JobDetail } from "../features/floor/job-detail";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
@@ -18,6 +19,7 @@ export function Component() {
   const job = useQuery(jobQueryOptions(id!));
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor · job" title={job.data ? `Job ${job.data.code}` : "Job"} lead={job.data?.part.description} />
       <PanelBoundary name="the job">
         <JobDetail id={id!} />

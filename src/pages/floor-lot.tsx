@@ -5,6 +5,7 @@ import { lotQueryOptions } from "../api/jobs";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { LotDetail } from "../features/floor/lot-detail";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request, params }: LoaderFunctionArgs) => {
@@ -18,6 +19,7 @@ export function Component() {
   const lot = useQuery(lotQueryOptions(id!));
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor · lot" title={lot.data ? `Lot ${lot.data.number}` : "Lot"} lead={lot.data ? `${lot.data.pieces} pieces of ${lot.data.material.name} for ${lot.data.order.organization.name}` : undefined} />
       <PanelBoundary name="the lot">
         <LotDetail id={id!} />

@@ -5,6 +5,7 @@ import { ordersQueryOptions } from "../api/orders";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { PaidOrders, paidOrdersFilters, RecentLots, recentLotsFilters } from "../features/floor/release-orders";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -16,6 +17,7 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Planning" title="Release to the floor" lead="Paid orders become jobs and lots. Change a job's routing on its page before work starts; print travelers and lot labels for the floor." />
       <div className="space-y-6">
         <PanelBoundary name="the paid orders">

@@ -5,6 +5,7 @@ import { lotsQueryOptions } from "../api/jobs";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { HydrogenCaution, RecordRun, RunList, runsFilters, waitingLotsFilters } from "../features/floor/furnace-runs";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -20,6 +21,7 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor" title="Hydrogen anneal" lead="Load lots of one alloy, record the run, and see it checked against the alloy's anneal window." />
       <div className="space-y-6">
         <HydrogenCaution />

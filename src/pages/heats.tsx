@@ -7,6 +7,7 @@ import { materialsQueryOptions } from "../api/materials";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { HeatList, ReceiveHeat } from "../features/floor/heats";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -21,6 +22,7 @@ export function Component() {
   const receives = me?.role === "operator" || me?.role === "admin";
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor" title="Material heats" lead="Each delivery of sheet with its heat number and mill certificate; material issue links every job to the heat it was cut from." />
       <div className="space-y-6">
         {receives && (

@@ -3,6 +3,7 @@ import type { LoaderFunctionArgs } from "react-router-dom";
 import { requireRole } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { ScanStation } from "../features/scan-station/scan-station";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -13,6 +14,7 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Shop floor" title="Scan station" />
       <PanelBoundary name="the scan station">
         <ScanStation />

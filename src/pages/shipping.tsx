@@ -4,6 +4,7 @@ import { lotsQueryOptions } from "../api/jobs";
 import { requireRole, warm } from "../lib/guards";
 import { PanelBoundary } from "../components/error-boundary";
 import { PageHeader } from "../components/ui/panel";
+import { FloorNav } from "../features/floor/floor-nav";
 import { packedLotsFilters, ReadyToShip } from "../features/floor/shipping";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
@@ -15,6 +16,7 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
+      <FloorNav />
       <PageHeader eyebrow="Planning" title="Shipping" lead="Lots that have passed pack, by order. Record each parcel with its carrier and tracking number; the last one ships the order." />
       <PanelBoundary name="the lots ready to ship">
         <ReadyToShip />

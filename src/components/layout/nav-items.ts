@@ -37,13 +37,10 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   }
 }
 
-/** The shop floor's pages each staff role works in. */
+/** The shop floor in the main menu; its own pages link to each other (features/floor/floor-nav.tsx). */
 function floorFor(role: "admin" | "operator" | "qa"): NavItem[] {
+  if (role === "admin") return [{ label: "Shop floor", to: paths.floorBoard.href() }];
   const scan: NavItem = { label: "Scan", to: paths.scanStation.href() };
-  const board: NavItem = { label: "Floor board", to: paths.floorBoard.href(), end: true };
-  const furnace: NavItem = { label: "Furnace", to: paths.furnaceRuns.href() };
-  const heats: NavItem = { label: "Heats", to: paths.heats.href() };
-  if (role === "qa") return [scan, heats];
-  if (role === "operator") return [scan, board, furnace, heats];
-  return [board, { label: "Release", to: paths.floorRelease.href() }, furnace, heats, { label: "Shipping", to: paths.shipping.href() }, scan];
+  if (role === "qa") return [scan, { label: "Heats", to: paths.heats.href() }];
+  return [scan, { label: "Floor board", to: paths.floorBoard.href(), end: true }];
 }

@@ -269,7 +269,7 @@ export function RunList() {
             testId="furnace-runs"
             cardsBelow={700}
             columns={[
-              { key: "number", header: "Run", primary: true, className: "font-mono font-semibold", cell: (r) => r.number },
+              { key: "number", header: "Run", primary: true, className: "whitespace-nowrap font-mono font-semibold", cell: (r) => r.number },
               { key: "when", header: "Ran", className: "whitespace-nowrap", cell: (r) => formatDateTime(r.ranAt) },
               { key: "load", header: "Load", cell: (r) => `${r.furnaceName} · ${r.materialId} · ${r.lotNumbers.join(", ")} · ${r.load_kg.toFixed(1)} kg` },
               { key: "peak", header: "Peak", align: "end", className: "tabular font-mono", cell: (r) => `${r.peakTemperature_c} °C` },

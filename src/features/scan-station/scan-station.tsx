@@ -14,7 +14,7 @@ import { Button } from "../../components/ui/button";
 import { StatusNote } from "../../components/ui/status-note";
 import { CameraScanner, cameraPossible } from "./camera-scanner";
 import { dataNeeded, StepDataForm, type DataNeed, type StepData } from "./step-data-form";
-import { actionForStep, projectJob, readScannedText, stepCautions } from "./station-model";
+import { actionForStep, movesJobOn, projectJob, readScannedText, stepCautions } from "./station-model";
 import { useScanQueue, type Feedback } from "./use-scan-queue";
 
 const STATION_KEY = "fluxwright.station";
@@ -92,8 +92,10 @@ export function ScanStation() {
       setCode(read.code);
       if (read.kind === "step") {
         const cached = queryClient.getQueryData<JobJson>(jobKeys.byCode(read.code));
-        const action = actionForStep(cached ? projectJob(cached, queue) : null, read.step);
-        if (cached) move(cached, read.step, action);
+        const projected = cached ? projectJob(cached, queue) : null;
+        const action = actionForStep(projected, read.step);
+        // a repeat or a scan out of turn goes as it is: the server answers "already recorded" or says why not
+        if (cached && projected && movesJobOn(projected, read.step, action)) move(cached, read.step, action);
         else void send(read.code, read.step, action);
       }
     },

@@ -22,6 +22,7 @@ export interface PendingScan {
 }
 
 export interface Projection {
+  keys: StepKey[];
   statuses: StepStatus[];
   next: { step: StepKey; action: ScanAction } | null;
   /** queued scans of this job that move it on */
@@ -49,16 +50,21 @@ export function projectJob(job: Pick<JobJson, "code" | "steps">, queue: readonly
     statuses[i] = scan.action === "start" ? "started" : "completed";
     pending += 1;
   }
-  return { statuses, next: nextOf(), pending };
+  return { keys: job.steps.map((s) => s.key), statuses, next: nextOf(), pending };
 }
 
 /**
  * What a step barcode scanned at the station asks for: the job's next move when it is that step;
- * otherwise a start (the server then says why it cannot, in the operator's words).
+ * a completion for a step already done (the server answers "already recorded"); otherwise a start
+ * (the server then says why it cannot, in the operator's words).
  */
 export function actionForStep(projection: Projection | null, step: StepKey): ScanAction {
-  return projection?.next?.step === step ? projection.next.action : "start";
+  if (projection?.next?.step === step) return projection.next.action;
+  return projection?.statuses[projection.keys.indexOf(step)] === "completed" ? "complete" : "start";
 }
+
+/** Whether this scan would be a new event for the job as the device knows it (only then is step data asked for). */
+export const movesJobOn = (projection: Projection, step: StepKey, action: ScanAction) => projection.next?.step === step && projection.next.action === action;
 
 const PRESS =
   "Press and shear work: keep guards, light curtains and two-hand controls in service, wear cut-resistant gloves for sheared edges, and follow the site's procedures and local machine-safety rules.";
