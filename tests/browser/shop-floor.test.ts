@@ -5,10 +5,10 @@
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
 import { documentNumber } from "../../shared/schemas/documents";
-import { Job, Lot, Scan, User } from "../../server/models";
+import { Job, Lot, MaterialHeat, Order, Scan, User } from "../../server/models";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 import { buildPaidOrder, waitFor } from "../support/ordering";
-import { arrangeReadyForFurnace, buildHeat } from "../support/shop-floor";
+import { arrangeFinished, arrangeReadyForFurnace, buildHeat, buildReleasedOrder } from "../support/shop-floor";
 
 const h = useBrowser();
 const TABLET = { width: 820, height: 1180 };
@@ -173,6 +173,44 @@ describe("the shop floor, release to hold", () => {
     expect(steps.length).toBeGreaterThan(0);
     for (const text of steps) expect(text).toMatch(/Hydrogen anneal/);
     await h.shot(page, "floor-board-filtered-tablet");
+    await page.close();
+  });
+
+  it("receives a heat with its mill certificate and ships packed lots (the planner, laptop)", async () => {
+    const buyer = (await User.findOne({ where: { email: "customer@demo.test" } }))!;
+    const { order, lots } = await buildReleasedOrder(h.app, { buyer });
+    for (const lot of lots) await arrangeFinished(lot.id);
+    const { page, consoleErrors } = await h.newPage();
+    await page.setViewportSize(LAPTOP);
+    await signInAs(page, "admin");
+
+    await page.goto(`${h.baseUrl}/floor/heats`);
+    const form = page.getByTestId("heat-form");
+    await form.getByRole("button", { name: /record the delivery/i }).click();
+    await form.getByText(/give the heat number/i).waitFor(); // refused beside the field, nothing recorded
+    const heatNumber = `HB${Date.now().toString(36).toUpperCase()}`;
+    await form.getByLabel(/^heat number/i).fill(heatNumber);
+    await form.getByLabel(/^alloy/i).selectOption("ni80");
+    await form.getByLabel(/^gauge/i).fill("1");
+    await form.getByLabel(/^supplier/i).fill("Northgate Strip (demo)");
+    await form.getByLabel(/^quantity received/i).fill("12");
+    await form.getByLabel(/mill certificate/i).setInputFiles({ name: "cert.pdf", mimeType: "application/pdf", buffer: Buffer.from("%PDF-1.4\n1 0 obj<<>>endobj\ntrailer<<>>\n%%EOF\n") });
+    await form.getByRole("button", { name: /record the delivery/i }).click();
+    await page.getByText(`Heat ${heatNumber} received with its mill certificate.`).waitFor();
+    await page.getByTestId("heats-table").getByText(heatNumber).waitFor();
+    await h.shot(page, "floor-heats-laptop");
+    expect((await MaterialHeat.findOne({ where: { heatNumber } }))!.millCertificateFileId).toBeTruthy();
+
+    await page.goto(`${h.baseUrl}/floor/shipping`);
+    const parcel = page.getByTestId("ship-form").filter({ hasText: lots[0].number });
+    await parcel.getByLabel(/^carrier/i).fill("Parcel carrier (demo)");
+    await parcel.getByLabel(/^tracking number/i).fill("TRK-0001-DEMO");
+    await parcel.getByRole("button", { name: /record the shipment/i }).click();
+    await page.getByRole("button", { name: /yes, it has left/i }).click();
+    await page.getByTestId("shipped-note").filter({ hasText: /order is complete/i }).waitFor();
+    await h.shot(page, "floor-shipping-laptop");
+    expect((await Order.findByPk(order.id))!.status).toBe("shipped");
+    expect(consoleErrors.filter((e) => !/status of (400|404)/.test(e))).toEqual([]);
     await page.close();
   });
 });

@@ -43,7 +43,12 @@ export function ScanStation() {
   const lastHeat = useRef<Record<string, string>>({});
   const field = useRef<HTMLInputElement>(null);
 
-  const onFeedback = useCallback((f: Feedback) => setFeedback(f), []);
+  // a queued scan the server refused must not scroll away under the next answer: kept until dismissed
+  const [refusedFromQueue, setRefusedFromQueue] = useState<Array<Extract<Feedback, { kind: "refused" }>>>([]);
+  const onFeedback = useCallback((f: Feedback) => {
+    setFeedback(f);
+    if (f.kind === "refused" && f.replayed) setRefusedFromQueue((list) => [...list, f]);
+  }, []);
   const { queue, online, sending, submit } = useScanQueue(onFeedback);
   const job = useQuery({ ...jobByCodeQueryOptions(code), networkMode: "always" });
   const shown = job.data ?? null;
@@ -153,6 +158,23 @@ export function ScanStation() {
       </form>
 
       {camera && <CameraScanner onCode={onScanned} />}
+
+      {refusedFromQueue.length > 0 && (
+        <div className="space-y-2" data-testid="queue-refusals">
+          <StatusNote tone="danger" word="Sent from the queue but not recorded">
+            <ul className="list-disc pl-5">
+              {refusedFromQueue.map((f) => (
+                <li key={f.scan.idempotencyKey}>
+                  {f.scan.code} {f.scan.action} {stepLabels[f.scan.step as StepKey]?.toLowerCase() ?? f.scan.step}: {f.error.message}
+                </li>
+              ))}
+            </ul>
+          </StatusNote>
+          <Button variant="secondary" onClick={() => setRefusedFromQueue([])}>
+            Seen, dismiss
+          </Button>
+        </div>
+      )}
 
       <div aria-live="polite" aria-atomic="true">
         {feedback && <FeedbackBanner feedback={feedback} />}
