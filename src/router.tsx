@@ -64,6 +64,7 @@ export const routes: RouteObject[] = [
           { path: paths.account.path, lazy: page(() => import("./pages/account")) },
           { path: paths.designCheck.path, lazy: page(() => import("./pages/design-check")) },
           { path: paths.flatBlank.path, lazy: page(() => import("./pages/flat-blank")) },
+          { path: paths.findADesign.path, lazy: page(() => import("./pages/find-a-design")) },
           { path: paths.adminShopRates.path, lazy: page(() => import("./pages/admin-shop-rates")) },
           { path: paths.adminMaterials.path, lazy: page(() => import("./pages/admin-materials")) },
           { path: paths.adminUsers.path, lazy: page(() => import("./pages/admin-users")) },

@@ -22,7 +22,12 @@ export const paths = {
   resetPassword: { path: "/reset-password/:token", href: (token: string) => `/reset-password/${encode(token)}` },
   invitation: { path: "/invitation/:token", href: (token: string) => `/invitation/${encode(token)}` },
   account: { path: "/account", href: () => "/account" },
-  designCheck: { path: "/design-check", href: () => "/design-check" },
+  designCheck: {
+    path: "/design-check",
+    // a design's parameters (design-url.ts) open the check with that design filled in
+    href: (design?: URLSearchParams) => (design && design.size ? `/design-check?${design.toString()}` : "/design-check"),
+  },
+  findADesign: { path: "/find-a-design", href: () => "/find-a-design" },
   flatBlank: {
     path: "/flat-blank",
     // a prefill opens the calculator with these inputs (the design check links each part here)

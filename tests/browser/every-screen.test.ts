@@ -18,6 +18,9 @@ const SIZES = [
 
 type Role = "anonymous" | "customer" | "operator" | "qa" | "admin";
 
+/** The design advisor's example requirement: 60 dB at 60 Hz, 100 µT across a can 50 mm × 120 mm inside. */
+const ADVICE_EXAMPLE = "shape=cylinder&d=50&l=120&att=60&f=60&B=100&dir=transverse&qty=10&layers=3&lu=mm&fu=uT&fq=Hz";
+
 /** What each role can open, and what shows the page has finished arriving. */
 const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page) => Promise<unknown> }>> = {
   anonymous: [
@@ -36,6 +39,7 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/design-check", name: "design-check", ready: async (p) => { await designCheckReady(p); await p.getByTestId("make-panel").getByTestId("total-price").waitFor(); } },
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
+    { path: `/find-a-design?${ADVICE_EXAMPLE}`, name: "find-a-design", ready: findADesignAnswered },
   ],
   operator: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -66,11 +70,18 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/floor/heats", name: "heats", ready: (p) => p.getByTestId("heats-table").waitFor() },
     { path: "/floor/shipping", name: "shipping", ready: (p) => p.getByRole("main").getByRole("heading", { level: 2 }).first().waitFor() },
     { path: "/floor/scan", name: "scan-station", ready: (p) => p.getByLabel(/scan a traveler/i).waitFor() },
+    { path: "/find-a-design", name: "find-a-design", ready: (p) => p.getByTestId("no-search-yet").waitFor() },
     { path: "/design-check", name: "design-check", ready: async (p) => { await designCheckReady(p); await p.getByTestId("make-panel").getByTestId("total-price").waitFor(); } },
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
   ],
 };
+
+async function findADesignAnswered(page: Page) {
+  await page.getByTestId("advice").and(page.locator('[data-current="true"]')).waitFor({ timeout: 60_000 });
+  await page.getByTestId("advice-chart").locator(".recharts-scatter-symbol").first().waitFor();
+  await page.getByTestId("front-table").waitFor();
+}
 
 async function designCheckReady(page: Page) {
   await page.getByTestId("attenuation-db").filter({ hasText: /dB/ }).waitFor();

@@ -26,11 +26,13 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     { label: "Design check", to: paths.designCheck.href() },
     { label: "Flat blank", to: paths.flatBlank.href() },
   ];
+  // the design advisor: customers start there, the planner answers their questions with it
+  const findADesign: NavItem = { label: "Find a design", to: paths.findADesign.href() };
   switch (user.role) {
     case "customer":
-      return [home, ...tools, account];
+      return [home, findADesign, ...tools, account];
     case "admin":
-      return [home, ...floorFor("admin"), { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
+      return [home, ...floorFor("admin"), { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...tools, account];
     case "operator":
     case "qa":
       return [home, ...floorFor(user.role), ...tools, account];

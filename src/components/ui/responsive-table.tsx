@@ -1,4 +1,5 @@
-import { Fragment, type ReactNode } from "react";
+import { Fragment, useId, type ReactNode } from "react";
+import { control } from "./field";
 import { useElementWidth } from "../../lib/use-element-width";
 
 export interface Column<R> {
@@ -10,6 +11,18 @@ export interface Column<R> {
   /** the cell that names the row: the card's title on a narrow screen */
   primary?: boolean;
   className?: string;
+  /** the rows may be ordered by this column (when the table is given a `sort`) */
+  sortable?: boolean;
+  /** the column's name in the sort choice of the card layout, when its header is not plain text */
+  sortLabel?: string;
+}
+
+/** The order the rows are shown in; the caller sorts them and is told what the person picked. */
+export interface TableSort {
+  key: string;
+  descending: boolean;
+  /** a column's header clicked (no direction: the caller decides), or a column and direction picked */
+  onSort: (key: string, descending?: boolean) => void;
 }
 
 export interface FooterLine {
@@ -34,6 +47,7 @@ interface Props<R> {
   cardsBelow?: number;
   className?: string;
   rowClassName?: (row: R) => string;
+  sort?: TableSort;
 }
 
 const align = (a?: "start" | "end") => (a === "end" ? "text-right" : "text-left");
@@ -43,14 +57,16 @@ const align = (a?: "start" | "end") => (a === "end" ? "text-right" : "text-left"
  * column's name) where there is not. It measures its own width, so it fits a narrow side panel on
  * a wide screen as well as a phone.
  */
-export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, testId, rowTestId, cardsBelow = 560, className = "", rowClassName }: Props<R>) {
+export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, testId, rowTestId, cardsBelow = 560, className = "", rowClassName, sort }: Props<R>) {
   const [ref, width] = useElementWidth<HTMLDivElement>();
   const cards = width > 0 && width < cardsBelow;
   const primary = columns.find((c) => c.primary);
+  const sortable = sort ? columns.filter((c) => c.sortable) : [];
   return (
     <div ref={ref} className={`min-w-0 ${className}`}>
       {cards ? (
         <>
+          {sort && sortable.length > 0 && <CardSort columns={sortable} sort={sort} />}
           <ul className="divide-y divide-nickel-200 border-y border-nickel-200" aria-label={caption} data-testid={testId} data-layout="cards">
             {rows.map((row) => (
               <li key={rowKey(row)} className={`space-y-1 py-3 ${rowClassName?.(row) ?? ""}`} data-testid={rowTestId}>
@@ -87,8 +103,24 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
           <thead className="border-b-2 border-nickel-300 text-meta text-flux-600">
             <tr>
               {columns.map((c) => (
-                <th key={c.key} scope="col" className={`py-1.5 pr-3 font-semibold last:pr-0 ${align(c.align)}`}>
-                  {c.header}
+                <th
+                  key={c.key}
+                  scope="col"
+                  className={`py-1.5 pr-3 font-semibold last:pr-0 ${align(c.align)}`}
+                  aria-sort={sort && c.sortable ? (sort.key === c.key ? (sort.descending ? "descending" : "ascending") : "none") : undefined}
+                >
+                  {sort && c.sortable ? (
+                    <button
+                      type="button"
+                      className={`inline-flex min-h-touch items-center gap-1 rounded hover:text-flux-900 hover:underline ${c.align === "end" ? "justify-end text-right" : "text-left"} ${sort.key === c.key ? "text-flux-900" : ""}`}
+                      onClick={() => sort.onSort(c.key)}
+                    >
+                      {c.header}
+                      <SortMark state={sort.key === c.key ? (sort.descending ? "descending" : "ascending") : "none"} />
+                    </button>
+                  ) : (
+                    c.header
+                  )}
                 </th>
               ))}
             </tr>
@@ -120,6 +152,45 @@ export function ResponsiveTable<R>({ columns, rows, rowKey, caption, footer, tes
           )}
         </table>
       )}
+    </div>
+  );
+}
+
+/** An arrow for the column the rows are ordered by, a faint double arrow on the others; the header's aria-sort says it in words. */
+function SortMark({ state }: { state: "ascending" | "descending" | "none" }) {
+  return (
+    <svg className={`size-3.5 shrink-0 ${state === "none" ? "opacity-40" : ""}`} viewBox="0 0 12 12" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" strokeLinejoin="round" aria-hidden="true">
+      {state === "none" ? <path d="M3.5 4.5L6 2l2.5 2.5M3.5 7.5L6 10l2.5-2.5" /> : state === "ascending" ? <path d="M6 10V2M3 5l3-3 3 3" /> : <path d="M6 2v8M3 7l3 3 3-3" />}
+    </svg>
+  );
+}
+
+/** Cards have no header row to click: the order is a choice above them. */
+function CardSort<R>({ columns, sort }: { columns: Column<R>[]; sort: TableSort }) {
+  const id = useId();
+  return (
+    <div className="mb-2 flex flex-wrap items-end gap-2">
+      <div className="min-w-0 flex-1 space-y-1">
+        <label htmlFor={id} className="block text-meta font-semibold text-flux-700">
+          Order by
+        </label>
+        <select id={id} className={`${control} border-nickel-400`} value={sort.key} onChange={(e) => sort.onSort(e.target.value)}>
+          {columns.map((c) => (
+            <option key={c.key} value={c.key}>
+              {c.sortLabel ?? (typeof c.header === "string" ? c.header : c.key)}
+            </option>
+          ))}
+        </select>
+      </div>
+      <div className="space-y-1">
+        <label htmlFor={`${id}-way`} className="block text-meta font-semibold text-flux-700">
+          Which first
+        </label>
+        <select id={`${id}-way`} className={`${control} border-nickel-400`} value={sort.descending ? "descending" : "ascending"} onChange={(e) => sort.onSort(sort.key, e.target.value === "descending")}>
+          <option value="ascending">Smallest first</option>
+          <option value="descending">Largest first</option>
+        </select>
+      </div>
     </div>
   );
 }

@@ -13,6 +13,7 @@ interface Area {
 
 const designCheck: Area = { title: "Design check", text: "Predicted attenuation of a shield design as built, with its likely range, saturation margins and what it takes to make.", link: { to: paths.designCheck.href(), label: "Check a design" } };
 const flatBlank: Area = { title: "Flat blank", text: "The blank a can or box is cut from, its draw stages or bend allowance, the flat pattern to scale and its DXF.", link: { to: paths.flatBlank.href(), label: "Size a blank" } };
+const findADesign: Area = { title: "Find a design", text: "From the space, the field and the attenuation you need to the designs the shop can make that meet it, priced, with the one we would choose.", link: { to: paths.findADesign.href(), label: "Find a design" } };
 const account: Area = { title: "Your account", text: "Your name as others see it, and your password.", link: { to: paths.account.href(), label: "Open your account" } };
 
 // What each role's home holds: the pages that exist first, with their links; then, as plain notes,
@@ -22,6 +23,7 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
     lead: "Your shield designs, quotes, orders and certificates, in one place.",
     comingWith: "the ordering work",
     areas: [
+      findADesign,
       { ...designCheck, text: "Predicted attenuation, saturation margins and what each layer takes to make, with its price." },
       flatBlank,
       { title: "Saved designs", text: "Saved shield configurations with their predicted attenuation." },
@@ -59,6 +61,7 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       { title: "Shop rates", text: "Alloy prices, operation rates, margin, quantity breaks, stock sheets and forming limits.", link: { to: paths.adminShopRates.href(), label: "Edit shop rates" } },
       { title: "Materials", text: "The material library the predictions and blanks compute with, each value with its source.", link: { to: paths.adminMaterials.href(), label: "Edit materials" } },
       { title: "Users", text: "Invite customers and staff, change roles, deactivate, and see who has access.", link: { to: paths.adminUsers.href(), label: "Manage users" } },
+      findADesign,
       designCheck,
       flatBlank,
       { title: "Orders to release", text: "Paid orders waiting to be split into jobs and lots for the floor.", link: { to: paths.floorRelease.href(), label: "Release orders" } },
