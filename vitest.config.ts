@@ -23,6 +23,8 @@ export default defineConfig({
           globalSetup: ["tests/support/database-setup.ts"],
           fileParallelism: false,
           testTimeout: 60_000,
+          // a project does not inherit the root's timeouts: seeding the demo takes more than the default 10 s on a busy machine
+          hookTimeout: 120_000,
         },
       },
     ],

@@ -82,6 +82,15 @@ export const paths = {
   orderNew: { path: "/quotes/:id/order", href: (quoteId: string) => `/quotes/${encode(quoteId)}/order` },
   orders: { path: "/orders", href: (filters?: ListFilters & { status?: string }) => withList("/orders", filters) },
   order: { path: "/orders/:id", href: (id: string) => `/orders/${encode(id)}` },
+  // the shop floor
+  floorBoard: { path: "/floor", href: (search?: string) => (search ? `/floor?${search}` : "/floor") },
+  scanStation: { path: "/floor/scan", href: () => "/floor/scan" },
+  floorJob: { path: "/floor/jobs/:id", href: (id: string) => `/floor/jobs/${encode(id)}` },
+  floorLot: { path: "/floor/lots/:id", href: (id: string) => `/floor/lots/${encode(id)}` },
+  floorRelease: { path: "/floor/release", href: () => "/floor/release" },
+  furnaceRuns: { path: "/floor/furnace", href: () => "/floor/furnace" },
+  heats: { path: "/floor/heats", href: () => "/floor/heats" },
+  shipping: { path: "/floor/shipping", href: () => "/floor/shipping" },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

@@ -37,10 +37,18 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     case "customer":
       return [home, findADesign, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, account];
     case "admin":
-      return [home, { label: "Orders", to: paths.orders.href() }, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, findADesign, ...quality, ...tools, account];
+      return [home, { label: "Orders", to: paths.orders.href() }, ...floorFor("admin"), ...quality, findADesign, ...tools, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
     case "qa":
-      return [home, ...quality, ...tools, account];
+      return [home, ...floorFor("qa"), ...quality, ...tools, account];
     case "operator":
-      return [home, ...tools, account];
+      return [home, ...floorFor("operator"), ...tools, account];
   }
+}
+
+/** The shop floor in the main menu; its own pages link to each other (features/floor/floor-nav.tsx). */
+function floorFor(role: "admin" | "operator" | "qa"): NavItem[] {
+  if (role === "admin") return [{ label: "Shop floor", to: paths.floorBoard.href() }];
+  const scan: NavItem = { label: "Scan", to: paths.scanStation.href() };
+  if (role === "qa") return [scan, { label: "Heats", to: paths.heats.href() }];
+  return [scan, { label: "Floor board", to: paths.floorBoard.href(), end: true }];
 }

@@ -41,8 +41,8 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       flatBlank,
       designCheck,
       account,
-      { title: "Today's jobs", text: "Jobs released to the floor, in routing order, with their next step." },
-      { title: "Scan station", text: "Scan a traveler barcode to start or complete a step at this station." },
+      { title: "Floor board", text: "Open work by step, late jobs, lots waiting for the furnace and holds.", link: { to: paths.floorBoard.href(), label: "Open the floor board" } },
+      { title: "Scan station", text: "Scan a traveler barcode to start or complete a step at this station.", link: { to: paths.scanStation.href(), label: "Open the scan station" } },
     ],
   },
   qa: {
@@ -71,7 +71,8 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       designCheck,
       flatBlank,
       { title: "Orders", text: "Every customer's orders: payments, refunds, drawings; paid orders wait to be released.", link: { to: paths.orders.href({ status: "paid" }), label: "Paid orders" } },
-      { title: "Furnace runs", text: "Hydrogen anneal runs: lots loaded, peak temperature, soak, dew point." },
+      { title: "Orders to release", text: "Paid orders waiting to be split into jobs and lots for the floor.", link: { to: paths.floorRelease.href(), label: "Release orders" } },
+      { title: "Furnace runs", text: "Hydrogen anneal runs: lots loaded, peak temperature, soak, dew point.", link: { to: paths.furnaceRuns.href(), label: "Record a furnace run" } },
     ],
   },
 };
