@@ -19,6 +19,7 @@ import { createFileStore } from "./files/store";
 import { createMailer, mailQueueDefinition, type Mailer } from "./jobs/mailer";
 import { createJobQueue } from "./jobs/queue";
 import { quoteReminderQueueDefinition, startQuoteReminders } from "./jobs/reminders";
+import { instrumentReminderQueueDefinition, startInstrumentReminders } from "./jobs/instrument-reminders";
 import { ShopSettings } from "./models";
 import { createStripe } from "./payments/stripe";
 import { designsRouter } from "./routes/designs";
@@ -27,6 +28,9 @@ import { furnaceRunsRouter } from "./routes/furnace-runs";
 import { heatsRouter } from "./routes/heats";
 import { jobsRouter } from "./routes/jobs";
 import { scansRouter } from "./routes/scans";
+import { instrumentsRouter } from "./routes/instruments";
+import { qualitySettingsRouter } from "./routes/quality-settings";
+import { samplingPublicRouter } from "./routes/sampling";
 import { ordersRouter } from "./routes/orders";
 import { quotesRouter } from "./routes/quotes";
 import { settingsRouter } from "./routes/settings";
@@ -36,6 +40,7 @@ import { createCsrf, publicRateLimit } from "./middleware/security";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { blanksRouter } from "./routes/blanks";
+import { designAdviceRouter } from "./routes/design-advice";
 import { healthRouter } from "./routes/health";
 import { materialsAdminRouter, materialsPublicRouter } from "./routes/materials";
 import { predictionsRouter } from "./routes/predictions";
@@ -65,7 +70,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
   initModels(sequelize);
   // Mail and scheduled work go through the job queue in PostgreSQL (started in the background).
-  const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition] });
+  const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition, instrumentReminderQueueDefinition] });
   const mailer =
     options.mailer ??
     createMailer({
@@ -82,6 +87,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
     stripe: createStripe(config), files: createFileStore(config.UPLOAD_DIR), jobs,
   };
   void startQuoteReminders({ queue: jobs, sequelize, mailer, config, logger }).catch((err) => logger.error({ err }, "quote reminders did not start"));
+  void startInstrumentReminders({ queue: jobs, sequelize, mailer, config, logger }).catch((err) => logger.error({ err }, "calibration reminders did not start"));
   const secure = config.appUrl.startsWith("https://");
 
   const app = express() as FluxwrightApp;
@@ -123,9 +129,10 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
   });
-  // The prediction is asked for at every pause in typing: like health, no request line (pino-http's
-  // per-request child logger costs more than the prediction itself); on-error still logs its failures.
-  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep"]);
+  // The prediction and the sampling plan are asked for at every pause in typing: like health, no
+  // request line (pino-http's per-request child logger costs more than the answer itself); on-error
+  // still logs their failures.
+  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep", "/api/sampling-plan"]);
   app.use((req, res, next) => {
     if (!unlogged.has(req.path)) return requestLog(req, res, next);
     req.log = logger;
@@ -157,6 +164,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(blanksRouter(deps));
   api.use(materialsPublicRouter(deps));
   api.use(predictionsRouter(deps));
+  api.use(samplingPublicRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
@@ -164,6 +172,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(usersRouter(deps));
   api.use(materialsAdminRouter(deps));
   api.use(priceEstimatesRouter(deps));
+  api.use(designAdviceRouter(deps));
   api.use(shopRatesRouter(deps));
   api.use(designsRouter(deps));
   api.use(quotesRouter(deps));
@@ -174,6 +183,8 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(heatsRouter(deps));
   api.use(furnaceRunsRouter(deps));
   api.use(floorRouter(deps));
+  api.use(qualitySettingsRouter(deps));
+  api.use(instrumentsRouter(deps));
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -11,6 +11,8 @@ declare module "express-session" {
   interface SessionData {
     /** set by GET /api/auth/csrf so an anonymous visitor's session is stored (the token is bound to it) */
     csrfIssued?: boolean;
+    /** set when a registration for an address that already has an account was answered (see the register route) */
+    registrationMailed?: boolean;
   }
 }
 

@@ -17,3 +17,16 @@ export const DEFAULT_LID_CLEARANCE_MM = 0.2;
 export const LID_OVERLAP_FRACTION = 0.25;
 export const LID_OVERLAP_MIN_MM = 10;
 export const defaultLidHeight = (bodyHeight_mm: number): number => Math.min(bodyHeight_mm, Math.max(LID_OVERLAP_MIN_MM, LID_OVERLAP_FRACTION * bodyHeight_mm));
+
+/**
+ * The part both public pages open on: the design check's default design (a closed drawn can,
+ * one ni80 layer) and, for its innermost layer, the flat-blank page, so the two agree at first sight.
+ */
+export const DEFAULT_PART = {
+  shape: "cylinder",
+  method: "drawn",
+  diameter_mm: 50,
+  length_mm: 120,
+  thickness_mm: 1,
+  material: "ni80",
+} as const;

@@ -1,6 +1,6 @@
 import type { ComponentType } from "react";
 import type { QueryClient } from "@tanstack/react-query";
-import { createBrowserRouter, type LoaderFunction, type RouteObject } from "react-router-dom";
+import { createBrowserRouter, type LoaderFunction, type RouteObject, type ShouldRevalidateFunction } from "react-router-dom";
 import { authKeys, meQueryOptions } from "./api/auth";
 import { setUnauthorizedHandler } from "./api/client";
 import { queryClient } from "./api/query-client";
@@ -20,10 +20,17 @@ interface PageModule {
   makeLoader?: (queryClient: QueryClient) => LoaderFunction;
 }
 
+/**
+ * Pages that keep their state in the address bar (the design check, the flat blank) change the
+ * search on every edit: that is not new data for any loader, so only a new path reloads them.
+ */
+const samePathKeepsData: ShouldRevalidateFunction = ({ currentUrl, nextUrl, defaultShouldRevalidate }) =>
+  currentUrl.pathname === nextUrl.pathname && currentUrl.search !== nextUrl.search ? false : defaultShouldRevalidate;
+
 function page(load: () => Promise<PageModule>): RouteObject["lazy"] {
   return async () => {
     const { Component, makeLoader } = await load();
-    return makeLoader ? { Component, loader: makeLoader(queryClient) } : { Component };
+    return makeLoader ? { Component, loader: makeLoader(queryClient), shouldRevalidate: samePathKeepsData } : { Component };
   };
 }
 
@@ -40,6 +47,7 @@ export const routes: RouteObject[] = [
     path: paths.home.path,
     element: <AppLayout />,
     loader: rootLoader,
+    shouldRevalidate: samePathKeepsData,
     errorElement: <RootErrorPage />,
     hydrateFallbackElement: <BootScreen />,
     children: [

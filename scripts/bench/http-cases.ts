@@ -13,4 +13,6 @@ export const httpCases: HttpCase[] = [
     body: contractPredictionExample,
     minRatio: 0.6,
   },
+  // ISO 2859-1 plan for a lot of 500 at AQL 1.0 (public reference data)
+  { name: "sampling plan", path: "/api/sampling-plan?lotSize=500&aql=1.0", minRatio: 0.6 },
 ];

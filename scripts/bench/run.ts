@@ -16,6 +16,7 @@ const wants = (name: string) => !only || only.includes(name);
 for (const [file, fn, title] of [
   ["./physics", "benchPhysics", "prediction engine (in-process)"],
   ["./fabrication", "benchFabrication", "fabrication engine (in-process)"],
+  ["./advisor", "benchAdvisor", "design advisor (in-process)"],
 ] as const) {
   if (!wants(file.slice(2))) continue;
   try {
@@ -47,6 +48,11 @@ if (wants("ordering")) {
 if (wants("shop-floor")) {
   section("shop floor: 100 000 jobs, 1 000 000 scans");
   rows.push(...(await (await import("./shop-floor")).benchShopFloor(Number(process.env.BENCH_SECONDS ?? 3))));
+}
+
+if (wants("advisor-route")) {
+  section("design advisor route (signed in)");
+  rows.push(...(await (await import("./advisor-route")).benchAdvisorRoute()));
 }
 
 if (wants("client")) {

@@ -10,6 +10,7 @@ import { loadConfig } from "../config";
 import { createFileStore, type FileStore } from "../files/store";
 import { seedOrdering } from "./seed-ordering";
 import { seedShopFloor } from "./seed-shop-floor";
+import { seedInstruments } from "./seed-quality";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -94,6 +95,7 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
         transaction,
       })),
     );
+    created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
   });
   return { created };
 }

@@ -2,13 +2,13 @@ import { fileTypeFromFile } from "file-type";
 import { open } from "node:fs/promises";
 import { drawingKinds, type DrawingKind } from "../../shared/schemas/order";
 
-// What a drawing is, decided by its bytes (file-type's signatures; DXF and STEP, being text, by
+// What an upload (a drawing, a certificate) is, decided by its bytes (file-type's signatures; DXF and STEP, being text, by
 // their headers), never by its name. The name's extension must then agree with the content.
 
 const HEAD_BYTES = 4096;
 
 /** file-type's extension → our kind */
-const SNIFFED: Record<string, DrawingKind> = { pdf: "pdf", png: "png", jpg: "jpg", tif: "tif", webp: "webp" };
+const SNIFFED: Record<string, string> = { pdf: "pdf", png: "png", jpg: "jpg", tif: "tif", webp: "webp" };
 
 async function head(file: string): Promise<string> {
   const handle = await open(file, "r");
@@ -27,7 +27,41 @@ const DXF_BINARY = "AutoCAD Binary DXF\r\n\x1a\x00";
 /** STEP physical file (ISO 10303-21) */
 const STEP = /^\uFEFF?\s*ISO-10303-21;/;
 
-export type SniffResult = { ok: true; kind: DrawingKind; mime: string } | { ok: false; reason: string };
+export type SniffResult<K extends string = DrawingKind> = { ok: true; kind: K; mime: string } | { ok: false; reason: string };
+
+/** The kinds an upload may be: file-type's extension (or "dxf"/"step" for those text formats) → label, MIME type, allowed name endings. */
+export type UploadKinds<K extends string> = Record<K, { label: string; mime: string; extensions: readonly string[] }>;
+
+/**
+ * What an upload is, by its bytes, among the kinds allowed; the name's extension must agree.
+ * `described` names the allowed kinds in the refusal ("a PDF or image certificate").
+ */
+export async function sniffUpload<K extends string>(file: string, filename: string, kinds: UploadKinds<K>, described: string): Promise<SniffResult<K>> {
+  const ext = path_ext(filename);
+  const allowed = (k: string) => Object.prototype.hasOwnProperty.call(kinds, k);
+  const detected = await fileTypeFromFile(file);
+  let found: string;
+  if (detected) {
+    const ours = SNIFFED[detected.ext];
+    if (!ours || !allowed(ours)) return { ok: false, reason: `its content is ${describe(detected.ext, detected.mime)}, not ${described}` };
+    found = ours;
+  } else {
+    const text = await head(file);
+    if (allowed("dxf") && (text.startsWith(DXF_BINARY) || DXF_ASCII.test(text))) found = "dxf";
+    else if (allowed("step") && STEP.test(text)) found = "step";
+    else return { ok: false, reason: `its content is not ${described}` };
+  }
+  const kind = found as K;
+  const endings: readonly string[] = kinds[kind].extensions;
+  if (!endings.includes(ext)) {
+    return { ok: false, reason: `its content is a ${kinds[kind].label} but the name ends in ${ext ? `.${ext}` : "no extension"}; name it .${endings[0]}` };
+  }
+  return { ok: true, kind, mime: kinds[kind].mime };
+}
+
+export function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
+  return sniffUpload(file, filename, drawingKinds, "a PDF, DXF, STEP or image (PNG, JPEG, TIFF, WebP) drawing");
+}
 
 /** The kinds a use accepts, and how to name them to people. */
 export interface Accepted {
@@ -39,27 +73,11 @@ export const DRAWINGS: Accepted = { kinds: Object.keys(drawingKinds) as DrawingK
 /** A scanned paper record (a mill certificate, a furnace chart): PDF or an image. */
 export const PAPER_RECORDS: Accepted = { kinds: ["pdf", "png", "jpg", "tif", "webp"], what: "a PDF or an image (PNG, JPEG, TIFF, WebP)" };
 
-/** The file's kind by its content, when it is one of `allowed` (described to people as `what`) and its name agrees. */
+/** The file's kind by its content, when it is one of the accepted kinds and its name agrees. */
 export async function sniffFile(file: string, filename: string, accepted: Accepted): Promise<SniffResult> {
-  const { kinds: allowed, what } = accepted;
-  const ext = path_ext(filename);
-  const detected = await fileTypeFromFile(file);
-  let kind: DrawingKind | undefined;
-  if (detected) {
-    kind = SNIFFED[detected.ext];
-    if (!kind) return { ok: false, reason: `its content is ${describe(detected.ext, detected.mime)}, not ${what}` };
-  } else {
-    const text = await head(file);
-    if (text.startsWith(DXF_BINARY) || DXF_ASCII.test(text)) kind = "dxf";
-    else if (STEP.test(text)) kind = "step";
-    else return { ok: false, reason: `its content is not ${what}` };
-  }
-  if (!allowed.includes(kind)) return { ok: false, reason: `its content is a ${drawingKinds[kind].label}, not ${what}` };
-  const extensions: readonly string[] = drawingKinds[kind].extensions;
-  if (!extensions.includes(ext)) {
-    return { ok: false, reason: `its content is a ${drawingKinds[kind].label} but the name ends in ${ext ? `.${ext}` : "no extension"}; name it .${extensions[0]}` };
-  }
-  return { ok: true, kind, mime: drawingKinds[kind].mime };
+  const sniffed = await sniffUpload(file, filename, drawingKinds, accepted.what);
+  if (sniffed.ok && !accepted.kinds.includes(sniffed.kind)) return { ok: false, reason: `its content is a ${drawingKinds[sniffed.kind].label}, not ${accepted.what}` };
+  return sniffed;
 }
 
 function path_ext(filename: string): string {

@@ -13,7 +13,7 @@ function toAppError(err: unknown): AppError | undefined {
   if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported") return new AppError(415, "UNSUPPORTED_ENCODING", "Send UTF-8 JSON.");
   if (e?.code === "EBADCSRFTOKEN") return new AppError(403, "CSRF_INVALID", "The form's security token is missing or stale; reload and try again.");
   if (err instanceof UniqueConstraintError) {
-    const fields = Object.fromEntries(err.errors.map((x) => [x.path ?? "body", "is already taken"]));
+    const fields = Object.fromEntries(err.errors.map((x) => [x.path ?? "body", "This value is already taken."]));
     return new AppError(409, "ALREADY_EXISTS", "A record with these values already exists.", fields);
   }
   if (err instanceof SequelizeValidationError) {

@@ -59,6 +59,23 @@ export function mailRateLimit(perHour: number): RequestHandler {
   return rateLimit({ windowMs: 60 * 60_000, limit: perHour, standardHeaders: "draft-7", legacyHeaders: false, handler: limitHandler("RATE_LIMITED", "Too many requests; try again later.") });
 }
 
+/**
+ * Heavy computations for signed-in users (the design advisor), counted per user so one person
+ * cannot hold the machine. Refused requests (a 4xx, which cost nothing to answer) do not count.
+ */
+export function perUserRateLimit(perMinute: number, message: string): RequestHandler {
+  return rateLimit({
+    windowMs: 60_000,
+    limit: perMinute,
+    standardHeaders: "draft-7",
+    legacyHeaders: false,
+    skipFailedRequests: true,
+    // after requireUser: every request here has a user
+    keyGenerator: (req) => `user:${req.user!.id}`,
+    handler: limitHandler("RATE_LIMITED", message),
+  });
+}
+
 export const requireUser: RequestHandler = (req, _res, next) => {
   if (!req.user) return next(AuthenticationError());
   next();

@@ -1,14 +1,10 @@
 import type { z } from "zod";
+import { issueFields } from "../../shared/schemas/messages";
 import { NotFoundError, ValidationError, type FieldErrors } from "../errors";
 
-/** zod issues → `{ "path.to.field": "what is wrong" }`, first message per field. */
+/** zod issues → `{ "path.to.field": "what is wrong" }`, first message per field, in the words of the shared error map. */
 export function fieldErrors(error: z.ZodError): FieldErrors {
-  const fields: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.map(String).join(".") : "body";
-    fields[key] ??= issue.message;
-  }
-  return fields;
+  return issueFields(error);
 }
 
 /** The one validation path: parse untrusted input with a shared schema or throw a 400 naming the fields. */

@@ -24,6 +24,8 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare totalCents: number;
   declare currency: string;
   declare requiredAttenuationDb: number;
+  /** the AQL its lots are sampled at: the shop's default when the order was placed */
+  declare aql: CreationOptional<number>;
   declare paidAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -49,6 +51,7 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
         totalCents: centsColumn("totalCents"),
         currency: { type: DataTypes.STRING(3), allowNull: false },
         requiredAttenuationDb: { type: DataTypes.DOUBLE, allowNull: false, field: "required_attenuation_db" },
+        aql: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.0 },
         paidAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

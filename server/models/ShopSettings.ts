@@ -15,6 +15,8 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
   declare furnaces: CreationOptional<Furnace[]>;
   /** each alloy's final-anneal window */
   declare annealWindows: CreationOptional<AnnealWindow[]>;
+  /** the AQL each new order takes (a column of the sampling tables) */
+  declare defaultAql: CreationOptional<number>;
   declare updatedById: string | null;
   declare updatedAt: CreationOptional<Date>;
 
@@ -31,6 +33,7 @@ export class ShopSettings extends Model<InferAttributes<ShopSettings>, InferCrea
         quoteTerms: { type: DataTypes.TEXT, allowNull: false, defaultValue: "" },
         furnaces: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         annealWindows: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+        defaultAql: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 1.0 },
         updatedById: { type: DataTypes.UUID, allowNull: true },
         updatedAt: DataTypes.DATE,
       },

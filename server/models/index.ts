@@ -4,6 +4,8 @@ import { CheckoutSession } from "./CheckoutSession";
 import { Design } from "./Design";
 import { Event } from "./Event";
 import { FurnaceRun } from "./FurnaceRun";
+import { Instrument } from "./Instrument";
+import { InstrumentCalibration } from "./InstrumentCalibration";
 import { Invoice } from "./Invoice";
 import { Job } from "./Job";
 import { Lot } from "./Lot";
@@ -27,6 +29,7 @@ export { PriceListVersion };
 export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
 export { FurnaceRun, Job, Lot, MaterialHeat, Scan, Shipment };
+export { Instrument, InstrumentCalibration };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
 
@@ -60,4 +63,8 @@ export function initModels(sequelize: Sequelize): void {
   FurnaceRun.belongsTo(StoredFile, { foreignKey: "chartFileId", as: "chart" });
   Lot.belongsTo(Order, { foreignKey: "orderId", as: "order" });
   Job.belongsTo(Lot, { foreignKey: "lotId", as: "lot" });
+  // quality: the instrument register
+  for (const model of [Instrument, InstrumentCalibration]) model.initModel(sequelize);
+  Instrument.belongsTo(StoredFile, { foreignKey: "currentCertificateId", as: "currentCertificate" });
+  InstrumentCalibration.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
 }

@@ -136,6 +136,7 @@ export function presentOrder(order: Order, parts: OrderDetailParts, actor: Actor
     notes: order.notes,
     unitPrice_cents: order.unitPriceCents,
     requiredAttenuation_db: order.requiredAttenuationDb,
+    aql: order.aql,
     leadTime_workingDays: quote.leadTimeWorkingDays,
     paid_cents: paid,
     refunded_cents: refunded,

@@ -1,5 +1,5 @@
 import type { ShopRatesJson, ShopRatesVersionJson } from "../../shared/schemas/shop-rates";
-import { constructionSettingsOf, priceListSchema } from "../../shared/schemas/pricing";
+import { constructionSettingsOf, designSearchSettingsOf, priceListSchema } from "../../shared/schemas/pricing";
 import type { PriceListVersion } from "../models";
 
 const presentCreator = (v: PriceListVersion) => (v.createdBy ? { id: v.createdBy.id, name: v.createdBy.name } : null);
@@ -8,9 +8,16 @@ export function presentShopRatesVersion(v: PriceListVersion): ShopRatesVersionJs
   return { version: v.version, part: v.part, createdAt: v.createdAt.toISOString(), createdBy: presentCreator(v) };
 }
 
-/** The current shop rates as the planner's page reads them: four parts plus who saved them when. */
+/** The current shop rates as the planner's page reads them: its parts plus who saved them when. */
 export function presentShopRates(v: PriceListVersion): ShopRatesJson {
   // parsed, so a version saved before a field existed shows that field's default
-  const { stockSheets, formingLimits, construction: _stored, ...priceList } = priceListSchema.parse(v.data);
-  return { ...presentShopRatesVersion(v), priceList, stockSheets, formingLimits, construction: constructionSettingsOf(v.data) };
+  const { stockSheets, formingLimits, construction: _stored, designSearch: _search, ...priceList } = priceListSchema.parse(v.data);
+  return {
+    ...presentShopRatesVersion(v),
+    priceList,
+    stockSheets,
+    formingLimits,
+    construction: constructionSettingsOf(v.data),
+    designSearch: designSearchSettingsOf(v.data),
+  };
 }

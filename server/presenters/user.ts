@@ -11,5 +11,6 @@ export function presentUser(user: User): UserJson {
     organizationId: user.organizationId ?? null,
     organizationName: user.organization?.name ?? null,
     createdAt: user.createdAt.toISOString(),
+    active: user.disabledAt === null || user.disabledAt === undefined,
   };
 }

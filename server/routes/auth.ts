@@ -13,7 +13,7 @@ import { presentInvitationPreview } from "../presenters/invitation";
 import { presentUser } from "../presenters/user";
 import { authTokenFinder } from "../services/authTokenFinder";
 import { invitationAccepter } from "../services/invitationAccepter";
-import { passwordResetMail, welcomeMail } from "../services/mail-texts";
+import { passwordResetMail, registrationAttemptMail, welcomeMail } from "../services/mail-texts";
 import { passwordChanger } from "../services/passwordChanger";
 import { passwordResetRequester, passwordResetter } from "../services/passwordResetter";
 import { profileUpdater } from "../services/profileUpdater";
@@ -61,9 +61,27 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     res.clearCookie("fw.sid").status(204).end();
   });
 
+  // Registration must not tell anyone whether an address already has an account (as the reset
+  // request does not). The contract answers a new address 201 {"user": …} and signs the person in,
+  // so an address that already has an account gets the same status and a body of the same shape
+  // (the name and organisation as typed, fresh ids), a new session cookie as a sign-in would set —
+  // but nobody is signed in, no account or organisation is made, and the owner is mailed that
+  // someone tried. What stays observable is only that the new session is not signed in, which
+  // the person typing learns by trying to go on: it costs a registration per probe (rate-limited
+  // per address) and mails the owner every time, instead of the silent, free 409 it replaces.
+  // The page reads the session after registering and, when nobody is signed in, says to check
+  // the mail — which is true for the address's owner, the only one who can read it.
   router.post("/register", mailRateLimit(30), async (req, res) => {
     const input = parseInput(registerSchema, req.body);
-    const user = await sequelize.transaction((transaction) => userRegisterer({ input, ip: req.ip ?? null, transaction }));
+    const registration = await sequelize.transaction((transaction) => userRegisterer({ input, ip: req.ip ?? null, transaction }));
+    if (registration.kind === "existing") {
+      await new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
+      req.session.registrationMailed = true; // stored, so the answer carries a session cookie like a sign-in's
+      mailer.send(registrationAttemptMail({ to: registration.owner.email, appUrl: config.appUrl }));
+      res.status(201).json({ user: registration.lookAlike });
+      return;
+    }
+    const { user } = registration;
     await logIn(req, user);
     mailer.send(welcomeMail({ to: user.email, name: user.name, organizationName: user.organization!.name, appUrl: config.appUrl }));
     res.status(201).json({ user: presentUser(user) });
@@ -90,6 +108,13 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     if (reset) mailer.send(passwordResetMail({ to: email, link: `${config.appUrl}/reset-password/${reset.token}`, expiresAt: reset.expiresAt }));
     // The same answer whether or not the account exists.
     res.status(202).json({ message: "If an account exists for that address, a reset link is on its way." });
+  });
+
+  // Public and read-only: whether a reset link still works, so the page says so before showing a form.
+  router.get("/password-reset/:token", async (req, res) => {
+    const reset = await authTokenFinder({ token: req.params.token, kind: "password_reset" });
+    if (!reset) throw new AppError(404, "RESET_LINK_INVALID", "This reset link has expired or was already used; ask for a new one.");
+    res.set("Cache-Control", "no-store").json({ expiresAt: reset.expiresAt.toISOString() });
   });
 
   router.post("/password-reset/confirm", async (req, res) => {

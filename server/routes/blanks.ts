@@ -1,12 +1,12 @@
 import { Router } from "express";
-import { computeBlank, FabricationInputError, flatPatternDxf, flatPatternFilename, suggestKFactor, type BlankResult } from "../../shared/fabrication";
+import { computeBlank, FabricationInputError, flatPatternDxf, flatPatternFilename, partNoteLines, shopLimitWarnings, suggestKFactor, type BlankResult } from "../../shared/fabrication";
 import { blankRequestSchema, type BlankJson, type BlankRequest } from "../../shared/schemas/blank";
 import type { AppDeps } from "../deps";
 import { ValidationError } from "../errors";
 import { parseInput } from "../middleware/validate";
-import { PriceListVersion } from "../models";
 import { materialCatalog } from "../services/materialCatalog";
 import { materialResolver, type ResolvedMaterial } from "../services/materialResolver";
+import { shopRatesCatalog } from "../services/shopRatesCatalog";
 
 /** Flat blanks and their DXF: public computations, nothing stored. */
 export function blanksRouter({ publicLimit }: AppDeps): Router {
@@ -14,18 +14,25 @@ export function blanksRouter({ publicLimit }: AppDeps): Router {
 
   async function compute(body: unknown): Promise<{ request: BlankRequest; result: BlankResult; material?: ResolvedMaterial }> {
     const request = parseInput(blankRequestSchema, body);
+    // the shop's current list, held in the process: forming limits for a draw, stock sheets for every part
+    const list = await shopRatesCatalog();
     let material: ResolvedMaterial | undefined;
-    if (request.material) {
-      // forming limits only matter for a draw; the other methods need no database round trip
-      const list = request.method === "drawn" ? ((await PriceListVersion.current())?.data ?? null) : null;
-      material = materialResolver({ id: request.material, field: "material", priceList: list, materials: (await materialCatalog()).list });
-    }
+    if (request.material) material = materialResolver({ id: request.material, field: "material", priceList: list, materials: (await materialCatalog()).list });
+    let result: BlankResult;
     try {
-      return { request, result: computeBlank(request, material), material };
+      result = computeBlank(request, material);
     } catch (err) {
       if (err instanceof FabricationInputError) throw ValidationError({ [err.field]: err.message });
       throw err;
     }
+    const limits = shopLimitWarnings({
+      result,
+      thickness_mm: request.thickness_mm,
+      materialId: material?.id ?? null,
+      stockSheets: list?.stockSheets ?? [],
+      bendRadius_mm: request.method === "bent" ? request.bendRadius_mm : undefined,
+    });
+    return { request, result: { ...result, warnings: [...result.warnings, ...limits] }, material };
   }
 
   router.post("/blanks", publicLimit, async (req, res) => {
@@ -39,9 +46,9 @@ export function blanksRouter({ publicLimit }: AppDeps): Router {
   });
 
   router.post("/blanks/dxf", publicLimit, async (req, res) => {
-    const { request, result } = await compute(req.body);
+    const { request, result, material } = await compute(req.body);
     // attachment() sets a type from the extension (image/vnd.dxf); the contract says application/dxf
-    res.attachment(flatPatternFilename(request)).type("application/dxf").send(flatPatternDxf(result.geometry));
+    res.attachment(flatPatternFilename(request)).type("application/dxf").send(flatPatternDxf(result.geometry, partNoteLines(request, material?.name)));
   });
 
   return router;

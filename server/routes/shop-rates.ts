@@ -1,6 +1,6 @@
 import { Router, type Request } from "express";
 import { z } from "zod";
-import { constructionUpdateSchema, formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
+import { constructionUpdateSchema, designSearchUpdateSchema, formingLimitsUpdateSchema, priceRatesSchema, stockSheetsUpdateSchema } from "../../shared/schemas/shop-rates";
 import type { AppDeps } from "../deps";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
@@ -8,12 +8,13 @@ import { PriceListVersion, User } from "../models";
 import { requireRole } from "../policies/utils";
 import { presentShopRates, presentShopRatesVersion } from "../presenters/shop-rates";
 import { invalidateBuildModel } from "../services/buildModelCatalog";
+import { invalidateShopRatesCatalog } from "../services/shopRatesCatalog";
 import { currentShopRates, shopRatesUpdater, type ShopRatesChange } from "../services/shopRatesUpdater";
 
 const historyQuery = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) });
 const withCreator = { include: [{ model: User, as: "createdBy" }] };
 
-/** The planner's price list, stock sheets, forming limits and construction settings: every save is a new version. */
+/** The planner's price list, stock sheets, forming limits, construction and design-search settings: every save is a new version. */
 export function shopRatesRouter({ sequelize }: AppDeps): Router {
   const router = Router();
 
@@ -39,6 +40,7 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
     );
     // predictions read the construction settings in process: the new version from now on
     if (part === "construction") invalidateBuildModel();
+    invalidateShopRatesCatalog();
     await version.reload(withCreator);
     res.json(presentShopRates(version));
   };
@@ -46,6 +48,7 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
   router.put("/shop-rates/stock-sheets", requireUser, save("stock-sheets", stockSheetsUpdateSchema));
   router.put("/shop-rates/forming-limits", requireUser, save("forming-limits", formingLimitsUpdateSchema));
   router.put("/shop-rates/construction", requireUser, save("construction", constructionUpdateSchema));
+  router.put("/shop-rates/design-search", requireUser, save("design-search", designSearchUpdateSchema));
 
   return router;
 }

@@ -10,7 +10,7 @@ export async function invitationAccepter(props: { input: InvitationAcceptInput; 
   const { input, transaction } = props;
   const invitation = await authTokenFinder({ token: input.token, kind: "invitation", transaction });
   if (!invitation || !invitation.role || !invitation.organizationId) {
-    throw GoneError("INVITATION_INVALID", "This invitation link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
+    throw GoneError("INVITATION_INVALID", "This invitation link has expired or was already used; ask for a new one.", { token: "This invitation link has expired or was already used; ask for a new one." });
   }
   if (await User.findOne({ where: { email: invitation.email }, transaction })) {
     throw new AppError(409, "EMAIL_TAKEN", "This person already has an account; sign in instead.");

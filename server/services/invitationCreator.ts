@@ -18,14 +18,14 @@ export async function invitationCreator(props: {
 }): Promise<{ invitation: AuthToken; token: string; organization: Organization }> {
   const { actor, input, transaction } = props;
   if (await User.findOne({ where: { email: input.email }, transaction })) {
-    throw new AppError(409, "EMAIL_TAKEN", "This person already has an account.", { email: "already has an account" });
+    throw new AppError(409, "EMAIL_TAKEN", "This person already has an account.", { email: "This email address already has an account." });
   }
   let organization: Organization | null;
   if (input.role === "customer") {
-    if (!input.organizationId) throw new AppError(400, "VALIDATION_FAILED", "Choose the customer's organisation.", { organizationId: "is required for a customer" });
+    if (!input.organizationId) throw new AppError(400, "VALIDATION_FAILED", "Choose the customer's organisation.", { organizationId: "Choose the customer's organisation." });
     organization = await Organization.findByPk(input.organizationId, { transaction });
     if (!organization || organization.kind !== "customer") {
-      throw new AppError(400, "VALIDATION_FAILED", "Choose a customer organisation.", { organizationId: "is not a customer organisation" });
+      throw new AppError(400, "VALIDATION_FAILED", "Choose a customer organisation.", { organizationId: "Choose a customer organisation: staff join the shop." });
     }
   } else {
     organization = await Organization.findByPk(actor.organizationId, { transaction });

@@ -156,3 +156,40 @@ export function refundIssuedMail(p: OrderMailBase & { amount_cents: number; curr
     ].join("\n"),
   };
 }
+
+// --- quality ---
+
+export function calibrationDueMail(p: { to: string; instrumentName: string; serialNumber: string | null; calibrationDue: string; daysLeft: number; link: string }): MailMessage {
+  const when = day(new Date(`${p.calibrationDue}T00:00:00Z`));
+  const overdue = p.daysLeft < 0;
+  return {
+    to: p.to,
+    subject: overdue ? `Calibration of ${p.instrumentName} was due on ${when}` : `Calibration of ${p.instrumentName} is due on ${when}`,
+    text: [
+      `Hello,`,
+      ``,
+      overdue
+        ? `The calibration of ${p.instrumentName}${p.serialNumber ? ` (serial ${p.serialNumber})` : ""} was due on ${when}. It may not be used for measurements until it has been calibrated again.`
+        : `The calibration of ${p.instrumentName}${p.serialNumber ? ` (serial ${p.serialNumber})` : ""} is due on ${when}, in ${p.daysLeft} day${p.daysLeft === 1 ? "" : "s"}. After that day it may not be used for measurements until it has been calibrated again.`,
+      overdue ? `Send it out for calibration now, and record its new certificate when it is back:` : `Send it out in time, and record its new certificate when it is back:`,
+      ``,
+      p.link,
+    ].join("\n"),
+  };
+}
+
+/** To the owner of an address someone tried to register again: no account is made, nobody is signed in. */
+export function registrationAttemptMail(p: { to: string; appUrl: string }) {
+  return {
+    to: p.to,
+    subject: "Someone tried to create a Fluxwright account with your address",
+    text: [
+      `Hello,`,
+      ``,
+      `Someone tried to create a new Fluxwright account with this address, which already has one. No new account was made and nothing about your account changed.`,
+      ``,
+      `If it was you, sign in at ${p.appUrl}/sign-in, or choose a new password at ${p.appUrl}/forgot-password.`,
+      `If it was not you, you can ignore this mail.`,
+    ].join("\n"),
+  };
+}

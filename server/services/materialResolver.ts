@@ -17,7 +17,7 @@ export interface ResolvedMaterial extends Required<Pick<BlankMaterial, "density_
  */
 export function materialResolver(props: { id: string; field: string; priceList?: PriceList | null; materials?: MaterialProperties[] }): ResolvedMaterial {
   const m = findMaterial(props.id, props.materials ?? materialSnapshot() ?? materialLibrary);
-  if (!m) throw ValidationError({ [props.field]: `unknown material "${props.id}"` });
+  if (!m) throw ValidationError({ [props.field]: `There is no material "${props.id}" in the library; choose one from the list.` });
   const limits = props.priceList ? formingLimitsFor(m.id, props.priceList) : undefined;
   return {
     id: m.id,

@@ -3,7 +3,7 @@ import { documentNumber } from "../../shared/schemas/documents";
 import type { OrderCreateInput } from "../../shared/schemas/order";
 import { AppError, ConflictError } from "../errors";
 import type { Mailer } from "../jobs/mailer";
-import { Order, recordEvent, type Quote } from "../models";
+import { Order, ShopSettings, recordEvent, type Quote } from "../models";
 import type { Actor } from "../policies/utils";
 import { orderReceivedMail } from "./mail-texts";
 
@@ -42,6 +42,7 @@ export async function orderPlacer(props: {
     throw ConflictError("QUOTE_ALREADY_ORDERED", `Quote ${documentNumber("quote", quote.number)} has already been ordered.`);
   }
   checkRequestedDate(input.requestedDate, now);
+  const { defaultAql } = await ShopSettings.current(transaction);
   const order = await Order.create(
     {
       organizationId: quote.organizationId,
@@ -57,6 +58,7 @@ export async function orderPlacer(props: {
       totalCents: quote.totalCents,
       currency: quote.currency,
       requiredAttenuationDb: quote.configuration.requiredAttenuation_db,
+      aql: defaultAql,
       createdAt: now,
       updatedAt: now,
     },

@@ -10,7 +10,7 @@ export async function passwordChanger(props: { actorId: string; input: PasswordC
   const user = await User.findByPk(props.actorId, { transaction, lock: transaction.LOCK.UPDATE });
   if (!user?.passwordHash) throw AuthenticationError();
   if (!(await checkPassword(input.currentPassword, user.passwordHash))) {
-    throw ValidationError({ currentPassword: "is not right" }, "The current password is not right.");
+    throw ValidationError({ currentPassword: "The current password is not right." }, "The current password is not right.");
   }
   user.passwordHash = await hashPassword(input.newPassword);
   await user.save({ transaction });

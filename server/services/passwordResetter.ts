@@ -27,7 +27,7 @@ export async function passwordResetter(props: { token: string; password: string;
   const { transaction } = props;
   const reset = await authTokenFinder({ token: props.token, kind: "password_reset", transaction });
   const user = reset?.userId ? await User.findByPk(reset.userId, { transaction, lock: transaction.LOCK.UPDATE }) : null;
-  if (!reset || !user) throw GoneError("RESET_LINK_INVALID", "This reset link has expired or was already used; ask for a new one.", { token: "has expired or was already used" });
+  if (!reset || !user) throw GoneError("RESET_LINK_INVALID", "This reset link has expired or was already used; ask for a new one.", { token: "This reset link has expired or was already used; ask for a new one." });
   user.passwordHash = await hashPassword(props.password);
   await user.save({ transaction });
   reset.usedAt = new Date();

@@ -22,7 +22,7 @@ export function designParts(c: DesignConfiguration, priceList: PriceList): Fabri
   const layers = c.layers.map((layer, i) => {
     const field = `configuration.layers.${i}.material`;
     const m = materialResolver({ id: layer.material, field, priceList });
-    if (!priceList.materials.some((p) => p.materialId === m.id)) throw ValidationError({ [field]: `the current price list has no price for ${m.id}` });
+    if (!priceList.materials.some((p) => p.materialId === m.id)) throw ValidationError({ [field]: `The current price list has no price for ${m.id}; choose another material or ask the shop.` });
     return { thickness_mm: layer.thickness_mm, gap_mm: layer.gap_mm, materialId: m.id, density_kg_m3: m.density_kg_m3, limits: m.formingLimits };
   });
   const design: DesignConfig = {

@@ -1,7 +1,8 @@
 import { QueryTypes, type Transaction } from "sequelize";
 import type { FabricatedPart, PriceBuildUp } from "../../shared/fabrication";
 import { predictShield, PredictionInputError, type PredictionInput, type PredictionResult } from "../../shared/physics";
-import type { PriceList } from "../../shared/schemas/pricing";
+import { buildModelFrom, type BuildModel } from "../../shared/physics/build-model";
+import { constructionSettingsOf, type PriceList } from "../../shared/schemas/pricing";
 import { forFabrication, type QuoteBlank, type QuoteBlankPart, type QuoteConfiguration } from "../../shared/schemas/quote";
 import { ValidationError } from "../errors";
 import { Quote } from "../models";
@@ -13,10 +14,10 @@ import { currentPriceList } from "./shopRatesUpdater";
 const DAY_MS = 86_400_000;
 
 /** The prediction body of a configuration, as the prediction engine takes it (method included). */
-export function predictionOf(configuration: QuoteConfiguration, catalog: MaterialCatalog): PredictionResult {
+export function predictionOf(configuration: QuoteConfiguration, catalog: MaterialCatalog, buildModel: BuildModel): PredictionResult {
   try {
     // the whole configuration goes in: the engine reads what it knows (shape, layers, field, method…)
-    return predictShield(configuration as unknown as PredictionInput, (id) => catalog.byId.get(id));
+    return predictShield(configuration as unknown as PredictionInput, (id) => catalog.byId.get(id), buildModel);
   } catch (err) {
     if (err instanceof PredictionInputError) throw ValidationError({ [`configuration.${err.field}`]: err.message });
     throw err;
@@ -43,7 +44,8 @@ export interface Priced {
 
 /** Prediction, blanks and price of a configuration at a quantity: pure, given the catalog and the list. */
 export function priceAndPredict(props: { configuration: QuoteConfiguration; quantity: number; priceList: PriceList; catalog: MaterialCatalog }): Priced {
-  const prediction = predictionOf(props.configuration, props.catalog);
+  // the as-built model of the same shop-rates version the price comes from, so a quote names one set of settings
+  const prediction = predictionOf(props.configuration, props.catalog, buildModelFrom(constructionSettingsOf(props.priceList)));
   const { parts, price } = designPrice({ configuration: forFabrication(props.configuration), quantity: props.quantity, priceList: props.priceList });
   return { prediction, ...blankOf(parts), price };
 }

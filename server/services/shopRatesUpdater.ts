@@ -1,6 +1,6 @@
 import type { Transaction } from "sequelize";
 import { priceListSchema, type PriceList } from "../../shared/schemas/pricing";
-import type { ConstructionUpdate, FormingLimitsUpdate, PriceRates, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionUpdate, DesignSearchUpdate, FormingLimitsUpdate, PriceRates, ShopRatePart, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
 import { AppError, ValidationError } from "../errors";
 import { fieldErrors } from "../middleware/validate";
 import { PriceListVersion, recordEvent } from "../models";
@@ -10,7 +10,8 @@ export type ShopRatesChange =
   | { part: "price-list"; input: PriceRates }
   | { part: "stock-sheets"; input: StockSheetsUpdate }
   | { part: "forming-limits"; input: FormingLimitsUpdate }
-  | { part: "construction"; input: ConstructionUpdate };
+  | { part: "construction"; input: ConstructionUpdate }
+  | { part: "design-search"; input: DesignSearchUpdate };
 
 export interface DiffEntry {
   path: string;
@@ -79,12 +80,20 @@ export async function shopRatesUpdater(props: { actor: Actor; change: ShopRatesC
   const before = current.data;
   const next: PriceList =
     change.part === "price-list"
-      ? { ...change.input, stockSheets: before.stockSheets, formingLimits: before.formingLimits, ...(before.construction ? { construction: before.construction } : {}) }
+      ? {
+          ...change.input,
+          stockSheets: before.stockSheets,
+          formingLimits: before.formingLimits,
+          ...(before.construction ? { construction: before.construction } : {}),
+          ...(before.designSearch ? { designSearch: before.designSearch } : {}),
+        }
       : change.part === "stock-sheets"
         ? { ...before, stockSheets: change.input.stockSheets }
         : change.part === "forming-limits"
           ? { ...before, formingLimits: change.input.formingLimits }
-          : { ...before, construction: change.input.construction };
+          : change.part === "design-search"
+            ? { ...before, designSearch: change.input.designSearch }
+            : { ...before, construction: change.input.construction };
   // the merged document is what quotes read, so it is checked whole
   const parsed = priceListSchema.safeParse(next);
   if (!parsed.success) throw ValidationError(fieldErrors(parsed.error));

@@ -58,10 +58,10 @@ export function bentBox(input: BentBoxInput, heightField = "dimensions_mm.height
   requirePositive(H, heightField);
   requirePositive(T, "thickness_mm");
   requireNonNegative(R, "bendRadius_mm");
-  if (!(K >= 0 && K <= 0.5)) throw new FabricationInputError("kFactor", "K-factor must lie between 0 and 0.5");
-  if (2 * R >= Math.min(W, D)) throw new FabricationInputError("bendRadius_mm", "bend radius must be less than half the smaller side");
-  if (R >= H) throw new FabricationInputError(heightField, "height must exceed the bend radius");
-  if (T >= Math.min(W, D, H)) throw new FabricationInputError("thickness_mm", "thickness must be smaller than every dimension of the box");
+  if (!(K >= 0 && K <= 0.5)) throw new FabricationInputError("kFactor", "K-factor must be between 0 and 0.5.");
+  if (2 * R >= Math.min(W, D)) throw new FabricationInputError("bendRadius_mm", "Bend radius must be less than half the smaller side.");
+  if (R >= H) throw new FabricationInputError(heightField, "Height must be more than the bend radius.");
+  if (T >= Math.min(W, D, H)) throw new FabricationInputError("thickness_mm", "Sheet thickness must be less than every inside size of the box.");
 
   const ba = bendAllowance(90, R, T, K);
   const a = H - R; // wall flat

@@ -81,7 +81,7 @@ export function cupMidSurfaceArea(d: number, h: number, r = 0): number {
  */
 export function planDrawStages(blankDiameter_mm: number, meanDiameter_mm: number, thickness_mm: number, limits: DrawLimits): DrawStage[] {
   const { firstDrawRatio: b1, redrawRatio: br } = limits;
-  if (!(b1 > 1) || !(br > 1)) throw new FabricationInputError("limits", "draw ratio limits must be greater than 1");
+  if (!(b1 > 1) || !(br > 1)) throw new FabricationInputError("limits", "Draw ratio limits must be more than 1.");
   const total = blankDiameter_mm / meanDiameter_mm;
   const means: number[] = [];
   // 1e-12 guards a ratio that equals the limit up to rounding.
@@ -114,9 +114,9 @@ export function drawnCup(input: DrawnCupInput): DrawnCupResult {
   requirePositive(t, "thickness_mm");
   requireNonNegative(ri, "cornerRadius_mm");
   requireNonNegative(trim, "trim_mm");
-  if (ri > di / 2) throw new FabricationInputError("cornerRadius_mm", "corner radius must not exceed half the diameter");
-  if (ri > hi) throw new FabricationInputError("cornerRadius_mm", "corner radius must not exceed the cup height");
-  if (t >= di) throw new FabricationInputError("thickness_mm", "thickness must be smaller than the diameter");
+  if (ri > di / 2) throw new FabricationInputError("cornerRadius_mm", "Corner radius must be at most half the inside diameter.");
+  if (ri > hi) throw new FabricationInputError("cornerRadius_mm", "Corner radius must be at most the cup's inside height.");
+  if (t >= di) throw new FabricationInputError("thickness_mm", "Sheet thickness must be less than the inside diameter.");
 
   const d = di + t;
   const h = hi + trim + t / 2;
@@ -131,7 +131,7 @@ export function drawnCup(input: DrawnCupInput): DrawnCupResult {
   if (drawStages.length > MAX_REASONABLE_DRAW_STAGES) {
     warnings.push({
       code: "DRAW_STAGES_EXCESSIVE",
-      message: `${drawStages.length} draw stages needed (D/d = ${(D / d).toFixed(2)}); consider a rolled and seam-welded can with welded end caps.`,
+      message: `${drawStages.length} draw stages needed (D/d = ${(D / d).toFixed(2)}), beyond the forming limits the shop works to (${MAX_REASONABLE_DRAW_STAGES} draws): a rolled and seam-welded can with welded end caps suits this depth.`,
     });
   }
   return {

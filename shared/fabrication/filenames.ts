@@ -1,13 +1,18 @@
 import type { BlankRequest } from "../schemas/blank";
 
 const fmt = (x: number) => String(+x.toFixed(2));
+const safe = (s: string) => s.toLowerCase().replace(/[^a-z0-9.-]+/g, "-").replace(/^-+|-+$/g, "");
 
-/** e.g. flat-pattern-box-80x60x40.dxf, flat-pattern-cylinder-drawn-50x60.dxf (server header and browser save agree). */
+/**
+ * The DXF's file name says the part, its material and its thickness, so a folder of them reads
+ * like a parts list: blank-box-bent-80x60x40-ni80-1mm.dxf, blank-can-drawn-d50x120-ni80-1mm.dxf
+ * (server header and browser save agree).
+ */
 export function flatPatternFilename(r: BlankRequest): string {
-  if (r.shape === "box") {
-    const { width, depth, height } = r.dimensions_mm;
-    return `flat-pattern-box-${fmt(width)}x${fmt(depth)}x${fmt(height)}.dxf`;
-  }
-  const { diameter, length } = r.dimensions_mm;
-  return `flat-pattern-cylinder-${r.method}-${fmt(diameter)}x${fmt(length)}.dxf`;
+  const size =
+    r.shape === "box"
+      ? `box-bent-${fmt(r.dimensions_mm.width)}x${fmt(r.dimensions_mm.depth)}x${fmt(r.dimensions_mm.height)}`
+      : `can-${r.method}-d${fmt(r.dimensions_mm.diameter)}x${fmt(r.dimensions_mm.length)}`;
+  const material = r.material ? `-${safe(r.material)}` : "";
+  return `blank-${size}${material}-${fmt(r.thickness_mm)}mm.dxf`;
 }

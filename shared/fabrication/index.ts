@@ -21,6 +21,7 @@ export * from "./nesting";
 export * from "./pricing";
 export * from "./dxf";
 export * from "./filenames";
+export * from "./shop-limits";
 
 /** Shown where blanks are sheared, punched and formed [practice]. */
 export const PRESS_WORK_CAUTION =

@@ -8,8 +8,11 @@
  * their bounding squares. When every blank is the same disc, an offset-row (hexagonal) layout is
  * tried as well, rows along either sheet side, and the one with more discs per sheet is kept:
  * rows of pitch p = d + gap, row spacing p·√3/2, odd rows shifted by p/2 — about 15 % more discs
- * than squares on large sheets. Shelf packing is not optimal (guillotine-friendly, fast: O(n·shelves)),
- * good enough to price material and plan shearing.
+ * than squares on large sheets. Discs of several sizes (a can and its lid, the layers of a nest),
+ * alone or beside rectangles, go in offset-row bands, largest first, after the rectangles' shelves,
+ * as a shop lays out a disc sheet; that layout is kept unless plain shelves need fewer sheets.
+ * Shelf packing is not optimal (guillotine-friendly, fast: O(n·shelves)), good enough to price
+ * material and plan shearing.
  *
  * `gap_mm` is the kerf/web left between blanks, `edge_mm` the trim margin on the sheet edges.
  */
@@ -48,7 +51,7 @@ export interface Placement {
 }
 
 export interface NestResult {
-  algorithm: "shelf-ffdh" | "disc-offset-rows";
+  algorithm: "shelf-ffdh" | "disc-offset-rows" | "shelves-and-offset-rows";
   sheetsNeeded: number;
   partsPerSheet: number[];
   placements: Placement[];
@@ -201,6 +204,60 @@ function discNest(blanks: readonly NestBlank[], d: number, sheet: NestSheet, gap
   return finish("disc-offset-rows", blanks, sheet, placements, [], Math.ceil(blanks.length / centres.length));
 }
 
+/**
+ * Rectangles on shelves, then the discs in offset-row bands (largest size first) in the length the
+ * shelves leave, each band starting where the one before ended, then on new sheets.
+ */
+function bandNest(blanks: readonly NestBlank[], sheet: NestSheet, gap: number, edge: number, rotate: boolean): NestResult {
+  const Wu = sheet.width_mm - 2 * edge;
+  const Lu = sheet.length_mm - 2 * edge;
+  const rectIdx = blanks.flatMap((b, i) => (b.kind === "rectangle" ? [i] : []));
+  const placements: Placement[] = [];
+  const unplaced: number[] = [];
+  // next free length on each sheet (from the usable edge, trailing gap included)
+  const tops: number[] = [];
+  if (rectIdx.length) {
+    const shelf = shelfNest(rectIdx.map((i) => blanks[i]), sheet, gap, edge, rotate);
+    for (const p of shelf.placements) {
+      placements.push({ ...p, index: rectIdx[p.index] });
+      tops[p.sheet] = Math.max(tops[p.sheet] ?? 0, p.y - edge + p.h + gap);
+    }
+    for (let s = 0; s < shelf.sheetsNeeded; s++) tops[s] ??= 0;
+    unplaced.push(...shelf.unplaced.map((i) => rectIdx[i]));
+  }
+  const bySize = new Map<number, number[]>();
+  blanks.forEach((b, i) => {
+    if (b.kind !== "disc") return;
+    if (b.diameter_mm > Wu + 1e-9 || b.diameter_mm > Lu + 1e-9) return void unplaced.push(i);
+    (bySize.get(b.diameter_mm) ?? bySize.set(b.diameter_mm, []).get(b.diameter_mm)!).push(i);
+  });
+  let s = 0;
+  for (const [d, indices] of [...bySize.entries()].sort((a, b) => b[0] - a[0])) {
+    let k = 0;
+    while (k < indices.length) {
+      if (s >= tops.length) tops.push(0);
+      const centres = offsetRowCentres(d, gap, Wu, Lu - tops[s]);
+      if (centres.length === 0) {
+        s++;
+        continue;
+      }
+      const n = Math.min(centres.length, indices.length - k);
+      let reach = 0;
+      for (let j = 0; j < n; j++) {
+        const [cx, cy] = centres[j];
+        const i = indices[k + j];
+        placements.push({ index: i, id: blanks[i].id, sheet: s, kind: "disc", x: edge + cx - d / 2, y: edge + tops[s] + cy - d / 2, w: d, h: d, rotated: false });
+        reach = Math.max(reach, cy + d / 2);
+      }
+      tops[s] += reach + gap;
+      k += n;
+      if (k < indices.length) s++;
+    }
+  }
+  placements.sort((p, q) => p.index - q.index);
+  return finish("shelves-and-offset-rows", blanks, sheet, placements, unplaced, tops.length);
+}
+
 export function nestBlanks(blanks: readonly NestBlank[], sheet: NestSheet, options: NestOptions = {}): NestResult {
   const gap = options.gap_mm ?? DEFAULT_NEST_GAP_MM;
   const edge = options.edge_mm ?? gap;
@@ -211,7 +268,13 @@ export function nestBlanks(blanks: readonly NestBlank[], sheet: NestSheet, optio
   const first = blanks[0];
   if (blanks.length > 1 && first.kind === "disc" && blanks.every((b) => b.kind === "disc" && b.diameter_mm === first.diameter_mm)) {
     const hex = discNest(blanks, first.diameter_mm, sheet, gap, edge);
-    if (hex && (hex.sheetsNeeded < shelf.sheetsNeeded || (hex.sheetsNeeded === shelf.sheetsNeeded && hex.partsPerSheet[0] > shelf.partsPerSheet[0]))) return hex;
+    // offset rows as a shop lays discs out, unless square rows need fewer sheets (a tie costs the same material)
+    if (hex && hex.sheetsNeeded <= shelf.sheetsNeeded) return hex;
+    return shelf;
+  }
+  if (blanks.some((b) => b.kind === "disc")) {
+    const bands = bandNest(blanks, sheet, gap, edge, rotate);
+    if (bands.unplaced.length <= shelf.unplaced.length && bands.sheetsNeeded <= shelf.sheetsNeeded) return bands;
   }
   return shelf;
 }

@@ -82,7 +82,7 @@ export function layerGrowth_mm(layers: ReadonlyArray<Pick<DesignLayer, "thicknes
 }
 
 export function partsForDesign(config: DesignConfig): FabricatedPart[] {
-  if (config.layers.length === 0) throw new FabricationInputError("layers", "a design needs at least one layer");
+  if (config.layers.length === 0) throw new FabricationInputError("layers", "Give at least one layer.");
   const parts: FabricatedPart[] = [];
   let grow = 0; // Σ (T + gap) of the layers inside
   let collarGrow = 0; // Σ T of the collars inside
@@ -116,9 +116,9 @@ export function partsForDesign(config: DesignConfig): FabricatedPart[] {
         const cap = can.endCaps[0];
         parts.push(mk({ role: "wall", method: "rolled", quantityPerAssembly: 1, blank: { kind: "rectangle", length_mm: can.wall.length_mm, width_mm: can.wall.width_mm }, area_mm2: can.wall.length_mm * can.wall.width_mm, bendCount: 0, weldLength_mm: can.weldLength_mm, drawStages: 0, processAnneals: 0, finishedPiece: true }));
         parts.push(mk({ role: "end-cap", method: "rolled", quantityPerAssembly: 2, blank: { kind: "disc", diameter_mm: cap.diameter_mm }, area_mm2: (Math.PI * cap.diameter_mm ** 2) / 4, bendCount: 0, weldLength_mm: 0, drawStages: 0, processAnneals: 0, finishedPiece: false }));
-      } else throw new FabricationInputError("method", "a cylinder is drawn or rolled");
+      } else throw new FabricationInputError("method", "A cylinder is made drawn or rolled.");
     } else {
-      if (config.method !== "bent") throw new FabricationInputError("method", "a box is bent");
+      if (config.method !== "bent") throw new FabricationInputError("method", "A box is made bent.");
       const body = {
         width_mm: (dims.width ?? NaN) + add,
         depth_mm: (dims.depth ?? NaN) + add,

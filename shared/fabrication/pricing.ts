@@ -10,7 +10,7 @@
  * Setup is charged once per job and so spread over the quantity.
  */
 import type { PriceList, StockSheet } from "../schemas/pricing";
-import { nestBlanks, type NestBlank } from "./nesting";
+import { nestBlanks, type NestBlank, type NestOptions, type NestResult } from "./nesting";
 import type { FabricatedPart } from "./parts";
 
 export type { PriceList, StockSheet, FormingLimits, MaterialPrice, QuantityBreak } from "../schemas/pricing";
@@ -49,6 +49,11 @@ export interface PriceInput {
   sampleSize?: number;
   /** web between blanks on the sheet, default 3 mm */
   nestGap_mm?: number;
+  /**
+   * Nests one alloy and gauge's blanks on a stock sheet: nestBlanks unless given. A caller that
+   * prices thousands of designs (the design advisor) passes a memo of it; the price is the same.
+   */
+  nest?: (blanks: NestBlank[], sheet: StockSheet, options: NestOptions) => Pick<NestResult, "unplaced" | "sheetsNeeded" | "utilisation">;
 }
 
 /** Round half away from zero (Math.round rounds −0.5 toward +∞). */
@@ -77,6 +82,7 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
   if (!Number.isInteger(quantity) || quantity < 1) throw new RangeError("quantity must be a positive whole number");
   if (parts.length === 0) throw new RangeError("no parts to price");
   const gap = input.nestGap_mm ?? 3;
+  const nest = input.nest ?? nestBlanks;
   const lines: PriceLine[] = [];
   const material: PriceBuildUp["material"] = [];
 
@@ -96,13 +102,16 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
     const perAssembly = group.reduce((s, p) => s + p.quantityPerAssembly, 0);
     const net = group.reduce((s, p) => s + (p.mass_kg ?? 0) * p.quantityPerAssembly, 0) * quantity;
     const assemblies = Math.max(1, Math.min(quantity, Math.floor(NEST_SAMPLE_BLANKS / perAssembly)));
-    const blanks: NestBlank[] = [];
-    for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+    let blanks: NestBlank[] | undefined; // built when a stock sheet of the alloy and gauge is there to nest on
     let utilisation = pl.fallbackUtilisation;
     let chosen: StockSheet | undefined;
     for (const sheet of pl.stockSheets) {
       if (sheet.materialId !== materialId || Math.abs(sheet.thickness_mm - thickness_mm) > 1e-6) continue;
-      const r = nestBlanks(blanks, sheet, { gap_mm: gap });
+      if (!blanks) {
+        blanks = [];
+        for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+      }
+      const r = nest(blanks, sheet, { gap_mm: gap });
       if (r.unplaced.length > 0 || r.sheetsNeeded === 0) continue;
       if (!chosen || r.utilisation > utilisation) { utilisation = r.utilisation; chosen = sheet; }
     }
@@ -215,4 +224,65 @@ export const defaultPriceList: PriceList = {
 
 export function formingLimitsFor(materialId: string, priceList: PriceList = defaultPriceList) {
   return priceList.formingLimits.find((f) => f.materialId === materialId);
+}
+
+/** A line of the price as a customer reads it: what, how much of it, and its amount (the shop's margin included). */
+export interface CustomerPriceLine {
+  key: string;
+  label: string;
+  quantity: number;
+  total_cents: number;
+}
+
+/**
+ * The price build-up without the shop's margin and internal rates: each line's amount carries
+ * its share of the margin (spread in proportion, whole cents, largest remainders first, so the
+ * lines still add up to the subtotal), and no line shows a rate. Discount, rounding, the price
+ * per piece and the total are the same figures the shop sees.
+ */
+export interface CustomerPriceBuildUp {
+  lines: CustomerPriceLine[];
+  subtotal_cents: number;
+  discountPercent: number;
+  discount_cents: number;
+  rounding_cents: number;
+  setupPerUnit_cents: number;
+  unitPrice_cents: number;
+  quantity: number;
+  total_cents: number;
+  currency: string;
+}
+
+/** Whole cents that add up to `target`, in proportion to `weights` (largest remainder). */
+export function spreadCents(weights: readonly number[], target: number): number[] {
+  const sum = weights.reduce((s, w) => s + w, 0);
+  if (sum === 0) return weights.map(() => 0);
+  const exact = weights.map((w) => (w * target) / sum);
+  const floors = exact.map(Math.floor);
+  let left = target - floors.reduce((s, x) => s + x, 0);
+  const order = exact.map((x, i) => ({ i, frac: x - Math.floor(x) })).sort((a, b) => b.frac - a.frac || a.i - b.i);
+  for (const { i } of order) {
+    if (left <= 0) break;
+    floors[i] += 1;
+    left -= 1;
+  }
+  return floors.map((x) => x || 0);
+}
+
+export function customerPrice(p: PriceBuildUp): CustomerPriceBuildUp {
+  const withMargin = p.subtotal_cents + p.margin_cents;
+  const totals = p.subtotal_cents === 0 ? p.lines.map((l) => l.total_cents) : spreadCents(p.lines.map((l) => l.total_cents), withMargin);
+  return {
+    lines: p.lines.map((l, i) => ({ key: l.key, label: l.label, quantity: l.quantity, total_cents: totals[i] })),
+    subtotal_cents: withMargin,
+    discountPercent: p.discountPercent,
+    discount_cents: p.discount_cents,
+    rounding_cents: p.rounding_cents,
+    // the setup share a piece carries, margin included
+    setupPerUnit_cents: p.subtotal_cents === 0 ? p.setupPerUnit_cents : roundCents((p.setupPerUnit_cents * withMargin) / p.subtotal_cents),
+    unitPrice_cents: p.unitPrice_cents,
+    quantity: p.quantity,
+    total_cents: p.total_cents,
+    currency: p.currency,
+  };
 }

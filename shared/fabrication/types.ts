@@ -1,4 +1,5 @@
 /** Shared shapes of the fabrication engine. Lengths mm, areas mm², masses kg. */
+import { fieldWords } from "../schemas/messages";
 
 export type Point = [number, number];
 export type Segment = [Point, Point];
@@ -40,12 +41,17 @@ export class FabricationInputError extends Error {
   }
 }
 
+const named = (field: string) => {
+  const { label } = fieldWords(field.split(".").map((k) => (/^\d+$/.test(k) ? Number(k) : k)));
+  return label[0].toUpperCase() + label.slice(1);
+};
+
 export function requirePositive(value: number, field: string): void {
-  if (!Number.isFinite(value) || value <= 0) throw new FabricationInputError(field, `${field} must be a positive number of millimetres`);
+  if (!Number.isFinite(value) || value <= 0) throw new FabricationInputError(field, `${named(field)} must be more than 0 mm.`);
 }
 
 export function requireNonNegative(value: number, field: string): void {
-  if (!Number.isFinite(value) || value < 0) throw new FabricationInputError(field, `${field} must be zero or positive`);
+  if (!Number.isFinite(value) || value < 0) throw new FabricationInputError(field, `${named(field)} must be at least 0 mm.`);
 }
 
 /** Shoelace area of a simple polygon (absolute value). */

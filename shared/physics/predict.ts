@@ -355,7 +355,19 @@ function summary(asBuilt_db: number, ideal: Figure, losses: AsBuiltSummary["loss
   return `Built, it should reach about ${asBuilt_db.toFixed(1)} dB, ${ideal.beyondLimit ? "far" : `${diff.toFixed(1)} dB`} below the seamless shell's ${idealText}, limited mostly by ${cause}.`;
 }
 
-export function predictShield(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): PredictionResult {
+/**
+ * `detail: false` leaves out what only a reader of one prediction needs: the sentences (the
+ * as-built summary and each layer's μ reason are empty), the warnings and what each loss takes
+ * (`asBuilt.losses` is empty). A search that predicts thousands of designs reads only the
+ * figures, which are the same.
+ */
+export function predictShield(
+  input: PredictionInput,
+  materials: MaterialLookup = materialLibrary,
+  build: BuildModel = DEFAULT_BUILD_MODEL,
+  options: { detail?: boolean } = {},
+): PredictionResult {
+  const detail = options.detail ?? true;
   const p = prepare(input, materials, build);
   const { ctx, layers, B0 } = p;
   const s = settle(p);
@@ -363,7 +375,7 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
   const ideal = figure(lnIdeal);
 
   const terms = termsFor(p, s.mus);
-  const walls = asBuiltFrom(s.core, terms, NOMINAL, true);
+  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
   const lnWalls = Math.min(walls.ln, lnIdeal);
   const wallAttenuation_db = figure(lnWalls).attenuation_db;
   const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
@@ -381,7 +393,7 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
   const low = Math.min(built.attenuation_db, figure(lowLn).attenuation_db);
   const high = Math.min(ideal.attenuation_db, Math.max(built.attenuation_db, figure(highLn).attenuation_db));
 
-  const losses: AsBuiltSummary["losses"] = (Object.entries(walls.losses) as [LossCause, number][])
+  const losses: AsBuiltSummary["losses"] = !detail ? [] : (Object.entries(walls.losses) as [LossCause, number][])
     .map(([cause, db]): AsBuiltSummary["losses"][number] => ({ cause, db }))
     .concat(holes.length ? [{ cause: "holes" as const, db: Math.max(0, wallAttenuation_db - built.attenuation_db) }] : [])
     .filter((x) => x.db >= 0.05)
@@ -396,7 +408,7 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     summary: "",
     source: layers.some((l) => l.fit) || build.calibration?.source === "shop" ? "shop" : "library",
   };
-  asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
+  if (detail) asBuilt.summary = summary(built.attenuation_db, ideal, losses.length ? losses : [{ cause: "ceiling", db: 0 }], asBuilt);
 
   const layerResults: LayerResult[] = layers.map((l, i) => {
     const w = s.core.fields![i];
@@ -413,22 +425,12 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
       saturationMargin: saturationMargin(l.sat, peak),
       mu_r: s.mus[i],
       muSource: s.sources[i],
-      muReason: muReason(l, s.sources[i], s.means[i], p.state, p),
+      muReason: detail ? muReason(l, s.sources[i], s.means[i], p.state, p) : "",
       skinDepth_mm: Number.isFinite(d) ? d * 1000 : null,
     };
   });
 
-  const warnings: PredictionWarning[] = saturationWarnings(
-    layerResults.map((l, i) => ({ label: describe(layers[i]), wallFlux_T: l.wallFluxDensity_T, saturation_T: l.saturation_T })),
-    ctx.f > 0,
-  );
-  warnings.push(...designWarnings(ctx, layers, input, s.mus, ideal.attenuation_db));
-  warnings.push(...holeWarnings(holes, wallAttenuation_db, built.attenuation_db));
-  if (ideal.beyondLimit)
-    warnings.push({
-      code: "BEYOND_REPORT_LIMIT",
-      message: `The seamless shell's figure is beyond ${REPORT_LIMIT_DB} dB and is stated as ${REPORT_LIMIT_DB} dB: no measurement reaches there, and a built shield is limited long before by its construction.`,
-    });
+  const warnings: PredictionWarning[] = detail ? warningsFor(p, s, input, layerResults, ideal, holes, wallAttenuation_db, built.attenuation_db) : [];
 
   return {
     shieldingFactor: built.shieldingFactor,
@@ -447,6 +449,31 @@ export function predictShield(input: PredictionInput, materials: MaterialLookup 
     ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
     ...(build.calibration ? { calibration: build.calibration } : {}),
   };
+}
+
+function warningsFor(
+  p: Prepared,
+  s: Settled,
+  input: PredictionInput,
+  layerResults: LayerResult[],
+  ideal: Figure,
+  holes: HoleResult[],
+  wallAttenuation_db: number,
+  built_db: number,
+): PredictionWarning[] {
+  const { ctx, layers } = p;
+  const warnings: PredictionWarning[] = saturationWarnings(
+    layerResults.map((l, i) => ({ label: describe(layers[i]), wallFlux_T: l.wallFluxDensity_T, saturation_T: l.saturation_T })),
+    ctx.f > 0,
+  );
+  warnings.push(...designWarnings(ctx, layers, input, s.mus, ideal.attenuation_db));
+  warnings.push(...holeWarnings(holes, wallAttenuation_db, built_db));
+  if (ideal.beyondLimit)
+    warnings.push({
+      code: "BEYOND_REPORT_LIMIT",
+      message: `The seamless shell's figure is beyond ${REPORT_LIMIT_DB} dB and is stated as ${REPORT_LIMIT_DB} dB: no measurement reaches there, and a built shield is limited long before by its construction.`,
+    });
+  return warnings;
 }
 
 function describe(l: Layer): string {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import "./messages"; // the one error map: every field named in plain words
 
 // Request bodies for sign-in, accounts and invitations. The server validates with these
 // schemas and the client forms use the same ones, so a message shown beside a field is the
@@ -75,6 +76,14 @@ export const invitationCreateSchema = z.object({
   organizationId: z.uuid({ error: "Choose an organisation." }).optional(),
 });
 
+/** PATCH /api/users/:id: the planner changes a role, or deactivates or reactivates a person. */
+export const userAccessUpdateSchema = z
+  .object({
+    role: roleSchema.optional(),
+    active: z.boolean({ error: "Active must be true or false." }).optional(),
+  })
+  .refine((v) => v.role !== undefined || v.active !== undefined, { error: "Give a new role or whether the person is active.", path: ["role"] });
+
 export type LoginInput = z.infer<typeof loginSchema>;
 export type RegisterInput = z.infer<typeof registerSchema>;
 export type InvitationAcceptInput = z.infer<typeof invitationAcceptSchema>;
@@ -83,3 +92,4 @@ export type PasswordResetConfirmInput = z.infer<typeof passwordResetConfirmSchem
 export type ProfileInput = z.infer<typeof profileSchema>;
 export type PasswordChangeInput = z.infer<typeof passwordChangeSchema>;
 export type InvitationCreateInput = z.infer<typeof invitationCreateSchema>;
+export type UserAccessUpdate = z.infer<typeof userAccessUpdateSchema>;

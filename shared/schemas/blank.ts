@@ -5,10 +5,14 @@
  */
 import { z } from "zod";
 import type { BlankResult } from "../fabrication";
+import { issueFields } from "./messages";
 
-const positiveMm = z.number({ error: "must be a number of millimetres" }).positive({ error: "must be greater than zero" });
-const nonNegativeMm = z.number({ error: "must be a number of millimetres" }).nonnegative({ error: "must not be negative" });
+// Messages: shared/schemas/messages.ts names each field ("Seam overlap must be at least 0 mm.");
+// the cross-field rules below say in the same way what would be right.
+const positiveMm = z.number().positive();
+const nonNegativeMm = z.number().min(0);
 const material = z.string().min(1).max(64).optional();
+const mm = (x: number) => `${+x.toPrecision(6)} mm`;
 
 const cylinderDimensions = z.object({ diameter: positiveMm, length: positiveMm });
 const boxDimensions = z.object({ width: positiveMm, depth: positiveMm, height: positiveMm });
@@ -19,7 +23,7 @@ const ok = (...xs: unknown[]) => xs.every((x) => typeof x === "number" && Number
 const okDims = (...xs: unknown[]) => xs.every((x) => typeof x === "number" && Number.isFinite(x) && x > 0);
 
 function checkThickness(ctx: Ctx, t: number, smallest: number) {
-  if (ok(t) && okDims(smallest) && t >= smallest) ctx.addIssue({ code: "custom", path: ["thickness_mm"], message: "thickness must be smaller than the part's dimensions" });
+  if (ok(t) && okDims(smallest) && t >= smallest) ctx.addIssue({ code: "custom", path: ["thickness_mm"], message: `Sheet thickness must be less than the part's smallest inside size (${mm(smallest)}).` });
 }
 
 export const drawnBlankRequestSchema = z
@@ -35,8 +39,8 @@ export const drawnBlankRequestSchema = z
   .superRefine((v, ctx) => {
     const { diameter, length } = v.dimensions_mm;
     const r = v.cornerRadius_mm;
-    if (r !== undefined && ok(r) && okDims(diameter) && r > diameter / 2) ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: "corner radius must not exceed half the diameter" });
-    else if (r !== undefined && ok(r) && okDims(length) && r > length) ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: "corner radius must not exceed the cup height" });
+    if (r !== undefined && ok(r) && okDims(diameter) && r > diameter / 2) ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: `Corner radius must be at most half the inside diameter (${mm(diameter / 2)}).` });
+    else if (r !== undefined && ok(r) && okDims(length) && r > length) ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: `Corner radius must be at most the cup's inside height (${mm(length)}).` });
     checkThickness(ctx, v.thickness_mm, Math.min(diameter, length));
   });
 
@@ -59,7 +63,7 @@ export const bentBlankRequestSchema = z
     dimensions_mm: boxDimensions,
     thickness_mm: positiveMm,
     bendRadius_mm: nonNegativeMm,
-    kFactor: z.number({ error: "must be a number" }).min(0, { error: "K-factor must lie between 0 and 0.5" }).max(0.5, { error: "K-factor must lie between 0 and 0.5" }),
+    kFactor: z.number().min(0, { error: "K-factor must be between 0 and 0.5." }).max(0.5, { error: "K-factor must be between 0 and 0.5." }),
     lidHeight_mm: positiveMm.optional(),
     lidClearance_mm: nonNegativeMm.optional(),
     material,
@@ -67,9 +71,9 @@ export const bentBlankRequestSchema = z
   .superRefine((v, ctx) => {
     const { width, depth, height } = v.dimensions_mm;
     const R = v.bendRadius_mm;
-    if (ok(R) && okDims(width, depth) && 2 * R >= Math.min(width, depth)) ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: "bend radius must be less than half the smaller side" });
-    else if (ok(R) && okDims(height) && R >= height) ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: "bend radius must be less than the height" });
-    if (v.lidHeight_mm !== undefined && ok(R, v.lidHeight_mm) && v.lidHeight_mm <= R) ctx.addIssue({ code: "custom", path: ["lidHeight_mm"], message: "lid height must exceed the bend radius" });
+    if (ok(R) && okDims(width, depth) && 2 * R >= Math.min(width, depth)) ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: `Bend radius must be less than half the smaller side (${mm(Math.min(width, depth) / 2)}).` });
+    else if (ok(R) && okDims(height) && R >= height) ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: `Bend radius must be less than the inside height (${mm(height)}).` });
+    if (v.lidHeight_mm !== undefined && ok(R, v.lidHeight_mm) && v.lidHeight_mm <= R) ctx.addIssue({ code: "custom", path: ["lidHeight_mm"], message: `Lid height must be more than the bend radius (${mm(R)}).` });
     checkThickness(ctx, v.thickness_mm, Math.min(width, depth, height));
   });
 
@@ -78,13 +82,13 @@ const METHODS_FOR_SHAPE: Record<string, readonly string[]> = { cylinder: ["drawn
 /** First settle shape and method (so a box cannot be "drawn"), then the body for that method. */
 const shapeAndMethod = z
   .object({
-    shape: z.enum(["cylinder", "box"], { error: 'shape must be "cylinder" or "box"' }),
-    method: z.enum(["drawn", "rolled", "bent"], { error: 'method must be "drawn", "rolled" or "bent"' }),
+    shape: z.enum(["cylinder", "box"], { error: "Shape must be cylinder or box." }),
+    method: z.enum(["drawn", "rolled", "bent"], { error: "Method must be drawn, rolled or bent." }),
   })
   .loose()
   .superRefine((v, ctx) => {
     const allowed = METHODS_FOR_SHAPE[v.shape];
-    if (!allowed.includes(v.method)) ctx.addIssue({ code: "custom", path: ["method"], message: `a ${v.shape} is made ${allowed.join(" or ")}, not ${v.method}` });
+    if (!allowed.includes(v.method)) ctx.addIssue({ code: "custom", path: ["method"], message: `A ${v.shape} is made ${allowed.join(" or ")}, not ${v.method}.` });
   });
 
 export const blankRequestSchema = shapeAndMethod.pipe(z.discriminatedUnion("method", [drawnBlankRequestSchema, rolledBlankRequestSchema, bentBlankRequestSchema]));
@@ -95,14 +99,7 @@ export type BentBlankRequest = z.infer<typeof bentBlankRequestSchema>;
 export type BlankRequest = z.infer<typeof blankRequestSchema>;
 
 /** Issues as the contract's `fields` object: dotted path → message (first issue per path). */
-export function fieldErrors(error: z.ZodError): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join(".") || "body";
-    if (!(key in out)) out[key] = issue.message;
-  }
-  return out;
-}
+export const fieldErrors = issueFields;
 
 /** POST /api/blanks: the engine's result, the material it used for the mass, and for a bent box the typical K-factor. */
 export type BlankJson = BlankResult & {

@@ -1,5 +1,6 @@
 import type { MuPoint } from "../physics/materials";
 import { z } from "zod";
+import "./messages"; // the one error map: every field named in plain words
 
 // A row of the materials library as the admin edits it (PUT /api/materials/:id, POST /api/materials).
 // Every value carries a source tag, so a reader can tell a published figure from shop practice

@@ -184,6 +184,8 @@ export interface OrderJson extends OrderSummaryJson {
   notes: string | null;
   unitPrice_cents: number;
   requiredAttenuation_db: number;
+  /** the AQL its lots are sampled at (ISO 2859-1 / Z1.4 column) */
+  aql: number;
   leadTime_workingDays: number;
   paid_cents: number;
   refunded_cents: number;

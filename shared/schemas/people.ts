@@ -12,6 +12,17 @@ export interface UserJson {
   organizationId: string | null;
   organizationName: string | null;
   createdAt: string;
+  /** false once the planner has deactivated the person: they cannot sign in */
+  active: boolean;
+}
+
+/** GET /api/users/:id/events, one entry of the trail about a person: what changed, who did it, when. */
+export interface UserEventJson {
+  id: string;
+  action: string;
+  at: string;
+  actor: { id: string; name: string } | null;
+  data: Record<string, unknown>;
 }
 
 /** GET /api/organizations, one row. */

@@ -5,6 +5,7 @@ import { z } from "zod";
 // the cross-field check (wall thinner than the radius) names layers.N.thickness_mm.
 
 import { INPUT_LIMITS, type Range } from "../physics/limits";
+import { issueFields } from "./messages";
 
 export const MAX_FREQUENCY_HZ = INPUT_LIMITS.frequency_hz.max;
 /** 10 T: far above any field a passive shield is used in; catches unit slips (µT vs T). */
@@ -23,7 +24,7 @@ function bounded(what: string, range: Range, typeError?: string, minNote = "") {
     .max(range.max, { error: `${cap(what)} is too large: at most ${withUnit(range.max, range.unit)}.` });
 }
 
-const mm = (what: string, range: Range = INPUT_LIMITS.dimension_mm) => bounded(what, range, `Enter ${what} in millimetres as a number.`);
+const mm = (what: string, range: Range = INPUT_LIMITS.dimension_mm) => bounded(what, range, `Enter ${what} as a number.`);
 
 const layerSchema = z
   .object({
@@ -50,7 +51,8 @@ const holeSchema = z.object({
   collarLength_mm: bounded("the collar length", INPUT_LIMITS.collarLength_mm, "Collar length must be a number of millimetres.").default(0),
 });
 
-const fieldSchema = z.object({
+/** The applied field: frequency, amplitude and direction (the design advisor asks for the same). */
+export const fieldSchema = z.object({
   frequency_hz: bounded("the frequency", INPUT_LIMITS.frequency_hz, "Frequency must be a number in hertz.", " (0 is a static field)"),
   amplitude_uT: bounded("the field amplitude", INPUT_LIMITS.amplitude_uT, "Field amplitude must be a number in microtesla."),
   orientation: z.enum(["transverse", "axial"], { error: "Orientation must be transverse or axial." }).default("transverse"),
@@ -120,14 +122,7 @@ export type PredictionRequest = z.infer<typeof predictionRequestSchema>;
 export type PredictionRequestInput = z.input<typeof predictionRequestSchema>;
 
 /** Zod issues as the API's `fields` map: {"layers.0.thickness_mm": "message"}. */
-export function predictionIssueFields(error: z.ZodError): Record<string, string> {
-  const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join(".") || "body";
-    if (!(key in fields)) fields[key] = issue.message;
-  }
-  return fields;
-}
+export const predictionIssueFields = issueFields;
 
 // POST /api/predictions/sweep: the prediction body plus how many log-spaced frequencies, and
 // the range (the page lets the person change it; it always includes the asked frequency).

@@ -5,15 +5,18 @@
  * requiredAttenuation_db) without this schema knowing them.
  */
 import { z } from "zod";
-import type { FabricatedPart, Placement, PriceBuildUp } from "../fabrication";
+import type { CustomerPriceBuildUp, FabricatedPart, Placement, PriceBuildUp } from "../fabrication";
+import "./messages";
 
 export const MAX_ESTIMATE_QUANTITY = 100_000;
 
-const positiveMm = z.number({ error: "must be a number of millimetres" }).positive({ error: "must be greater than zero" }).max(100_000, { error: "is too large" });
-const nonNegativeMm = z.number({ error: "must be a number of millimetres" }).nonnegative({ error: "must not be negative" }).max(100_000, { error: "is too large" });
+// Messages: shared/schemas/messages.ts names each field; the cross-field rules say what would be right.
+const positiveMm = z.number().positive().max(100_000);
+const nonNegativeMm = z.number().min(0).max(100_000);
+const mm = (x: number) => `${+x.toPrecision(6)} mm`;
 
 const layerSchema = z.object({
-  material: z.string({ error: "choose a material" }).trim().min(1, { error: "choose a material" }).max(64),
+  material: z.string({ error: "Choose a material." }).trim().min(1, { error: "Choose a material." }).max(64),
   thickness_mm: positiveMm,
   gap_mm: nonNegativeMm.optional(),
 });
@@ -30,8 +33,8 @@ const num = (x: unknown): x is number => typeof x === "number" && Number.isFinit
 
 export const designConfigurationSchema = z
   .object({
-    shape: z.enum(["cylinder", "box"], { error: 'shape must be "cylinder" or "box"' }),
-    method: z.enum(["drawn", "rolled", "bent"], { error: 'method must be "drawn", "rolled" or "bent"' }),
+    shape: z.enum(["cylinder", "box"], { error: "Shape must be cylinder or box." }),
+    method: z.enum(["drawn", "rolled", "bent"], { error: "Method must be drawn, rolled or bent." }),
     dimensions_mm: z.object({
       diameter: positiveMm.optional(),
       length: positiveMm.optional(),
@@ -40,13 +43,13 @@ export const designConfigurationSchema = z
       height: positiveMm.optional(),
     }),
     /** innermost first */
-    layers: z.array(layerSchema, { error: "layers must be a list" }).min(1, { error: "give at least one layer" }).max(6, { error: "at most 6 layers" }),
+    layers: z.array(layerSchema, { error: "Layers must be a list." }).min(1, { error: "Give at least one layer." }).max(6, { error: "Give at most 6 layers." }),
     cornerRadius_mm: nonNegativeMm.optional(),
     trim_mm: nonNegativeMm.optional(),
     seamOverlap_mm: nonNegativeMm.optional(),
     capFlange_mm: nonNegativeMm.optional(),
     bendRadius_mm: nonNegativeMm.optional(),
-    kFactor: z.number({ error: "must be a number" }).min(0, { error: "K-factor must lie between 0 and 0.5" }).max(0.5, { error: "K-factor must lie between 0 and 0.5" }).optional(),
+    kFactor: z.number().min(0, { error: "K-factor must be between 0 and 0.5." }).max(0.5, { error: "K-factor must be between 0 and 0.5." }).optional(),
     lid: z.boolean().optional(),
     lidHeight_mm: positiveMm.optional(),
     lidClearance_mm: nonNegativeMm.optional(),
@@ -55,32 +58,32 @@ export const designConfigurationSchema = z
   .loose()
   .superRefine((v, ctx) => {
     const allowed = METHODS_FOR_SHAPE[v.shape];
-    if (!allowed.includes(v.method)) ctx.addIssue({ code: "custom", path: ["method"], message: `a ${v.shape} is made ${allowed.join(" or ")}, not ${v.method}` });
+    if (!allowed.includes(v.method)) ctx.addIssue({ code: "custom", path: ["method"], message: `A ${v.shape} is made ${allowed.join(" or ")}, not ${v.method}.` });
     const dims = v.dimensions_mm as Record<string, number | undefined>;
     for (const key of DIMENSIONS_FOR_SHAPE[v.shape]) {
-      if (dims[key] === undefined) ctx.addIssue({ code: "custom", path: ["dimensions_mm", key], message: `a ${v.shape} needs its inside ${key}` });
+      if (dims[key] === undefined) ctx.addIssue({ code: "custom", path: ["dimensions_mm", key], message: `Enter the inside ${key} of the ${v.shape === "box" ? "box" : "can"} in mm.` });
     }
     const needed = DIMENSIONS_FOR_SHAPE[v.shape].map((k) => dims[k]);
     if (!needed.every(num)) return;
     const smallest = Math.min(...(needed as number[]));
     if (v.shape === "cylinder" && num(v.cornerRadius_mm) && v.cornerRadius_mm > (dims.diameter as number) / 2) {
-      ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: "corner radius must not exceed half the diameter" });
+      ctx.addIssue({ code: "custom", path: ["cornerRadius_mm"], message: `Corner radius must be at most half the inside diameter (${mm((dims.diameter as number) / 2)}).` });
     }
     if (v.shape === "box" && num(v.bendRadius_mm) && 2 * v.bendRadius_mm >= Math.min(dims.width as number, dims.depth as number)) {
-      ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: "bend radius must be less than half the smaller side" });
+      ctx.addIssue({ code: "custom", path: ["bendRadius_mm"], message: `Bend radius must be less than half the smaller side (${mm(Math.min(dims.width as number, dims.depth as number) / 2)}).` });
     }
     v.layers.forEach((l, i) => {
-      if (num(l.thickness_mm) && l.thickness_mm >= smallest) ctx.addIssue({ code: "custom", path: ["layers", i, "thickness_mm"], message: "thickness must be smaller than the part's dimensions" });
+      if (num(l.thickness_mm) && l.thickness_mm >= smallest) ctx.addIssue({ code: "custom", path: ["layers", i, "thickness_mm"], message: `Wall thickness of layer ${i + 1} must be less than the part's smallest inside size (${mm(smallest)}).` });
     });
   });
 
 export const priceEstimateRequestSchema = z.object({
   configuration: designConfigurationSchema,
   quantity: z
-    .number({ error: "quantity must be a whole number" })
-    .int({ error: "quantity must be a whole number" })
-    .min(1, { error: "quantity must be at least 1" })
-    .max(MAX_ESTIMATE_QUANTITY, { error: `quantity must be at most ${MAX_ESTIMATE_QUANTITY}` }),
+    .number({ error: "Quantity must be a whole number of pieces." })
+    .int({ error: "Quantity must be a whole number of pieces." })
+    .min(1, { error: "Quantity must be at least 1 piece." })
+    .max(MAX_ESTIMATE_QUANTITY, { error: `Quantity must be at most ${MAX_ESTIMATE_QUANTITY.toLocaleString("en-GB")} pieces.` }),
 });
 
 export type DesignConfiguration = z.infer<typeof designConfigurationSchema>;
@@ -113,7 +116,15 @@ export interface PriceEstimate {
   currency: string;
 }
 
-/** POST /api/price-estimates: the estimate and the shop-rates version it was priced with. */
-export interface PriceEstimateJson extends PriceEstimate {
+/**
+ * How a price is shown: the shop's staff see every rate, the margin and the material use
+ * ("shop"); a customer sees amounts with the margin spread over them and no rate ("customer").
+ * The server chooses by the viewer's role and sends nothing more, so hiding is never left to the page.
+ */
+export type PriceView = ({ view: "shop" } & PriceBuildUp) | ({ view: "customer" } & CustomerPriceBuildUp);
+
+/** POST /api/price-estimates: the estimate as the viewer may see it, and the shop-rates version it was priced with. */
+export interface PriceEstimateJson extends Omit<PriceEstimate, "price"> {
+  price: PriceView;
   priceListVersion: number;
 }

@@ -3,7 +3,9 @@
  * validated before they reach a quote. Money is integer cents in the list's ISO 4217 currency.
  */
 import { z } from "zod";
+import "./messages"; // the one error map: every field named in plain words
 import { DEFAULT_CONSTRUCTION_SETTINGS, type ConstructionSettings } from "../physics/build-model";
+import { NEAR_SATURATION_FRACTION } from "../physics/saturation";
 
 const cents = z.number().int().nonnegative();
 const percent = z.number().min(0).max(100);
@@ -72,8 +74,56 @@ export const constructionSettingsSchema = z.object({
     .max(500, { error: "The shortest lid overlap is too large: at most 500 mm." }),
 }) satisfies z.ZodType<ConstructionSettings>;
 
+/**
+ * What the design advisor searches with: the gaps between nested layers the shop builds to (its
+ * spacers and tooling steps), the gauges it offers unless a customer names others (of those it
+ * stocks), and the saturation margin a recommended design keeps on every layer. Optional in
+ * the document like the construction settings; read it through designSearchSettingsOf, which
+ * gives the defaults.
+ */
+export const designSearchSettingsSchema = z.object({
+  gapSteps_mm: z
+    .array(
+      z
+        .number({ error: "A gap step must be a number of millimetres." })
+        .min(0.5, { error: "A gap step is too small: at least 0.5 mm." })
+        .max(500, { error: "A gap step is too large: at most 500 mm." }),
+      { error: "The gap steps must be a list of millimetres." },
+    )
+    .min(1, { error: "Give at least one gap step." })
+    .max(8, { error: "At most 8 gap steps: each one multiplies the designs a search tries." })
+    .refine((steps) => new Set(steps).size === steps.length, { error: "Each gap step once." }),
+  gauges_mm: z
+    .array(
+      z
+        .number({ error: "A gauge must be a number of millimetres." })
+        .positive({ error: "A gauge must be greater than zero." })
+        .max(100, { error: "A gauge is too large: at most 100 mm." }),
+      { error: "The gauges must be a list of millimetres." },
+    )
+    .min(1, { error: "Give at least one gauge." })
+    .max(12, { error: "At most 12 gauges: each one multiplies the designs a search tries." })
+    .refine((gauges) => new Set(gauges).size === gauges.length, { error: "Each gauge once." }),
+  minSaturationMargin: z
+    .number({ error: "The saturation margin must be a number." })
+    .min(1, { error: "The saturation margin is too small: at least 1 (the wall at saturation)." })
+    .max(20, { error: "The saturation margin is too large: at most 20." }),
+});
+export type DesignSearchSettings = z.infer<typeof designSearchSettingsSchema>;
+
+/**
+ * Defaults: gaps of 5 to 20 mm in 5 mm steps, the spacer sizes a small shop keeps [practice];
+ * the four common sheet gauges from 0.5 to 2 mm; a recommended design keeps each wall at or
+ * below a third of its saturation induction, the trade's rule (see saturation.ts) [practice].
+ */
+export const DEFAULT_DESIGN_SEARCH_SETTINGS: DesignSearchSettings = {
+  gapSteps_mm: [5, 10, 15, 20],
+  gauges_mm: [0.5, 1, 1.5, 2],
+  minSaturationMargin: 1 / NEAR_SATURATION_FRACTION,
+};
+
 export const priceListSchema = z.object({
-  currency: z.string().regex(/^[A-Z]{3}$/, "ISO 4217 code, e.g. EUR"),
+  currency: z.string().regex(/^[A-Z]{3}$/, { error: "Currency must be a three-letter ISO 4217 code, e.g. EUR." }),
   materials: z.array(materialPriceSchema).min(1),
   /** credit offcuts at the material's scrap price */
   scrapCredit: z.boolean(),
@@ -95,6 +145,7 @@ export const priceListSchema = z.object({
   stockSheets: z.array(stockSheetSchema),
   formingLimits: z.array(formingLimitsSchema),
   construction: constructionSettingsSchema.optional(),
+  designSearch: designSearchSettingsSchema.optional(),
   /**
    * Quoted with every quote: working days from payment to dispatch, and how many days a quote
    * holds its price. Optional with defaults, so versions saved before they existed still parse.
@@ -107,4 +158,9 @@ export type PriceList = z.infer<typeof priceListSchema>;
 /** The construction settings of a price list version, the defaults from practice when it has none. */
 export function constructionSettingsOf(priceList: Pick<PriceList, "construction">): ConstructionSettings {
   return priceList.construction ?? DEFAULT_CONSTRUCTION_SETTINGS;
+}
+
+/** The design advisor's settings of a price list version, the defaults when it has none. */
+export function designSearchSettingsOf(priceList: Pick<PriceList, "designSearch">): DesignSearchSettings {
+  return priceList.designSearch ?? DEFAULT_DESIGN_SEARCH_SETTINGS;
 }

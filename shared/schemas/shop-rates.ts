@@ -5,7 +5,10 @@
  */
 import { z } from "zod";
 import type { ConstructionSettings } from "../physics/build-model";
-import { constructionSettingsSchema, formingLimitsSchema, priceListSchema, stockSheetSchema, type FormingLimits, type PriceList, type StockSheet } from "./pricing";
+import {
+  constructionSettingsSchema, designSearchSettingsSchema, formingLimitsSchema, priceListSchema, stockSheetSchema,
+  type DesignSearchSettings, type FormingLimits, type PriceList, type StockSheet,
+} from "./pricing";
 
 type Ctx = z.RefinementCtx;
 function unique<T>(items: readonly T[], key: (item: T) => string, path: (i: number) => (string | number)[], message: string, ctx: Ctx) {
@@ -17,9 +20,9 @@ function unique<T>(items: readonly T[], key: (item: T) => string, path: (i: numb
   });
 }
 
-/** Everything of the price list except the stock sheets, forming limits and construction settings. */
+/** Everything of the price list except the stock sheets, forming limits, construction and design-search settings. */
 export const priceRatesSchema = priceListSchema
-  .omit({ stockSheets: true, formingLimits: true, construction: true })
+  .omit({ stockSheets: true, formingLimits: true, construction: true, designSearch: true })
   .superRefine((v, ctx) => {
     unique(v.materials, (m) => m.materialId, (i) => ["materials", i, "materialId"], "this material is priced twice", ctx);
     unique(v.quantityBreaks, (b) => String(b.minQuantity), (i) => ["quantityBreaks", i, "minQuantity"], "two breaks start at the same quantity", ctx);
@@ -38,14 +41,18 @@ export const formingLimitsUpdateSchema = z
 /** The construction settings the as-built prediction reads (ceilings per construction, the lid fit). */
 export const constructionUpdateSchema = z.object({ construction: constructionSettingsSchema });
 
+/** The design advisor's gap steps and saturation margin. */
+export const designSearchUpdateSchema = z.object({ designSearch: designSearchSettingsSchema });
+
 export type PriceRates = z.infer<typeof priceRatesSchema>;
 export type PriceRatesInput = z.input<typeof priceRatesSchema>;
 export type StockSheetsUpdate = z.infer<typeof stockSheetsUpdateSchema>;
 export type FormingLimitsUpdate = z.infer<typeof formingLimitsUpdateSchema>;
 export type ConstructionUpdate = z.infer<typeof constructionUpdateSchema>;
+export type DesignSearchUpdate = z.infer<typeof designSearchUpdateSchema>;
 
 /** Which part of the list a version changed. */
-export const shopRateParts = ["seed", "price-list", "stock-sheets", "forming-limits", "construction"] as const;
+export const shopRateParts = ["seed", "price-list", "stock-sheets", "forming-limits", "construction", "design-search"] as const;
 export type ShopRatePart = (typeof shopRateParts)[number];
 
 /** Who saved a version. */
@@ -62,11 +69,13 @@ export interface ShopRatesVersionJson {
   createdBy: ShopRatesAuthorJson | null;
 }
 
-/** GET /api/shop-rates and every save's answer: the current list in its four parts. */
+/** GET /api/shop-rates and every save's answer: the current list in its parts. */
 export interface ShopRatesJson extends ShopRatesVersionJson {
-  priceList: Omit<PriceList, "stockSheets" | "formingLimits" | "construction">;
+  priceList: Omit<PriceList, "stockSheets" | "formingLimits" | "construction" | "designSearch">;
   stockSheets: StockSheet[];
   formingLimits: FormingLimits[];
   /** what the as-built prediction assumes of the shop's construction (defaults until first saved) */
   construction: ConstructionSettings;
+  /** the design advisor's gap steps and saturation margin (defaults until first saved) */
+  designSearch: DesignSearchSettings;
 }

@@ -20,6 +20,7 @@ export const authKeys = {
   all: ["auth"] as const,
   me: ["auth", "me"] as const,
   invitation: (token: string) => ["auth", "invitation", token] as const,
+  resetLink: (token: string) => ["auth", "reset-link", token] as const,
 };
 
 /** The signed-in user, or null when nobody is signed in (a 401 is an answer, not an error). */
@@ -43,6 +44,15 @@ export const invitationQueryOptions = (token: string) =>
     retryOnMount: false,
   });
 
+/** Whether a password-reset link still works (404 when it has expired or was used), asked before the form is shown. */
+export const resetLinkQueryOptions = (token: string) =>
+  queryOptions({
+    queryKey: authKeys.resetLink(token),
+    queryFn: ({ signal }) => api.get<{ expiresAt: string }>(`/api/auth/password-reset/${encodeURIComponent(token)}`, { signal, anonymousOk: true }),
+    staleTime: 60_000,
+    retryOnMount: false,
+  });
+
 /**
  * After sign-in, registration, invitation accept and sign-out the server binds a new CSRF token
  * to the new session, and anything cached belongs to the previous user.
@@ -61,10 +71,20 @@ export function useLogin() {
   });
 }
 
+/**
+ * Registers, then asks who is signed in: the answer to a registration looks the same whether or
+ * not the address already had an account (the server does not tell), and only the session says
+ * whether this browser is now signed in. `user` null: nobody is, and a mail has gone to the address.
+ */
 export function useRegister() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (input: RegisterInput) => api.post<{ user: User }>("/api/auth/register", input, { anonymousOk: true }),
+    mutationFn: async (input: RegisterInput): Promise<{ user: User | null; email: string }> => {
+      await api.post<{ user: User }>("/api/auth/register", input, { anonymousOk: true });
+      resetCsrfToken();
+      const { user } = await api.get<{ user: User | null }>("/api/auth/session", { anonymousOk: true });
+      return { user, email: input.email };
+    },
     onSuccess: ({ user }) => applySessionChange(queryClient, user),
   });
 }

@@ -21,6 +21,14 @@ export class ApiError extends Error {
   }
 }
 
+/**
+ * Whether a failure is about what the person entered (a 400 naming fields), and so belongs beside
+ * the inputs. Anything else (the server failing, the network, a rate limit) is never blamed on them.
+ */
+export function blamesInputs(error: unknown): error is ApiError {
+  return error instanceof ApiError && error.status === 400;
+}
+
 const fallbackMessages: Record<number, string> = {
   0: "Could not reach the server. Check the connection and try again.",
   400: "Some of the values were not accepted.",

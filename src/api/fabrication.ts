@@ -1,7 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
 import type { BlankJson, BlankRequest } from "../../shared/schemas/blank";
 import type { DesignConfigurationInput, PriceEstimateJson } from "../../shared/schemas/price-estimate";
-import type { ConstructionUpdate, FormingLimitsUpdate, PriceRatesInput, ShopRatesJson, ShopRatesVersionJson, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
+import type { ConstructionUpdate, DesignSearchUpdate, FormingLimitsUpdate, PriceRatesInput, ShopRatesJson, ShopRatesVersionJson, StockSheetsUpdate } from "../../shared/schemas/shop-rates";
 import { api } from "./client";
 import { predictionKeys } from "./predictions";
 
@@ -75,7 +75,8 @@ type ShopRatesSave =
   | { part: "price-list"; body: PriceRatesInput }
   | { part: "stock-sheets"; body: StockSheetsUpdate }
   | { part: "forming-limits"; body: FormingLimitsUpdate }
-  | { part: "construction"; body: ConstructionUpdate };
+  | { part: "construction"; body: ConstructionUpdate }
+  | { part: "design-search"; body: DesignSearchUpdate };
 
 /** Saves one part as a new version; every estimate priced with the old list is stale after it. */
 export function useSaveShopRates() {

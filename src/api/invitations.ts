@@ -30,3 +30,21 @@ export function useCreateInvitation() {
     onSuccess: () => queryClient.invalidateQueries({ queryKey: invitationKeys.all }),
   });
 }
+
+/** A fresh link and a fresh week for an invitation; the old link stops working. */
+export function useResendInvitation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api.post<Invitation>(`/api/invitations/${encodeURIComponent(id)}/resend`),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: invitationKeys.all }),
+  });
+}
+
+/** Withdraws an invitation: its link stops working. */
+export function useWithdrawInvitation() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (id: string) => api.delete<void>(`/api/invitations/${encodeURIComponent(id)}`),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: invitationKeys.all }),
+  });
+}

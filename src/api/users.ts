@@ -1,5 +1,6 @@
-import { keepPreviousData, queryOptions } from "@tanstack/react-query";
-import type { PageJson, UserJson } from "../../shared/schemas/people";
+import { keepPreviousData, queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import type { UserAccessUpdate } from "../../shared/schemas/auth";
+import type { PageJson, UserEventJson, UserJson } from "../../shared/schemas/people";
 import { api } from "./client";
 
 export type UserSummary = UserJson;
@@ -36,3 +37,20 @@ export const usersQueryOptions = (filters: UserFilters) =>
     // Keep the current page on screen while the next one loads.
     placeholderData: keepPreviousData,
   });
+
+export type UserEvent = UserEventJson;
+
+export const userEventsQueryOptions = (id: string) =>
+  queryOptions({
+    queryKey: [...userKeys.all, "events", id] as const,
+    queryFn: ({ signal }) => api.get<{ items: UserEvent[] }>(`/api/users/${encodeURIComponent(id)}/events`, { signal }),
+  });
+
+/** The planner changes a person's role, or deactivates or reactivates them; the list and the trail refresh. */
+export function useUpdateUserAccess() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, ...body }: { id: string } & UserAccessUpdate) => api.patch<UserSummary>(`/api/users/${encodeURIComponent(id)}`, body),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: userKeys.all }),
+  });
+}

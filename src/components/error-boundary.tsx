@@ -35,7 +35,7 @@ export class ErrorBoundary extends Component<BoundaryProps, BoundaryState> {
     if (!this.state.error) return this.props.children;
     return (
       <section className="space-y-3 rounded-lg border border-danger-200 bg-white p-5">
-        <StatusNote tone="danger" word="Could not show" assertive>
+        <StatusNote tone="danger" word="Could not show" live="assertive">
           {this.props.name}. The rest of the page still works.
         </StatusNote>
         <Button variant="secondary" onClick={this.reset}>

@@ -2,17 +2,18 @@ import { useState } from "react";
 import type { QueryClient } from "@tanstack/react-query";
 import { useQuery } from "@tanstack/react-query";
 import type { LoaderFunctionArgs } from "react-router-dom";
-import { adminMaterialsQueryOptions } from "../api/materials";
+import { adminMaterialsQueryOptions, type MaterialRecord } from "../api/materials";
 import { PanelBoundary } from "../components/error-boundary";
 import { QueryError } from "../components/query-error";
 import { Button } from "../components/ui/button";
 import { PageHeader, Panel } from "../components/ui/panel";
+import { ResponsiveTable } from "../components/ui/responsive-table";
 import { Loading } from "../components/ui/spinner";
-import { StatusNote } from "../components/ui/status-note";
+import { grouped } from "../features/materials-admin/change-words";
 import { MaterialForm } from "../features/materials-admin/material-form";
 import { MaterialHistory } from "../features/materials-admin/material-history";
+import { MuCurvePlot } from "../features/materials-admin/mu-curve-plot";
 import { requireRole, warm } from "../lib/guards";
-import { ScrollX } from "../components/ui/scroll-x";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   await requireRole(queryClient, request, ["admin"]);
@@ -20,13 +21,20 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
   return null;
 };
 
-const sci = (x: number) => (x >= 1e-3 && x < 1e5 ? String(+x.toPrecision(4)) : x.toExponential(2));
+const resistivity = (ohm_m: number) => `${grouped(ohm_m * 1e6, 3)} µΩ·m`;
 
 export function Component() {
   const list = useQuery(adminMaterialsQueryOptions);
   // null: nothing open; "new": the add form; an id: that material's form and history
   const [open, setOpen] = useState<string | null>(null);
   const [saved, setSaved] = useState<string | null>(null);
+  // a new form for each Edit or Add; a save keeps the form (and the person's place in it)
+  const [formKey, setFormKey] = useState(0);
+  const openForm = (id: string) => {
+    setSaved(null);
+    setOpen(id);
+    setFormKey((k) => k + 1);
+  };
   const selected = open && open !== "new" ? (list.data?.items.find((m) => m.id === open) ?? null) : null;
 
   return (
@@ -36,56 +44,40 @@ export function Component() {
       {list.isError && <QueryError error={list.error} onRetry={() => void list.refetch()} what="the materials" />}
       {list.data && (
         <div className="space-y-6">
-          {saved && (
-            <StatusNote tone="ok" word="Saved">
-              {saved} is saved; predictions use it from now on.
-            </StatusNote>
-          )}
-          <Panel title="Library" actions={<Button variant="secondary" onClick={() => { setSaved(null); setOpen("new"); }}>Add a material</Button>}>
-            <ScrollX label="the materials table">
-              <table className="w-full text-left text-body">
-                <thead className="border-b border-nickel-300 text-meta text-flux-600">
-                  <tr>
-                    <th className="py-1 pr-3 font-semibold">Id</th>
-                    <th className="py-1 pr-3 font-semibold">Name</th>
-                    <th className="py-1 pr-3 font-semibold">μr initial / max</th>
-                    <th className="py-1 pr-3 font-semibold">Saturation</th>
-                    <th className="py-1 pr-3 font-semibold">Resistivity</th>
-                    <th className="py-1 pr-3 font-semibold">Density</th>
-                    <th className="py-1 pr-3 font-semibold">In use</th>
-                    <th className="py-1 font-semibold"><span className="sr-only">Actions</span></th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {list.data.items.map((m) => (
-                    <tr key={m.id} className={`border-b border-nickel-100 ${open === m.id ? "bg-anneal-50" : ""}`}>
-                      <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{m.id}</td>
-                      <td className="py-1.5 pr-3">{m.name}</td>
-                      <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{m.relativePermeability.initial.toLocaleString("en-GB")} / {m.relativePermeability.maximum.toLocaleString("en-GB")}</td>
-                      <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{m.saturation_T == null ? "—" : `${m.saturation_T} T`}</td>
-                      <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{sci(m.resistivity_ohm_m)} Ω·m</td>
-                      <td className="whitespace-nowrap py-1.5 pr-3 font-mono">{m.density_kg_m3} kg/m³</td>
-                      <td className="py-1.5 pr-3">{m.active ? "yes" : "no"}</td>
-                      <td className="py-1.5">
-                        <Button variant="quiet" className="min-h-9 px-2" onClick={() => { setSaved(null); setOpen(m.id); }} aria-label={`Edit ${m.id}`}>
-                          Edit
-                        </Button>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </ScrollX>
+          <Panel title="Library" actions={<Button variant="secondary" onClick={() => openForm("new")}>Add a material</Button>}>
+            <ResponsiveTable<MaterialRecord>
+              caption="Materials in the library"
+              testId="materials-table"
+              rowTestId="material-row"
+              rows={list.data.items}
+              rowKey={(m) => m.id}
+              cardsBelow={860}
+              rowClassName={(m) => (open === m.id ? "bg-anneal-50" : "")}
+              columns={[
+                { key: "id", header: "Id", primary: true, className: "font-mono whitespace-nowrap", cell: (m) => m.id },
+                { key: "name", header: "Name", cell: (m) => m.name },
+                { key: "mu", header: "μr initial / max", className: "font-mono whitespace-nowrap", cell: (m) => `${grouped(m.relativePermeability.initial)} / ${grouped(m.relativePermeability.maximum)}` },
+                { key: "curve", header: "μ(B)", cell: (m) => <MuCurvePlot curve={m.muCurve} small name={m.id} /> },
+                { key: "sat", header: "Saturation", className: "font-mono whitespace-nowrap", cell: (m) => (m.saturation_T == null ? "—" : `${m.saturation_T} T`) },
+                { key: "rho", header: "Resistivity", className: "font-mono whitespace-nowrap", cell: (m) => resistivity(m.resistivity_ohm_m) },
+                { key: "density", header: "Density", className: "font-mono whitespace-nowrap", cell: (m) => `${grouped(m.density_kg_m3)} kg/m³` },
+                { key: "use", header: "In use", cell: (m) => (m.active ? "yes" : "no") },
+                {
+                  key: "edit",
+                  header: <span className="sr-only">Actions</span>,
+                  cell: (m) => (
+                    <Button variant="quiet" className="min-h-9 px-2" onClick={() => openForm(m.id)} aria-label={`Edit ${m.id}`}>
+                      Edit
+                    </Button>
+                  ),
+                },
+              ]}
+            />
           </Panel>
           {open && (
-            <div className="grid items-start gap-6 xl:grid-cols-[1fr_22rem]">
+            <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_24rem]">
               <PanelBoundary name="the material form">
-                <MaterialForm
-                  key={open}
-                  material={selected}
-                  onSaved={(id) => { setSaved(id); setOpen(id); }}
-                  onCancel={() => setOpen(null)}
-                />
+                <MaterialForm key={formKey} material={selected} saved={saved} onSaved={(id) => { setSaved(id); setOpen(id); }} onCancel={() => setOpen(null)} />
               </PanelBoundary>
               {selected && (
                 <PanelBoundary name="the changes">

@@ -24,12 +24,12 @@ export const makeLoader = (queryClient: QueryClient) => async ({ request }: Load
 export function Component() {
   return (
     <>
-      <PageHeader title="Users" lead="Everyone with access, invitations waiting to be accepted, and new invitations." />
-      <div className="grid gap-6 xl:grid-cols-[1fr_22rem]">
+      <PageHeader title="Users" lead="Everyone with access, their role and whether they may sign in; invitations waiting to be accepted, and new invitations." />
+      <div className="space-y-6">
         <PanelBoundary name="the user list">
           <UsersTable />
         </PanelBoundary>
-        <div className="space-y-6">
+        <div className="grid items-start gap-6 lg:grid-cols-2">
           <PanelBoundary name="the invitation form">
             <InviteForm />
           </PanelBoundary>

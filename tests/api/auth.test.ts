@@ -1,5 +1,6 @@
 import request from "supertest";
 import { describe, expect, it } from "vitest";
+import { Event } from "../../server/models";
 import { TEST_PASSWORD, buildTestApp, buildUser, inbox, signIn } from "../support/app";
 
 const app = buildTestApp();
@@ -142,11 +143,33 @@ describe("POST /api/auth/register", () => {
     const mails = await inbox(app, email);
     expect(mails.map((m) => m.subject)).toContain("Welcome to Fluxwright");
   });
-  it("409 naming the field for a taken e-mail", async () => {
-    const user = await buildUser();
-    const res = await request(app).post("/api/auth/register").send({ email: user.email, password: "a-long-password", name: "X", organization: `Other ${Date.now()}` });
-    expect(res.status).toBe(409);
-    expect(res.body.error.fields).toHaveProperty("email");
+  it("does not reveal that an address has an account: the same status and shape of answer and a session cookie, but nobody signed in, nothing made, and the owner told by mail", async () => {
+    const owner = await buildUser();
+    const { sequelize } = app.locals.deps;
+    const count = async () => ((await sequelize.query(`select (select count(*) from users)::int as u, (select count(*) from organizations)::int as o`)) as [[{ u: number; o: number }], unknown])[0][0];
+    const before = await count();
+    const agent = request.agent(app);
+    const taken = await agent.post("/api/auth/register").send({ email: owner.email, password: "another-long-password", name: "Mallory Probe", organization: `Probe Ltd ${Date.now()}` });
+    const fresh = await request.agent(app).post("/api/auth/register").send({ email: `fresh-${Date.now()}@example.test`, password: "a-long-password", name: "Nia New", organization: `New Lab ${Date.now()}` });
+    // an observer of the answer cannot tell the two apart
+    expect(taken.status).toBe(201);
+    expect(taken.status).toBe(fresh.status);
+    expect(Object.keys(taken.body.user)).toEqual(Object.keys(fresh.body.user));
+    expect(taken.body.user).toMatchObject({ email: owner.email, name: "Mallory Probe", role: "customer", active: true });
+    expect(taken.body.user.id).not.toBe(owner.id);
+    const sessionCookie = (res: request.Response) => ([] as string[]).concat(res.headers["set-cookie"] ?? []).some((c) => c.startsWith("fw.sid="));
+    expect(sessionCookie(taken)).toBe(true);
+    expect(sessionCookie(fresh)).toBe(true);
+    // but nobody is signed in as the owner, and nothing was made besides the fresh registration's user and organisation
+    expect((await agent.get("/api/auth/me")).status).toBe(401);
+    expect(await count()).toEqual({ u: before.u + 1, o: before.o + 1 });
+    expect((await request(app).post("/api/auth/login").send({ email: owner.email, password: "another-long-password" })).status).toBe(401);
+    expect((await request(app).post("/api/auth/login").send({ email: owner.email, password: TEST_PASSWORD })).status).toBe(200);
+    // the owner learns that someone tried; the trail keeps it
+    const mails = await inbox(app, owner.email);
+    expect(mails.map((m) => m.subject)).toContain("Someone tried to create a Fluxwright account with your address");
+    expect(mails.map((m) => m.subject)).not.toContain("Welcome to Fluxwright");
+    expect(await Event.count({ where: { action: "user.registration_repeated", subjectId: owner.id } })).toBe(1);
   });
   it("400 for a short password", async () => {
     const res = await request(app).post("/api/auth/register").send({ email: "short@example.test", password: "short", name: "X", organization: "Y" });
@@ -168,6 +191,20 @@ describe("password reset", () => {
     const again = await request(app).post("/api/auth/password-reset/confirm").send({ token, password: "another-password" });
     expect(again.status).toBe(410);
     expect(again.body.error.fields).toHaveProperty("token");
+  });
+  it("a link is checked before the form: 200 while it works, 404 once used or unknown", async () => {
+    const user = await buildUser();
+    await request(app).post("/api/auth/password-reset/request").send({ email: user.email });
+    const [mail] = await inbox(app, user.email);
+    const token = mail.text.match(/reset-password\/([\w-]+)/)![1];
+    const open = await request(app).get(`/api/auth/password-reset/${token}`);
+    expect(open.status).toBe(200);
+    expect(open.body).toEqual({ expiresAt: expect.any(String) });
+    expect((await request(app).post("/api/auth/password-reset/confirm").send({ token, password: "brand-new-password" })).status).toBe(204);
+    const used = await request(app).get(`/api/auth/password-reset/${token}`);
+    expect(used.status).toBe(404);
+    expect(used.body.error.code).toBe("RESET_LINK_INVALID");
+    expect((await request(app).get("/api/auth/password-reset/not-a-real-token")).status).toBe(404);
   });
   it("answers the same for an unknown address and sends nothing", async () => {
     const res = await request(app).post("/api/auth/password-reset/request").send({ email: "ghost@example.test" });

@@ -89,7 +89,8 @@ describe("POST /api/blanks/dxf", () => {
     });
     expect(res.status).toBe(200);
     expect(res.headers["content-type"]).toMatch(/^application\/dxf/);
-    expect(res.headers["content-disposition"]).toMatch(/^attachment; filename="?flat-pattern-box-80x60x40\.dxf"?$/);
+    // the file name says the part, its material and its thickness
+    expect(res.headers["content-disposition"]).toMatch(/^attachment; filename="?blank-box-bent-80x60x40-1mm\.dxf"?$/);
     const dxf = res.body as string;
     expect(dxf).toMatch(/SECTION/);
     expect(dxf).toMatch(/LWPOLYLINE|POLYLINE/);
@@ -98,7 +99,7 @@ describe("POST /api/blanks/dxf", () => {
   });
   it("names a drawn cup's file by method and size", async () => {
     const res = await request(app).post("/api/blanks/dxf").send(drawn);
-    expect(res.headers["content-disposition"]).toContain("flat-pattern-cylinder-drawn-50x60.dxf");
+    expect(res.headers["content-disposition"]).toContain("blank-can-drawn-d50x60-1mm.dxf");
   });
   it("400 naming the field", async () => {
     const res = await request(app).post("/api/blanks/dxf").send({ ...box, kFactor: 0.9 });
@@ -180,5 +181,69 @@ describe("POST /api/price-estimates", () => {
       expect(res.status, method).toBe(200);
       expect(res.body.price.lines.find((l: { key: string }) => l.key === (method === "drawn" ? "forming-draw" : "welding")).quantity).toBeGreaterThan(0);
     }
+  });
+});
+
+describe("a price as its viewer may see it", () => {
+  const configuration = { shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 60 }, cornerRadius_mm: 3, layers: [{ material: "ni80", thickness_mm: 1 }] };
+  const price = async (role: "customer" | "admin") => {
+    const { agent, csrf } = await signIn(app, await buildUser({ role }));
+    const res = await agent.post("/api/price-estimates").set("X-CSRF-Token", csrf).send({ configuration, quantity: 10 });
+    expect(res.status).toBe(200);
+    return res;
+  };
+
+  it("a customer is never sent the margin or an internal rate; the planner is", async () => {
+    const customer = await price("customer");
+    const planner = await price("admin");
+    const c = customer.body.price, p = planner.body.price;
+    expect(c.view).toBe("customer");
+    expect(p.view).toBe("shop");
+    // not hidden by the page: not in the answer at all
+    expect(customer.text).not.toMatch(/"margin|"unit_cents"|pricePerKg|Percent":18/);
+    for (const line of c.lines) expect(Object.keys(line).sort()).toEqual(["key", "label", "quantity", "total_cents"]);
+    expect(p).toHaveProperty("marginPercent");
+    expect(p).toHaveProperty("margin_cents");
+    expect(p.lines[0]).toHaveProperty("unit_cents");
+    // the same price for both, the customer's lines carrying the margin and still adding up
+    expect(c.total_cents).toBe(p.total_cents);
+    expect(c.unitPrice_cents).toBe(p.unitPrice_cents);
+    expect(c.subtotal_cents).toBe(p.subtotal_cents + p.margin_cents);
+    expect(c.lines.reduce((s: number, l: { total_cents: number }) => s + l.total_cents, 0)).toBe(c.subtotal_cents);
+  });
+});
+
+describe("the blank against the shop's stock and forming limits", () => {
+  it("warns when a blank is larger than every stock sheet of its alloy and gauge", async () => {
+    const res = await post({ ...drawn, dimensions_mm: { diameter: 500, length: 400 }, cornerRadius_mm: 5, material: "ni80" });
+    expect(res.status).toBe(200);
+    const w = res.body.warnings.find((x: { code: string }) => x.code === "LARGER_THAN_STOCK");
+    expect(w.message).toMatch(/larger than any stock sheet of ni80 1 mm/);
+    expect((await post({ ...drawn, material: "ni80" })).body.warnings.map((x: { code: string }) => x.code)).not.toContain("LARGER_THAN_STOCK");
+  });
+  it("warns beyond the forming limits: too many draws, nickel-iron too thick", async () => {
+    const deep = await post({ ...drawn, dimensions_mm: { diameter: 30, length: 200 }, material: "ni80" });
+    expect(deep.body.warnings.map((x: { code: string }) => x.code)).toContain("DRAW_STAGES_EXCESSIVE");
+    expect(deep.body.warnings.find((x: { code: string }) => x.code === "DRAW_STAGES_EXCESSIVE").message).toMatch(/beyond the forming limits/);
+    const thick = await post({ ...box, thickness_mm: 4, bendRadius_mm: 4, material: "ni80" });
+    expect(thick.body.warnings.map((x: { code: string }) => x.code)).toContain("BEYOND_FORMING_LIMIT");
+  });
+  it("says what is wrong in plain words, naming the field: 'Seam overlap must be at least 0 mm.'", async () => {
+    const res = await post({ ...rolled, seamOverlap_mm: -2, dimensions_mm: { diameter: "fifty", length: 60 } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual({ seamOverlap_mm: "Seam overlap must be at least 0 mm.", "dimensions_mm.diameter": "Inside diameter must be a number in mm." });
+  });
+  it("the DXF carries the part, material and thickness as text, and its name says them", async () => {
+    const res = await request(app).post("/api/blanks/dxf").send({ ...box, material: "ni80" }).buffer(true).parse((r, cb) => {
+      let s = "";
+      r.on("data", (c: Buffer) => (s += c.toString()));
+      r.on("end", () => cb(null, s));
+    });
+    expect(res.headers["content-disposition"]).toContain("blank-box-bent-80x60x40-ni80-1mm.dxf");
+    const dxf = res.body as string;
+    expect(dxf).toContain("FW-PART-NOTE");
+    expect(dxf).toContain("Part: box, bent, inside 80 x 60 x 40 mm");
+    expect(dxf).toContain("Material: ni80");
+    expect(dxf).toContain("Thickness: 1 mm");
   });
 });

@@ -4,6 +4,9 @@ import { predictShield } from "../../shared/physics";
 import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 import { Event, PriceListVersion, Quote } from "../../server/models";
 import { materialCatalog } from "../../server/services/materialCatalog";
+import { priceAndPredict } from "../../server/services/quoteBuilder";
+import { constructionSettingsOf } from "../../shared/schemas/pricing";
+import { quoteConfigurationSchema } from "../../shared/schemas/quote";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
 import { binary, buildQuote, configuration, ensureReferenceData, pdfPageSize, pdfText } from "../support/ordering";
 
@@ -211,5 +214,23 @@ describe("POST /api/quotes/:id/requote", () => {
     expect(res.body.quantity).toBe(old.quantity);
     expect(res.body.configuration).toEqual(old.configuration);
     expect(Date.parse(res.body.expiresAt)).toBeGreaterThan(Date.now() + 29 * 86_400_000);
+  });
+});
+
+describe("the quote's prediction", () => {
+  it("uses the as-built settings of the price-list version it is priced with, as /api/predictions does with the current one", async () => {
+    await ensureReferenceData();
+    const current = await PriceListVersion.current();
+    const catalog = await materialCatalog();
+    const config = quoteConfigurationSchema.parse(configuration());
+    const asIs = priceAndPredict({ configuration: config, quantity: 1, priceList: current!.data, catalog });
+    const live = await request(app).post("/api/predictions").send(config);
+    expect(asIs.prediction.attenuation_db).toBeCloseTo(live.body.attenuation_db, 9);
+    // a price list whose closed-can ceiling is 10 dB lower: the frozen figure follows it [derived: 1/S = 1/S_ideal + 1/S_ceiling]
+    const settings = structuredClone(constructionSettingsOf(current!.data));
+    settings.ceilings["closed-can"].firstLayer_db -= 10;
+    const lowered = priceAndPredict({ configuration: config, quantity: 1, priceList: { ...current!.data, construction: settings }, catalog });
+    expect(lowered.prediction.asBuilt.ceiling_db).toBe(asIs.prediction.asBuilt.ceiling_db - 10);
+    expect(lowered.prediction.attenuation_db).toBeLessThan(asIs.prediction.attenuation_db);
   });
 });

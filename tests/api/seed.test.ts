@@ -71,3 +71,23 @@ describe("the demo scenario's shop floor", () => {
     expect(board.holds.some((h) => h.lotId === held[0].id)).toBe(true);
   });
 });
+
+describe("the demo scenario's instruments", () => {
+  it("several instruments, one out for calibration and one overdue, each with its calibration record; a second run adds nothing", async () => {
+    const { sequelize } = app.locals.deps;
+    const { Instrument, InstrumentCalibration } = await import("../../server/models");
+    const { instrumentUsableOn, isOverdue, utcDay } = await import("../../shared/quality/instruments");
+    await seedDemo(sequelize, { password: "fluxwright-demo" });
+    const demoNames = ["Fluxgate probe FX-3", "Gaussmeter probe HP-1", "Search coil SC-200", "Helmholtz set HX-500", "Signal source SG-2", "Fluxgate probe FX-2 (spare)", "Search coil SC-50"];
+    const rows = await Instrument.findAll({ where: { name: demoNames } });
+    expect(rows).toHaveLength(7);
+    const today = utcDay(new Date());
+    expect(rows.filter((i) => i.status === "in-calibration").map((i) => i.name)).toEqual(["Fluxgate probe FX-2 (spare)"]);
+    expect(rows.filter((i) => i.status === "in-service" && isOverdue(i, today)).map((i) => i.name)).toEqual(["Search coil SC-50"]);
+    expect(rows.filter((i) => instrumentUsableOn(i, today))).toHaveLength(5);
+    expect(new Set(rows.map((i) => i.kind))).toEqual(new Set(["fluxgate-probe", "gaussmeter-probe", "search-coil", "helmholtz-coil", "signal-source"]));
+    expect(await InstrumentCalibration.count({ where: { instrumentId: rows.map((i) => i.id) } })).toBe(7);
+    await seedDemo(sequelize, { password: "fluxwright-demo" });
+    expect(await Instrument.count({ where: { name: demoNames } })).toBe(7);
+  });
+});

@@ -39,7 +39,7 @@ describe("the planner invites a customer engineer, as they would", () => {
     await h.shot(page, "invitation-accept");
     await page.getByRole("button", { name: /accept and sign in/i }).click();
     await page.getByRole("heading", { level: 1, name: /welcome, oda brightwell/i }).waitFor();
-    await page.getByText(/quillbrook beam lab/i).first().waitFor();
+    await page.getByRole("main").getByText(/quillbrook beam lab/i).first().waitFor(); // the organisation joined, on the home page
     await h.shot(page, "invited-customer-home");
     expect(consoleErrors).toEqual([]);
     expect(offMachine).toEqual([]);

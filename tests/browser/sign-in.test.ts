@@ -114,3 +114,33 @@ describe("a new user, as they would", () => {
     await page.close();
   });
 });
+
+describe("messages that do not give anything away, and links that say they are spent", () => {
+  it("registering an address that already has an account looks like any registration; the page says to check the mail, nobody is signed in", async () => {
+    const { page, consoleErrors } = await h.newPage();
+    await page.goto(`${h.baseUrl}/register`);
+    await page.getByLabel(/your name/i).fill("Someone Else");
+    await page.getByLabel(/work email/i).fill("customer@demo.test");
+    await page.getByLabel(/^organisation/i).fill(`Probe Ltd ${Date.now()}`);
+    await page.getByLabel(/^password/i).fill("another-long-password");
+    await page.getByLabel(/repeat the password/i).fill("another-long-password");
+    await page.getByRole("button", { name: /create account/i }).click();
+    await page.getByTestId("registration-mailed").getByText(/if the address already has a Fluxwright account/i).waitFor();
+    // no "already exists": the page says the same as it would to anyone not signed in after registering
+    expect(await page.getByText(/already exists|already has an account\./i).count()).toBe(0);
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: /^sign in$/i }).waitFor();
+    await h.shot(page, "register-existing-address");
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
+
+  it("a bad or used reset link says so before any form", async () => {
+    const { page } = await h.newPage();
+    await page.goto(`${h.baseUrl}/reset-password/this-link-was-never-sent`);
+    await page.getByTestId("reset-link-invalid").getByText(/expired or was already used/i).waitFor();
+    expect(await page.getByLabel(/new password/i).count()).toBe(0);
+    await page.getByRole("link", { name: /ask for a new link/i }).click();
+    await page.getByRole("heading", { level: 1, name: /forgot your password/i }).waitFor();
+    await page.close();
+  });
+});

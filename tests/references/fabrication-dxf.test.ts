@@ -15,8 +15,8 @@ describe("flat pattern DXF read back by an independent parser (dxf-parser) [deri
   const text = flatPatternDxf(box.geometry);
   const dxf = parse(text);
 
-  it("cut outline is one closed polyline with the same vertices", () => {
-    const cut = dxf.entities.filter((e) => e.layer === "CUT");
+  it("the blank edge (cut) is one closed polyline with the same vertices", () => {
+    const cut = dxf.entities.filter((e) => e.layer === "FW-BLANK-EDGE");
     expect(cut).toHaveLength(1);
     expect(cut[0].shape).toBe(true);
     const v = cut[0].vertices!.map((p) => [p.x, p.y]);
@@ -27,17 +27,17 @@ describe("flat pattern DXF read back by an independent parser (dxf-parser) [deri
     });
   });
 
-  it("four bend lines on layer BEND, dashed; layers present; units mm", () => {
-    expect(dxf.entities.filter((e) => e.layer === "BEND" && e.type === "LINE")).toHaveLength(4);
-    expect(Object.keys(dxf.tables.layer.layers)).toEqual(expect.arrayContaining(["CUT", "BEND"]));
+  it("four bend lines on layer FW-BEND-CENTRE, dashed; layers present; units mm", () => {
+    expect(dxf.entities.filter((e) => e.layer === "FW-BEND-CENTRE" && e.type === "LINE")).toHaveLength(4);
+    expect(Object.keys(dxf.tables.layer.layers)).toEqual(expect.arrayContaining(["FW-BLANK-EDGE", "FW-BEND-CENTRE"]));
     // the BEND layer record names its linetype (group code 6) within its next few codes
-    expect(text).toMatch(/\n2\nBEND\n(?:\d+\n[^\n]*\n){0,4}6\nDASHED\n/);
+    expect(text).toMatch(/\n2\nFW-BEND-CENTRE\n(?:\d+\n[^\n]*\n){0,4}6\nDASHED\n/);
     expect(dxf.header["$INSUNITS"]).toBe(4);
   });
 
   it("disc blank becomes a circle of the blank's radius", () => {
     const cup = computeBlank({ shape: "cylinder", method: "drawn", dimensions_mm: { diameter: 50, length: 60 }, thickness_mm: 1, cornerRadius_mm: 3 });
-    const circles = parse(flatPatternDxf(cup.geometry)).entities.filter((e) => e.type === "CIRCLE" && e.layer === "CUT");
+    const circles = parse(flatPatternDxf(cup.geometry)).entities.filter((e) => e.type === "CIRCLE" && e.layer === "FW-BLANK-EDGE");
     expect(circles).toHaveLength(1);
     expect(circles[0].radius! * 2).toBeCloseTo(cup.blank.diameter_mm, 6);
   });

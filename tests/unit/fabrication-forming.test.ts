@@ -46,7 +46,7 @@ describe("draw stages", () => {
   });
 
   it("corner radius over half the diameter is refused", () => {
-    expect(() => drawnCup({ insideDiameter_mm: 20, insideHeight_mm: 30, thickness_mm: 1, cornerRadius_mm: 11 })).toThrow(/half the diameter/);
+    expect(() => drawnCup({ insideDiameter_mm: 20, insideHeight_mm: 30, thickness_mm: 1, cornerRadius_mm: 11 })).toThrow(/half the inside diameter/);
   });
 });
 

@@ -58,7 +58,7 @@ export function Dimension({ x1, y1, x2, y2, offset, label, fontSize }: DimProps)
 }
 
 /** A scale bar of a round length, so the drawing can be read off the screen at any zoom. */
-export function ScaleBar({ x, y, length, fontSize }: { x: number; y: number; length: number; fontSize: number }) {
+export function ScaleBar({ x, y, length, fontSize, label }: { x: number; y: number; length: number; fontSize: number; label?: string }) {
   const h = fontSize * 0.5;
   return (
     <g className="scale-bar" data-length-mm={length}>
@@ -66,8 +66,30 @@ export function ScaleBar({ x, y, length, fontSize }: { x: number; y: number; len
       <rect x={x + length / 2} y={y} width={length / 2} height={h} fill="white" stroke="currentColor" strokeWidth={fontSize * 0.06} />
       {/* the length beside the bar, so a short bar's labels never collide */}
       <text x={x + length + fontSize * 0.5} y={y + h} fontSize={fontSize} fill="currentColor">
-        {fmtMm(length, 1)} mm (scale)
+        {label ?? `${fmtMm(length, 1)} mm`} (scale)
       </text>
     </g>
   );
+}
+
+/** Smallest text on a drawing, in CSS pixels as rendered: readable on a phone. */
+export const MIN_LABEL_PX = 12;
+
+/**
+ * The font size (in the drawing's user units, mm) at which labels render at least `minPx` CSS
+ * pixels tall, for a drawing whose viewBox grows with its labels (`view(fs)`) and which is shown
+ * `box.width` pixels wide (and at most `box.maxHeight` tall). `base` is the size the drawing would
+ * choose for itself; it is kept when it is already readable.
+ */
+export function readableFontSize(base: number, box: { width: number; maxHeight?: number }, view: (fs: number) => { w: number; h: number }, minPx = MIN_LABEL_PX): number {
+  if (!(box.width > 0)) return base;
+  let fs = base;
+  for (let i = 0; i < 12; i++) {
+    const v = view(fs);
+    const scale = Math.min(box.width / v.w, box.maxHeight ? box.maxHeight / v.h : Infinity);
+    const needed = minPx / scale;
+    if (needed <= fs * 1.0001) break;
+    fs = needed;
+  }
+  return fs;
 }

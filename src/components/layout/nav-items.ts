@@ -21,13 +21,18 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   }
   const home: NavItem = { label: homeLabels[user.role], to: paths.home.href(), end: true };
   const account: NavItem = { label: "Account", to: paths.account.href() };
+  // the two public tools are everyone's: staff check a customer's design or a blank as often as customers do
+  const tools: NavItem[] = [
+    { label: "Design check", to: paths.designCheck.href() },
+    { label: "Flat blank", to: paths.flatBlank.href() },
+  ];
   switch (user.role) {
     case "customer":
-      return [home, { label: "Design check", to: paths.designCheck.href() }, { label: "Flat blank", to: paths.flatBlank.href() }, account];
+      return [home, ...tools, account];
     case "admin":
-      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
+      return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
     case "operator":
     case "qa":
-      return [home, account];
+      return [home, ...tools, account];
   }
 }

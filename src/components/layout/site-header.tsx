@@ -8,7 +8,7 @@ import { navItemsFor } from "./nav-items";
 import { ProductMark } from "./product-mark";
 
 const navLink =
-  "flex min-h-touch items-center rounded-md px-3 font-semibold text-flux-100 hover:bg-flux-800 hover:text-white " +
+  "flex min-h-touch items-center whitespace-nowrap rounded-md px-3 xl:px-2.5 font-semibold text-flux-100 hover:bg-flux-800 hover:text-white " +
   "aria-[current=page]:bg-flux-800 aria-[current=page]:text-white aria-[current=page]:underline aria-[current=page]:decoration-anneal-400 aria-[current=page]:decoration-[3px] aria-[current=page]:underline-offset-8";
 
 export function SiteHeader({ user }: { user: User | null }) {
@@ -35,7 +35,7 @@ export function SiteHeader({ user }: { user: User | null }) {
 
         <button
           type="button"
-          className="ml-auto inline-flex min-h-touch min-w-touch items-center justify-center gap-2 rounded-md border border-flux-600 px-3 font-semibold text-flux-100 lg:hidden"
+          className="ml-auto inline-flex min-h-touch min-w-touch items-center justify-center gap-2 rounded-md border border-flux-600 px-3 font-semibold text-flux-100 xl:hidden"
           aria-expanded={open}
           aria-controls={menuId}
           onClick={() => setOpen((value) => !value)}
@@ -48,10 +48,10 @@ export function SiteHeader({ user }: { user: User | null }) {
 
         <div
           id={menuId}
-          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 lg:flex lg:w-auto lg:flex-1 lg:flex-row lg:items-center lg:pb-0`}
+          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 xl:flex xl:w-auto xl:flex-1 xl:flex-row xl:items-center xl:pb-0`}
         >
-          <nav aria-label="Main" className="lg:flex-1">
-            <ul className="flex flex-col gap-1 lg:flex-row">
+          <nav aria-label="Main" className="xl:flex-1">
+            <ul className="flex flex-col gap-1 xl:flex-row">
               {items.map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navLink}>
@@ -63,13 +63,13 @@ export function SiteHeader({ user }: { user: User | null }) {
           </nav>
 
           {user && (
-            <div className="flex flex-wrap items-center gap-3 border-t border-flux-700 pt-2 lg:flex-nowrap lg:border-0 lg:pt-0">
-              {/* On a tablet the organisation would push the sign-out button onto a second row. */}
-              <p className="leading-tight lg:whitespace-nowrap">
+            <div className="flex flex-wrap items-center gap-3 border-t border-flux-700 pt-2 xl:flex-nowrap xl:border-0 xl:pt-0">
+              {/* In the one-row header the organisation would push the sign-out button onto a second row. */}
+              <p className="leading-tight xl:whitespace-nowrap">
                 <span className="block font-semibold text-white">{user.name}</span>
                 <span className="font-mono text-meta text-flux-200">
                   {roleLabels[user.role]}
-                  {user.organizationName ? <span className="lg:hidden xl:inline"> · {user.organizationName}</span> : null}
+                  {user.organizationName ? <span className="xl:hidden"> · {user.organizationName}</span> : null}
                 </span>
               </p>
               <button

@@ -1,25 +1,27 @@
 import { useId, type ComponentProps, type ReactNode } from "react";
 
-const control =
+export const control =
   "block min-h-touch w-full rounded-md border bg-white px-3 py-2 text-body text-flux-950 " +
   "placeholder:text-nickel-600 aria-[invalid=true]:border-danger-700 aria-[invalid=true]:ring-1 aria-[invalid=true]:ring-danger-700";
 
 interface FieldShellProps {
-  label: string;
+  label: ReactNode;
   error?: string;
   hint?: ReactNode;
+  /** the label is read out but not shown: a table of inputs names its columns once, in its header row */
+  hideLabel?: boolean;
   children: (ids: { id: string; describedBy: string | undefined; invalid: boolean }) => ReactNode;
 }
 
 /** Label, hint and error wired to the control by id, so screen readers read all three. */
-function FieldShell({ label, error, hint, children }: FieldShellProps) {
+export function FieldShell({ label, error, hint, hideLabel = false, children }: FieldShellProps) {
   const id = useId();
   const hintId = hint ? `${id}-hint` : undefined;
   const errorId = error ? `${id}-error` : undefined;
   const describedBy = [hintId, errorId].filter(Boolean).join(" ") || undefined;
   return (
     <div className="space-y-1.5">
-      <label htmlFor={id} className="block font-semibold text-flux-900">
+      <label htmlFor={id} className={hideLabel ? "sr-only" : "block font-semibold text-flux-900"}>
         {label}
       </label>
       {hint && (
@@ -45,11 +47,12 @@ interface TextFieldProps extends Omit<ComponentProps<"input">, "id"> {
   label: string;
   error?: string;
   hint?: ReactNode;
+  hideLabel?: boolean;
 }
 
-export function TextField({ label, error, hint, className = "", ...input }: TextFieldProps) {
+export function TextField({ label, error, hint, hideLabel, className = "", ...input }: TextFieldProps) {
   return (
-    <FieldShell label={label} error={error} hint={hint}>
+    <FieldShell label={label} error={error} hint={hint} hideLabel={hideLabel}>
       {({ id, describedBy, invalid }) => (
         <input
           id={id}
@@ -67,11 +70,12 @@ interface SelectFieldProps extends Omit<ComponentProps<"select">, "id"> {
   label: string;
   error?: string;
   hint?: ReactNode;
+  hideLabel?: boolean;
 }
 
-export function SelectField({ label, error, hint, className = "", children, ...select }: SelectFieldProps) {
+export function SelectField({ label, error, hint, hideLabel, className = "", children, ...select }: SelectFieldProps) {
   return (
-    <FieldShell label={label} error={error} hint={hint}>
+    <FieldShell label={label} error={error} hint={hint} hideLabel={hideLabel}>
       {({ id, describedBy, invalid }) => (
         <select
           id={id}

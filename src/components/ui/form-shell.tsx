@@ -6,7 +6,7 @@ export function FormShell({ onSubmit, message, children }: { onSubmit: FormEvent
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-5">
       {message && (
-        <StatusNote tone="danger" assertive>
+        <StatusNote tone="danger" live="assertive">
           {message}
         </StatusNote>
       )}

@@ -2,68 +2,71 @@ import type { ReactNode } from "react";
 
 export type Tone = "ok" | "caution" | "danger" | "info";
 
-// Each tone carries a word and a shape as well as a colour, so it reads in greyscale and to a
-// screen reader.
-const tones: Record<Tone, { word: string; box: string; icon: ReactNode }> = {
+// Fluxwright's notice: a tinted card with an even hairline edge, the tone's glyph in a round
+// stamp, and the tone's word as a small label above the text (not a bold word run into it). Each
+// tone carries its word and its glyph's shape as well as its colour, so it reads in greyscale and
+// to a screen reader.
+const tones: Record<Tone, { word: string; card: string; stamp: string; label: string; glyph: ReactNode }> = {
   ok: {
     word: "Done",
-    box: "border-ok-700 bg-ok-50 text-ok-900",
-    icon: <path d="M5 12.5l4.5 4.5L19 7.5" strokeWidth="2.5" />,
+    card: "border-ok-200 bg-ok-50 text-ok-900",
+    stamp: "bg-ok-700",
+    label: "text-ok-700",
+    glyph: <path d="M6.5 12.5l3.5 3.5 7.5-8" strokeWidth="2.6" />,
   },
   caution: {
     word: "Caution",
-    box: "border-caution-700 bg-caution-50 text-caution-900",
-    icon: (
-      <>
-        <path d="M12 3.5L22 20.5H2L12 3.5z" strokeWidth="2" strokeLinejoin="round" />
-        <path d="M12 10v4.5M12 17.5v.5" strokeWidth="2.2" />
-      </>
-    ),
+    card: "border-caution-200 bg-caution-50 text-caution-900",
+    stamp: "bg-caution-700",
+    label: "text-caution-700",
+    glyph: <path d="M12 6.5v7M12 17.25v.5" strokeWidth="2.8" />,
   },
   danger: {
     word: "Problem",
-    box: "border-danger-700 bg-danger-50 text-danger-900",
-    icon: (
-      <>
-        <circle cx="12" cy="12" r="9.5" strokeWidth="2" />
-        <path d="M8.5 8.5l7 7M15.5 8.5l-7 7" strokeWidth="2.2" />
-      </>
-    ),
+    card: "border-danger-200 bg-danger-50 text-danger-900",
+    stamp: "bg-danger-700",
+    label: "text-danger-700",
+    glyph: <path d="M8 8l8 8M16 8l-8 8" strokeWidth="2.6" />,
   },
   info: {
     word: "Note",
-    box: "border-flux-500 bg-flux-50 text-flux-900",
-    icon: (
-      <>
-        <circle cx="12" cy="12" r="9.5" strokeWidth="2" />
-        <path d="M12 11v6M12 7.5v.5" strokeWidth="2.2" />
-      </>
-    ),
+    card: "border-flux-200 bg-flux-50 text-flux-900",
+    stamp: "bg-flux-600",
+    label: "text-flux-600",
+    glyph: <path d="M12 10.5v7M12 6.5v.5" strokeWidth="2.8" />,
   },
 };
 
 interface StatusNoteProps {
   tone: Tone;
   children: ReactNode;
-  /** Replaces the default word ("Problem", "Done" …) printed before the message. */
+  /** Replaces the tone's own word ("Problem", "Done" …) in the label above the message. */
   word?: string;
-  /** Announce immediately (form errors) rather than politely. */
-  assertive?: boolean;
+  /**
+   * Only a note that appears in answer to what the person just did is a live region: "polite"
+   * (a save, a sent invitation) is read when the reader is idle, "assertive" (a refused form) at
+   * once. Notes that are part of the page (cautions, warnings, hints) are not announced.
+   */
+  live?: "polite" | "assertive";
   className?: string;
 }
 
-export function StatusNote({ tone, children, word, assertive = false, className = "" }: StatusNoteProps) {
+export function StatusNote({ tone, children, word, live, className = "" }: StatusNoteProps) {
   const style = tones[tone];
   return (
     <div
-      role={assertive ? "alert" : "status"}
-      className={`flex items-start gap-3 rounded-md border-l-4 px-4 py-3 ${style.box} ${className}`}
+      role={live === "assertive" ? "alert" : live === "polite" ? "status" : undefined}
+      data-tone={tone}
+      className={`notice flex items-start gap-3 rounded-lg border px-4 py-3 ${style.card} ${className}`}
     >
-      <svg className="mt-0.5 size-5 shrink-0" viewBox="0 0 24 24" fill="none" stroke="currentColor" strokeLinecap="round" aria-hidden="true">
-        {style.icon}
-      </svg>
-      <div>
-        <strong className="font-semibold">{word ?? style.word}:</strong> {children}
+      <span className={`mt-0.5 grid size-6 shrink-0 place-items-center rounded-full ${style.stamp}`} aria-hidden="true">
+        <svg className="size-4 text-white" viewBox="0 0 24 24" fill="none" stroke="currentColor" strokeLinecap="round" strokeLinejoin="round">
+          {style.glyph}
+        </svg>
+      </span>
+      <div className="min-w-0 space-y-0.5">
+        <p className={`font-mono text-[0.8125rem] uppercase leading-5 tracking-wider ${style.label}`}>{word ?? style.word}</p>
+        <div>{children}</div>
       </div>
     </div>
   );

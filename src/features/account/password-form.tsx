@@ -37,13 +37,14 @@ export function PasswordForm() {
   const { errors, isSubmitting } = formState;
   return (
     <FormShell onSubmit={onSubmit} message={formMessage}>
-      {saved && <StatusNote tone="ok" word="Changed">Use the new password next time you sign in.</StatusNote>}
       <TextField label="Current password" type="password" autoComplete="current-password" error={errors.currentPassword?.message} {...register("currentPassword")} />
       <TextField label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." error={errors.newPassword?.message} {...register("newPassword")} />
       <TextField label="Repeat the new password" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...register("confirmPassword")} />
       <Button type="submit" pending={isSubmitting} pendingLabel="Changing…">
         Change password
       </Button>
+      {/* beside the button the person just pressed */}
+      {saved && <StatusNote tone="ok" word="Changed" live="polite">Use the new password next time you sign in.</StatusNote>}
     </FormShell>
   );
 }

@@ -46,15 +46,16 @@ export function ProfileForm({ user }: { user: User }) {
         )}
       </dl>
       {formMessage && (
-        <StatusNote tone="danger" assertive>
+        <StatusNote tone="danger" live="assertive">
           {formMessage}
         </StatusNote>
       )}
-      {saved && <StatusNote tone="ok" word="Saved">Your name is updated.</StatusNote>}
       <TextField label="Name" autoComplete="name" error={errors.name?.message} {...register("name")} />
       <Button type="submit" pending={isSubmitting} pendingLabel="Saving…" disabled={!isDirty}>
         Save name
       </Button>
+      {/* beside the button the person just pressed */}
+      {saved && !isDirty && <StatusNote tone="ok" word="Saved" live="polite">Your name is updated.</StatusNote>}
     </form>
   );
 }

@@ -49,7 +49,7 @@ export function InviteForm() {
       setSent({ email: created.email, expiresAt: created.expiresAt });
       reset({ email: "", role: values.role, organizationId: values.role === "customer" ? values.organizationId : undefined });
     } catch (error) {
-      showServerError(error, { 409: "That email already has an account or a pending invitation." });
+      showServerError(error, { 409: "That email address already has an account." });
     }
   });
 
@@ -57,12 +57,6 @@ export function InviteForm() {
   return (
     <Panel title="Invite someone">
       <FormShell onSubmit={onSubmit} message={formMessage}>
-        {sent && (
-          <StatusNote tone="ok" word="Invitation sent">
-            to <span className="break-all font-mono">{sent.email}</span>, valid until{" "}
-            <span className="font-mono">{formatDateTime(sent.expiresAt)}</span>.
-          </StatusNote>
-        )}
         <TextField label="Email" type="email" autoComplete="off" inputMode="email" error={errors.email?.message} {...register("email")} />
         <SelectField label="Role" hint={roleHints[role]} error={errors.role?.message} {...register("role")}>
           {roles.map((value) => (
@@ -90,6 +84,11 @@ export function InviteForm() {
         <Button type="submit" pending={isSubmitting} pendingLabel="Sending…">
           Send invitation
         </Button>
+        {sent && (
+          <StatusNote tone="ok" word="Invitation sent" live="polite">
+            to <span className="break-all font-mono">{sent.email}</span>, valid until <span className="font-mono">{formatDateTime(sent.expiresAt)}</span>. It is listed under pending invitations.
+          </StatusNote>
+        )}
       </FormShell>
     </Panel>
   );

@@ -31,7 +31,7 @@ export function ForgotPasswordForm() {
   // The same answer whether or not the account exists, so the page cannot be used to probe emails.
   if (sentTo) {
     return (
-      <StatusNote tone="ok" word="Sent">
+      <StatusNote tone="ok" word="Sent" live="polite">
         If an account exists for <span className="font-mono">{sentTo}</span>, a mail is on its way with a link to choose
         a new password. The link works once and expires.
       </StatusNote>

@@ -1,11 +1,13 @@
+import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useNavigate } from "react-router-dom";
+import { Link, useNavigate } from "react-router-dom";
 import { registerSchema } from "../../../shared/schemas/auth";
 import { useRegister } from "../../api/auth";
 import { paths } from "../../config/paths";
 import { Button } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
+import { StatusNote } from "../../components/ui/status-note";
 import { useServerErrors } from "../../lib/use-server-errors";
 import { withPasswordConfirmation } from "../../lib/password-confirmation";
 import { FormShell } from "../../components/ui/form-shell";
@@ -15,6 +17,7 @@ const registerFormSchema = withPasswordConfirmation(registerSchema, "password");
 export function RegisterForm() {
   const navigate = useNavigate();
   const registration = useRegister();
+  const [mailedTo, setMailedTo] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm({
     resolver: zodResolver(registerFormSchema),
     defaultValues: { name: "", email: "", organization: "", password: "", confirmPassword: "" },
@@ -24,12 +27,33 @@ export function RegisterForm() {
   const onSubmit = handleSubmit(async ({ confirmPassword: _confirm, ...body }) => {
     clearFormMessage();
     try {
-      await registration.mutateAsync(body);
-      navigate(paths.home.href(), { replace: true });
+      const { user, email } = await registration.mutateAsync(body);
+      if (user) navigate(paths.home.href(), { replace: true });
+      else setMailedTo(email);
     } catch (error) {
-      showServerError(error, { 409: "An account with that email already exists. Sign in or reset the password." });
+      showServerError(error);
     }
   });
+
+  // The server does not say whether the address already had an account; only the session tells
+  // whether this browser is signed in. When it is not, the mail explains (to the address's owner).
+  if (mailedTo) {
+    return (
+      <div className="space-y-4" data-testid="registration-mailed">
+        <StatusNote tone="info" word="Check your mail" live="polite">
+          You are not signed in yet. A message has gone to <span className="break-all font-mono">{mailedTo}</span>: if the address already has a Fluxwright account, it says how to sign in or choose a new password.
+        </StatusNote>
+        <p className="flex flex-wrap gap-x-4 gap-y-2">
+          <Link to={paths.signIn.href()} className="font-semibold text-flux-800 underline underline-offset-4">
+            Sign in
+          </Link>
+          <Link to={paths.forgotPassword.href()} className="font-semibold text-flux-800 underline underline-offset-4">
+            Choose a new password
+          </Link>
+        </p>
+      </div>
+    );
+  }
 
   const { errors, isSubmitting } = formState;
   return (

@@ -1,7 +1,14 @@
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
+import { fromMillimetres, toMillimetres, unitSymbols } from "../../../shared/units";
 import type { MaterialSummary } from "../../api/materials";
-import { niceLength, ScaleBar } from "../../components/drawing/drawing";
-import { fmt } from "./design-model";
+import { MIN_LABEL_PX, niceLength, readableFontSize, ScaleBar } from "../../components/drawing/drawing";
+import { useElementWidth } from "../../lib/use-element-width";
+import { fmt, lengthText, sizeText, type DesignLengthUnit } from "./design-model";
+
+/** Narrower than this (CSS px), the layer labels leave the drawing for a list under it, and the drawing keeps their numbers. */
+const LABELS_BELOW_PX = 520;
+/** The drawing's greatest height on screen (Tailwind max-h-[26rem]). */
+const MAX_HEIGHT_PX = 416;
 
 // The layers drawn to scale: the SVG's user unit is the millimetre, so the rings' radii and the
 // scale bar are the design's own lengths. Cylinder: the section across the axis; sphere: through
@@ -25,7 +32,10 @@ function roundedRect(hx: number, hy: number, r: number): string {
 }
 const circle = (r: number) => `M${-r} 0A${r} ${r} 0 1 0 ${r} 0A${r} ${r} 0 1 0 ${-r} 0Z`;
 
-export function CrossSection({ request, materials }: { request: PredictionRequest; materials: MaterialSummary[] }) {
+export function CrossSection({ request, materials, unit = "mm" }: { request: PredictionRequest; materials: MaterialSummary[]; unit?: DesignLengthUnit }) {
+  const [ref, width] = useElementWidth<HTMLElement>();
+  const compact = width > 0 && width < LABELS_BELOW_PX;
+  const L = (mm: number, digits = 4) => lengthText(mm, unit, digits);
   const box = request.shape === "box";
   const d = request.dimensions_mm as Record<string, number>;
   let hx = box ? d.width / 2 : d.diameter / 2;
@@ -39,7 +49,7 @@ export function CrossSection({ request, materials }: { request: PredictionReques
       inner: [hx, hy],
       t: l.thickness_mm,
       gap,
-      label: `${i + 1} · ${l.material ?? `μr ${l.mu_r}`} · ${fmt(l.thickness_mm)} mm${gap > 0 ? `, gap ${fmt(gap)} mm` : ""}`,
+      label: `${i + 1} · ${l.material ?? `μr ${l.mu_r}`} · ${L(l.thickness_mm, 3)}${gap > 0 ? `, gap ${L(gap, 3)}` : ""}`,
       fill: l.material ? (magnetic ? FILL.magnetic : FILL.conductor) : FILL.custom,
     };
     hx += l.thickness_mm + gap;
@@ -50,11 +60,12 @@ export function CrossSection({ request, materials }: { request: PredictionReques
   const X = last.inner[0] + last.t;
   const Y = last.inner[1] + last.t;
   const R = Math.max(X, Y);
-  const font = R * 0.085;
   const margin = R * 0.1;
   const labelX = X + margin;
-  const labelWidth = font * 0.56 * Math.max(...rings.map((r) => r.label.length)) + font;
-  const scale = niceLength(2 * X);
+  const labelChars = compact ? String(rings.length).length + 1 : Math.max(...rings.map((r) => r.label.length));
+  const scaleInUnit = niceLength(fromMillimetres(2 * X, unit));
+  const scale = toMillimetres(scaleInUnit, unit);
+  const scaleLabel = `${fmt(scaleInUnit, 3)} ${unitSymbols[unit]}`;
 
   // Cable holes: cut through every layer, a collar stub standing out from the outer layer, drawn
   // in the top of the section (round shapes: within 30° either side of the top; box: along the top
@@ -73,12 +84,21 @@ export function CrossSection({ request, materials }: { request: PredictionReques
     const tip = box ? [offset, -reach] : [reach * Math.cos(rad), reach * Math.sin(rad)];
     return { i, d: h.diameter_mm, bore, L: h.collarLength_mm, angle, offset, tip };
   });
-  const holeFont = font * 0.8;
-  const contentTop = Math.min(-Y - margin, ...holes.map((h) => h.tip[1] - holeFont * 1.6));
-  const top = contentTop - font * 1.6;
-  const bottom = Y + margin + font * 2.6;
-  const left = Math.min(-X - margin, ...holes.map((h) => h.tip[0] - holeFont * 2));
-  const right = Math.max(labelX + font + labelWidth, ...holes.map((h) => h.tip[0] + holeFont * 2));
+  // every length below is in mm (the SVG's user unit); the font grows on a narrow screen until labels render readable
+  const frame = (font: number) => {
+    const holeFont = font * 0.8;
+    const labelWidth = font * 0.56 * labelChars + font;
+    const titleWidth = font * 0.56 * 28;
+    const contentTop = Math.min(-Y - margin, ...holes.map((h) => h.tip[1] - holeFont * 1.6));
+    const top = contentTop - font * 1.6;
+    const bottom = Y + margin + font * 2.6;
+    const left = Math.min(-X - margin, ...holes.map((h) => h.tip[0] - holeFont * 2));
+    const right = Math.max(labelX + font + labelWidth, left + titleWidth, -X + scale + font * (1 + 0.56 * (scaleLabel.length + 8)), ...holes.map((h) => h.tip[0] + holeFont * 2));
+    return { holeFont, top, bottom, left, right, w: right - left, h: bottom - top };
+  };
+  // hole labels are drawn at 0.8 of the font: the font is sized so that they too read at MIN_LABEL_PX
+  const font = readableFontSize(R * 0.085, { width, maxHeight: MAX_HEIGHT_PX }, (fs) => frame(fs), holes.length ? MIN_LABEL_PX / 0.8 : MIN_LABEL_PX);
+  const { holeFont, top, bottom, left, right } = frame(font);
   // leaders run level to the right, spread over the innermost opening so each meets its own wall
   const y0 = rings[0].inner[1] * 0.7;
   const labelY = (i: number) => (rings.length === 1 ? -y0 / 2 : -y0 + (2 * y0 * i) / (rings.length - 1));
@@ -87,12 +107,12 @@ export function CrossSection({ request, materials }: { request: PredictionReques
     return box ? mid : Math.sqrt(Math.max(0, mid * mid - y * y));
   };
   const outline = (hxI: number, hyI: number, r = 0) => (box ? roundedRect(hxI, hyI, r) : circle(hxI));
-  const inside = box ? `${fmt(d.width)} × ${fmt(d.depth)} mm inside` : `Ø ${fmt(d.diameter)} mm inside`;
+  const inside = box ? `${sizeText([d.width, d.depth], unit, 4)} inside` : `Ø ${L(d.diameter)} inside`;
   const title = request.shape === "cylinder" ? "Section across the axis" : request.shape === "sphere" ? "Section through the centre" : "Section width × depth";
-  const outside = box ? `${fmt(2 * X, 4)} × ${fmt(2 * Y, 4)} mm` : `Ø ${fmt(2 * X, 4)} mm`;
+  const outside = box ? sizeText([2 * X, 2 * Y], unit, 4) : `Ø ${L(2 * X)}`;
 
   return (
-    <figure className="space-y-2">
+    <figure className="space-y-2" ref={ref}>
       <svg
         viewBox={`${left} ${top} ${right - left} ${bottom - top}`}
         className="h-auto max-h-[26rem] w-full text-flux-950"
@@ -159,13 +179,20 @@ export function CrossSection({ request, materials }: { request: PredictionReques
               <line x1={wallX(r, y)} y1={y} x2={labelX} y2={y} stroke="#b34a0c" strokeWidth={R * 0.006} />
               <circle cx={wallX(r, y)} cy={y} r={R * 0.012} fill="#b34a0c" />
               <text x={labelX + font * 0.4} y={y + font * 0.35} fontSize={font} fill="currentColor">
-                {r.label}
+                {compact ? r.index + 1 : r.label}
               </text>
             </g>
           );
         })}
-        <ScaleBar x={-X} y={Y + margin} length={scale} fontSize={font} />
+        <ScaleBar x={-X} y={Y + margin} length={scale} fontSize={font} label={scaleLabel} />
       </svg>
+      {compact && (
+        <ol className="space-y-0.5 text-meta text-flux-800" aria-label="Layers on the drawing" data-testid="section-labels">
+          {rings.map((r) => (
+            <li key={r.index}>{r.label}</li>
+          ))}
+        </ol>
+      )}
       <figcaption className="text-meta text-flux-600">
         Outside {outside}. Dark: magnetic alloy; orange: non-magnetic conductor; grey: custom μr. Drawn to scale.
         {holes.length > 0 ? ` H1${holes.length > 1 ? `–H${holes.length}` : ""}: cable holes with the outer layer's collar, placed at the top for the drawing; their real places are on your drawing.` : ""}

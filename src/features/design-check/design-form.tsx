@@ -1,17 +1,21 @@
 import type { ReactNode } from "react";
-import { MAX_FREQUENCY_HZ, MAX_LAYERS } from "../../../shared/schemas/prediction";
-import { fromMillimetres, toMillimetres } from "../../../shared/units";
+import { MAX_FREQUENCY_HZ } from "../../../shared/schemas/prediction";
 import type { MaterialSummary } from "../../api/materials";
 import { Button } from "../../components/ui/button";
-import { SelectField, TextField } from "../../components/ui/field";
+import { SelectField } from "../../components/ui/field";
+import { plainScale, quantityScale, UnitInput, unitOptions } from "../../components/ui/unit-input";
+import type { EditKind } from "../../lib/use-search-state";
 import {
-  designFieldUnits, designLengthUnits, fieldUnitNames, fmt, lengthUnitNames, MAX_PAGE_HOLES, newHole, newLayer,
-  type DesignDraft, type DesignFieldUnit, type DesignLengthUnit, type DraftErrors, type HoleDraft, type LayerDraft, type Shape,
+  designFieldUnits, designFrequencyUnits, designLengthUnits, fmt, lengthUnitNames, MAX_LAYERS, MAX_PAGE_HOLES, newHole, newLayer,
+  type DesignDraft, type DesignLengthUnit, type DraftErrors, type HoleDraft, type Kept, type LayerDraft, type Shape,
 } from "./design-model";
 
 interface Props {
   draft: DesignDraft;
-  onChange: (next: DesignDraft) => void;
+  /** every change goes straight to the parent, which checks, predicts and writes the address bar */
+  onChange: (next: DesignDraft, kind: EditKind) => void;
+  /** the person left a box they typed in */
+  onCommit: () => void;
   errors: DraftErrors;
   materials: MaterialSummary[];
   materialsError: boolean;
@@ -19,61 +23,15 @@ interface Props {
 
 const CUSTOM = "__custom";
 
-/** Four figures when they are as good as exact, else six. */
-function tidy(x: number): number {
-  const short = +x.toPrecision(4);
-  return Math.abs(short - x) <= 1e-4 * Math.abs(x) ? short : +x.toPrecision(6);
-}
-
-/**
- * Switching the unit keeps the shield the same size: every typed length is converted. The exact
- * millimetres behind a converted figure are remembered while it is left as it is, so switching
- * back gives 60, not 59.99.
- */
-function inUnit(d: DesignDraft, unit: DesignLengthUnit): DesignDraft {
-  const exact: NonNullable<DesignDraft["exact"]> = {};
-  const conv = (key: string, s: string) => {
-    const v = Number(s.trim().replace(",", "."));
-    if (s.trim() === "" || !Number.isFinite(v)) return s;
-    const known = d.exact?.[key];
-    const mm = known && known.text === s ? known.mm : toMillimetres(v, d.unit);
-    const text = String(tidy(fromMillimetres(mm, unit)));
-    exact[key] = { text, mm };
-    return text;
-  };
-  return {
-    ...d,
-    unit,
-    diameter: conv("diameter", d.diameter), length: conv("length", d.length), width: conv("width", d.width), depth: conv("depth", d.depth), height: conv("height", d.height),
-    layers: d.layers.map((l) => ({ ...l, thickness: conv(`${l.key}.thickness`, l.thickness), gap: conv(`${l.key}.gap`, l.gap) })),
-    ...(d.holes ? { holes: d.holes.map((h) => ({ ...h, diameter: conv(`${h.key}.diameter`, h.diameter), collar: conv(`${h.key}.collar`, h.collar) })) } : {}),
-    exact,
-  };
-}
-
-/** The design's inputs. Every change goes straight to the parent, which checks and predicts. */
-export function DesignForm({ draft, onChange, errors, materials, materialsError }: Props) {
-  const set = <K extends keyof DesignDraft>(key: K, value: DesignDraft[K]) => onChange({ ...draft, [key]: value });
-  const unitLabel = draft.unit === "mm" ? "mm" : draft.unit;
-  const inMm = (s: string) => {
-    if (draft.unit === "mm") return undefined;
-    const v = Number(s.replace(",", "."));
-    return s.trim() !== "" && Number.isFinite(v) ? `= ${fmt(toMillimetres(v, draft.unit), 4)} mm` : undefined;
-  };
-  const length = (name: "diameter" | "length" | "width" | "depth" | "height", label: string) => (
-    <TextField
-      label={`${label} (${unitLabel})`}
-      name={name}
-      inputMode="decimal"
-      autoComplete="off"
-      value={draft[name]}
-      hint={inMm(draft[name])}
-      error={errors[name]}
-      onChange={(e) => set(name, e.target.value)}
-    />
+/** The design's inputs: every quantity through the one unit input, kept in canonical units. */
+export function DesignForm({ draft, onChange, onCommit, errors, materials, materialsError }: Props) {
+  const set = <K extends keyof DesignDraft>(key: K, value: DesignDraft[K], kind: EditKind = "commit") => onChange({ ...draft, [key]: value }, kind);
+  const lengthScale = quantityScale("length", draft.units.length);
+  const length = (key: "diameter_mm" | "length_mm" | "width_mm" | "depth_mm" | "height_mm", name: string, label: string) => (
+    <UnitInput label={label} name={name} scale={lengthScale} value={draft[key]} error={errors[name]} onValueChange={(v) => set(key, v, "typing")} onCommit={onCommit} />
   );
 
-  const setLayer = (i: number, patch: Partial<LayerDraft>) => set("layers", draft.layers.map((l, j) => (j === i ? { ...l, ...patch } : l)));
+  const setLayer = (i: number, patch: Partial<LayerDraft>, kind: EditKind = "commit") => set("layers", draft.layers.map((l, j) => (j === i ? { ...l, ...patch } : l)), kind);
   const move = (i: number, by: -1 | 1) => {
     const layers = [...draft.layers];
     [layers[i], layers[i + by]] = [layers[i + by], layers[i]];
@@ -82,30 +40,38 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
   const remove = (i: number) => set("layers", draft.layers.filter((_, j) => j !== i));
   const add = () => {
     const last = draft.layers[draft.layers.length - 1];
-    set("layers", [...draft.layers, newLayer(last ? { kind: last.kind, material: last.material, thickness: last.thickness, gap: last.gap || "10" } : {})]);
+    set("layers", [...draft.layers, newLayer(last ? { kind: last.kind, material: last.material, mu_r: last.mu_r, resistivity_uohm_m: last.resistivity_uohm_m, saturation_T: last.saturation_T, thickness_mm: last.thickness_mm, gap_mm: last.gap_mm ?? 10 } : {})]);
   };
 
-  const holes = draft.holes ?? [];
-  const setHole = (i: number, patch: Partial<HoleDraft>) => set("holes", holes.map((h, j) => (j === i ? { ...h, ...patch } : h)));
+  const holes = draft.holes;
+  const setHole = (i: number, patch: Partial<HoleDraft>) => set("holes", holes.map((h, j) => (j === i ? { ...h, ...patch } : h)), "typing");
   const removeHole = (i: number) => set("holes", holes.filter((_, j) => j !== i));
-  const addHole = () => set("holes", [...holes, newHole(draft.unit)]);
-  /** "2 hole diameters": the collar against the rule of thumb, in the person's own numbers */
+  const addHole = () => set("holes", [...holes, newHole()]);
+  /** "2 hole diameters": the collar against the rule of thumb */
   const diameters = (h: HoleDraft) => {
-    const d = Number(h.diameter.replace(",", ".")), c = h.collar.trim() === "" ? 0 : Number(h.collar.replace(",", "."));
-    if (!(d > 0) || !Number.isFinite(c) || c < 0) return undefined;
+    const d = h.diameter_mm, c = h.collar_mm ?? 0;
+    if (d === null || !(d > 0) || !Number.isFinite(c) || c < 0) return undefined;
     return c === 0 ? "No collar: a plain hole." : `The collar is ${fmt(c / d, 2)} hole diameter${fmt(c / d, 2) === "1" ? "" : "s"} long.`;
   };
+  const plain = (value: Kept, label: string, error: string | undefined, onValue: (v: Kept) => void, hint?: string, scale = plainScale) => (
+    <UnitInput label={label} scale={scale} value={value} error={error} hint={hint} onValueChange={onValue} onCommit={onCommit} />
+  );
 
   return (
     <form className="space-y-6" onSubmit={(e) => e.preventDefault()} noValidate aria-label="Shield design">
       <Section title="Shape and inside size">
-        <div className="grid gap-4 sm:grid-cols-2 md:grid-cols-1 xl:grid-cols-2">
+        <div className="grid gap-4 sm:grid-cols-2">
           <SelectField label="Shape" name="shape" value={draft.shape} error={errors.shape} onChange={(e) => set("shape", e.target.value as Shape)}>
             <option value="cylinder">Cylinder (can)</option>
             <option value="box">Box</option>
             <option value="sphere">Sphere</option>
           </SelectField>
-          <SelectField label="Lengths in" name="unit" value={draft.unit} onChange={(e) => onChange(inUnit(draft, e.target.value as DesignLengthUnit))}>
+          <SelectField
+            label="Lengths in"
+            name="unit"
+            value={draft.units.length}
+            onChange={(e) => set("units", { ...draft.units, length: e.target.value as DesignLengthUnit })}
+          >
             {designLengthUnits.map((u) => (
               <option key={u} value={u}>
                 {lengthUnitNames[u]}
@@ -113,21 +79,21 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
             ))}
           </SelectField>
         </div>
-        <div className="grid gap-4 sm:grid-cols-2 md:grid-cols-1 xl:grid-cols-2">
+        <div className="grid gap-4 sm:grid-cols-2">
           {draft.shape === "box" ? (
             <>
-              {length("width", "Inside width")}
-              {length("depth", "Inside depth")}
-              {length("height", "Inside height")}
+              {length("width_mm", "width", "Inside width")}
+              {length("depth_mm", "depth", "Inside depth")}
+              {length("height_mm", "height", "Inside height")}
             </>
           ) : (
             <>
-              {length("diameter", "Inside diameter")}
-              {draft.shape === "cylinder" && length("length", "Inside length")}
+              {length("diameter_mm", "diameter", "Inside diameter")}
+              {draft.shape === "cylinder" && length("length_mm", "length", "Inside length")}
             </>
           )}
           {draft.shape === "cylinder" && (
-            <div className="sm:col-span-2 md:col-span-1 xl:col-span-2">
+            <div className="sm:col-span-2">
               <SelectField label="Ends" name="ends" value={draft.ends} error={errors.ends} onChange={(e) => set("ends", e.target.value as DesignDraft["ends"])}>
                 <option value="closed">Closed (lid and bottom)</option>
                 <option value="open">Open (tube)</option>
@@ -135,7 +101,7 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
             </div>
           )}
         </div>
-        <p className="text-meta text-flux-600">Inside dimensions of the innermost layer.</p>
+        <p className="text-meta text-flux-600">Inside dimensions of the innermost layer. Changing “Lengths in” shows the same design in that unit; it never changes it.</p>
         {draft.shape === "cylinder" ? (
           <SelectField
             label="How it is made"
@@ -185,16 +151,16 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
                     <option value={CUSTOM}>Custom: my own μr and resistivity</option>
                   </SelectField>
                   {l.kind === "custom" && (
-                    <div className="grid gap-3 sm:grid-cols-3 md:grid-cols-1">
-                      <TextField label="μr (relative permeability)" inputMode="decimal" autoComplete="off" value={l.mu_r} error={err("mu_r")} onChange={(e) => setLayer(i, { mu_r: e.target.value })} />
-                      <TextField label="Resistivity (µΩ·m)" inputMode="decimal" autoComplete="off" value={l.resistivity} error={err("resistivity")} onChange={(e) => setLayer(i, { resistivity: e.target.value })} />
-                      <TextField label="Saturation (T)" hint="Empty if non-magnetic." inputMode="decimal" autoComplete="off" value={l.saturation} error={err("saturation")} onChange={(e) => setLayer(i, { saturation: e.target.value })} />
+                    <div className="grid gap-3 sm:grid-cols-3">
+                      {plain(l.mu_r, "μr (relative permeability)", err("mu_r"), (v) => setLayer(i, { mu_r: v }, "typing"))}
+                      {plain(l.resistivity_uohm_m, "Resistivity (µΩ·m)", err("resistivity"), (v) => setLayer(i, { resistivity_uohm_m: v }, "typing"))}
+                      {plain(l.saturation_T, "Saturation (T)", err("saturation"), (v) => setLayer(i, { saturation_T: v }, "typing"), "Empty if non-magnetic.")}
                     </div>
                   )}
-                  <div className="grid gap-3 sm:grid-cols-2 md:grid-cols-1 xl:grid-cols-2">
-                    <TextField label={`Wall thickness (${unitLabel})`} inputMode="decimal" autoComplete="off" value={l.thickness} hint={inMm(l.thickness)} error={err("thickness")} onChange={(e) => setLayer(i, { thickness: e.target.value })} />
+                  <div className="grid gap-3 sm:grid-cols-2">
+                    <UnitInput label="Wall thickness" scale={lengthScale} value={l.thickness_mm} error={err("thickness")} onValueChange={(v) => setLayer(i, { thickness_mm: v }, "typing")} onCommit={onCommit} />
                     {!outermost && (
-                      <TextField label={`Gap to layer ${i + 2} (${unitLabel})`} inputMode="decimal" autoComplete="off" value={l.gap} hint={inMm(l.gap)} error={err("gap")} onChange={(e) => setLayer(i, { gap: e.target.value })} />
+                      <UnitInput label={`Gap to layer ${i + 2}`} scale={lengthScale} value={l.gap_mm} error={err("gap")} onValueChange={(v) => setLayer(i, { gap_mm: v }, "typing")} onCommit={onCommit} />
                     )}
                   </div>
                   <div className="flex flex-wrap gap-2">
@@ -236,9 +202,9 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
                 <li key={h.key}>
                   <fieldset className="space-y-3 rounded-md border border-nickel-300 bg-nickel-50 p-3" aria-label={`Hole ${i + 1}`}>
                     <legend className="px-1 font-semibold text-flux-900">Hole {i + 1}</legend>
-                    <div className="grid items-start gap-3 sm:grid-cols-2 md:grid-cols-1 xl:grid-cols-2">
-                      <TextField label={`Hole diameter (${unitLabel})`} inputMode="decimal" autoComplete="off" value={h.diameter} hint={inMm(h.diameter)} error={err("diameter")} onChange={(e) => setHole(i, { diameter: e.target.value })} />
-                      <TextField label={`Collar length (${unitLabel})`} inputMode="decimal" autoComplete="off" value={h.collar} hint={inMm(h.collar)} error={err("collar")} onChange={(e) => setHole(i, { collar: e.target.value })} />
+                    <div className="grid items-start gap-3 sm:grid-cols-2">
+                      <UnitInput label="Hole diameter" scale={lengthScale} value={h.diameter_mm} error={err("diameter")} onValueChange={(v) => setHole(i, { diameter_mm: v })} onCommit={onCommit} />
+                      <UnitInput label="Collar length" scale={lengthScale} value={h.collar_mm} error={err("collar")} onValueChange={(v) => setHole(i, { collar_mm: v })} onCommit={onCommit} />
                     </div>
                     <p className="text-meta text-flux-600">{ratio ?? "Empty or 0: a plain hole, no collar."}</p>
                     <Button variant="quiet" className="min-h-9 px-2 text-meta" onClick={() => removeHole(i)} aria-label={`Remove hole ${i + 1}`}>
@@ -256,25 +222,27 @@ export function DesignForm({ draft, onChange, errors, materials, materialsError 
       </Section>
 
       <Section title="The field to block">
-        <div className="grid gap-4 sm:grid-cols-[1fr_auto]">
-          <TextField label="Peak field" name="amplitude" inputMode="decimal" autoComplete="off" value={draft.amplitude} error={errors.amplitude} onChange={(e) => set("amplitude", e.target.value)} />
-          <SelectField label="Unit" name="fieldUnit" value={draft.fieldUnit} onChange={(e) => set("fieldUnit", e.target.value as DesignFieldUnit)}>
-            {designFieldUnits.map((u) => (
-              <option key={u} value={u}>
-                {fieldUnitNames[u]}
-              </option>
-            ))}
-          </SelectField>
-        </div>
-        <TextField
-          label="Frequency (Hz)"
+        <UnitInput
+          label="Peak field"
+          name="amplitude"
+          scale={quantityScale("flux", draft.units.field)}
+          value={draft.amplitude_uT}
+          error={errors.amplitude}
+          hint="Switching the unit shows the same field in it."
+          onValueChange={(v) => set("amplitude_uT", v, "typing")}
+          onCommit={onCommit}
+          unitSelect={{ value: draft.units.field, options: unitOptions.flux(designFieldUnits), onChange: (u) => set("units", { ...draft.units, field: u as DesignDraft["units"]["field"] }) }}
+        />
+        <UnitInput
+          label="Frequency"
           name="frequency"
-          inputMode="decimal"
-          autoComplete="off"
-          value={draft.frequency}
-          hint={`0 for a static field; the model covers 0 to ${(MAX_FREQUENCY_HZ / 1000).toLocaleString("en-GB")} kHz.`}
+          scale={quantityScale("frequency", draft.units.frequency)}
+          value={draft.frequency_hz}
           error={errors.frequency}
-          onChange={(e) => set("frequency", e.target.value)}
+          hint={`0 for a static field; the model covers 0 to ${(MAX_FREQUENCY_HZ / 1000).toLocaleString("en-GB")} kHz.`}
+          onValueChange={(v) => set("frequency_hz", v, "typing")}
+          onCommit={onCommit}
+          unitSelect={{ value: draft.units.frequency, options: unitOptions.frequency(designFrequencyUnits), onChange: (u) => set("units", { ...draft.units, frequency: u as DesignDraft["units"]["frequency"] }) }}
         />
         {draft.shape === "cylinder" ? (
           <SelectField label="Field direction" name="orientation" value={draft.orientation} error={errors.orientation} onChange={(e) => set("orientation", e.target.value as DesignDraft["orientation"])}>

@@ -67,7 +67,7 @@ export type PriceEstimateBodyResult =
  * collars, the method and the quantity.
  * Says in plain words when the design cannot be priced.
  */
-export function toPriceEstimateBody(request: PredictionRequest, method: MakeMethod | null, quantityText: string): PriceEstimateBodyResult {
+export function toPriceEstimateBody(request: PredictionRequest, method: MakeMethod | null, quantity: number | null): PriceEstimateBodyResult {
   if (request.shape === "sphere" || method === null) return { ok: false, reason: "not-made", message: "A sphere is not made on this shop's routings, so it has no price." };
   const custom = request.layers.flatMap((l, i) => (l.material ? [] : [i]));
   if (custom.length > 0) {
@@ -79,9 +79,9 @@ export function toPriceEstimateBody(request: PredictionRequest, method: MakeMeth
       message: `Layer ${which} ${custom.length === 1 ? "has" : "have"} a custom μr rather than a material from the library, so the shop has no price for ${custom.length === 1 ? "it" : "them"}. Choose a library material to see the price.`,
     };
   }
-  const quantity = Number(quantityText.trim());
+  if (quantity === null) return { ok: false, reason: "quantity", message: "Enter the quantity." };
   if (!Number.isInteger(quantity) || quantity < 1 || quantity > MAX_ESTIMATE_QUANTITY) {
-    return { ok: false, reason: "quantity", message: `Enter a whole number of pieces from 1 to ${MAX_ESTIMATE_QUANTITY.toLocaleString("en-GB")}.` };
+    return { ok: false, reason: "quantity", message: `Quantity must be a whole number of pieces from 1 to ${MAX_ESTIMATE_QUANTITY.toLocaleString("en-GB")}.` };
   }
   const d = request.dimensions_mm as Record<string, number>;
   const layers = request.layers.map((l, i) => ({

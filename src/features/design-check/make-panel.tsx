@@ -4,43 +4,48 @@ import { useQueries, useQuery } from "@tanstack/react-query";
 import type { BlankRequest } from "../../../shared/schemas/blank";
 import type { PredictionRequest } from "../../../shared/schemas/prediction";
 import { meQueryOptions } from "../../api/auth";
-import { ApiError } from "../../api/client";
+import { ApiError, blamesInputs } from "../../api/client";
 import { blankQueryOptions, priceEstimateQueryOptions, type BlankResponse } from "../../api/fabrication";
-import { fmtMm } from "../../components/drawing/drawing";
 import { PriceBreakdown } from "../../components/pricing/price-breakdown";
-import { TextField } from "../../components/ui/field";
+import { ServerTrouble } from "../../components/server-trouble";
+import { useLastGood } from "../../lib/use-last-good";
+import { plainScale, UnitInput } from "../../components/ui/unit-input";
 import { Spinner } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { paths } from "../../config/paths";
 import { useDebounced } from "../../lib/use-debounced";
+import { lengthText, sizeText, type DesignLengthUnit } from "./design-model";
 import { flatBlankPrefill, layerBlankRequests, methodOf, toPriceEstimateBody, tooManyDraws, type MakeMethod } from "./make-model";
 
 const METHOD_WORDS: Record<MakeMethod, string> = { drawn: "Deep-drawn can", rolled: "Rolled and seam-welded can", bent: "Bent box" };
 
-function blankSize(r: BlankResponse): string {
+function blankSize(r: BlankResponse, unit: DesignLengthUnit): string {
+  const L = (mm: number) => lengthText(mm, unit, 5);
   const b = r.blank;
-  if (b.kind === "disc") return `Disc Ø ${fmtMm(b.diameter_mm)} mm`;
-  const main = `${b.kind === "cross" ? "Cross" : "Rectangle"} ${fmtMm(b.length_mm)} × ${fmtMm(b.width_mm)} mm`;
-  if (r.method === "rolled") return `${main} + 2 discs Ø ${fmtMm(r.endCaps[0].diameter_mm)} mm`;
-  if (r.method === "bent" && r.lid) return `${main}; lid: cross ${fmtMm(r.lid.blank.length_mm)} × ${fmtMm(r.lid.blank.width_mm)} mm`;
+  if (b.kind === "disc") return `Disc Ø ${L(b.diameter_mm)}`;
+  const main = `${b.kind === "cross" ? "Cross" : "Rectangle"} ${sizeText([b.length_mm, b.width_mm], unit)}`;
+  if (r.method === "rolled") return `${main} + 2 discs Ø ${L(r.endCaps[0].diameter_mm)}`;
+  if (r.method === "bent" && r.lid) return `${main}; lid: cross ${sizeText([r.lid.blank.length_mm, r.lid.blank.width_mm], unit)}`;
   return main;
 }
 
-function forming(r: BlankResponse): string {
+function forming(r: BlankResponse, unit: DesignLengthUnit): string {
+  const L = (mm: number) => lengthText(mm, unit, 3);
   if (r.method === "drawn") {
     const n = r.drawStages.length;
     return `${n} draw${n === 1 ? "" : "s"} · ${r.processAnneals === 0 ? "no process anneal" : `${r.processAnneals} process anneal${r.processAnneals === 1 ? "" : "s"}`}`;
   }
-  if (r.method === "bent") return `${r.bendCount} bends${r.lid ? " + 4 on the lid" : ""} · ${fmtMm(r.weldLength_mm, 0)} mm corner welds`;
-  return `rolled · ${fmtMm(r.weldLength_mm, 0)} mm seam weld · 2 end discs welded on`;
+  if (r.method === "bent") return `${r.bendCount} bends${r.lid ? " + 4 on the lid" : ""} · ${L(r.weldLength_mm)} corner welds`;
+  return `rolled · ${L(r.weldLength_mm)} seam weld · 2 end discs welded on`;
 }
 
 const kg = (x: number) => `${x.toFixed(3)} kg`;
 
 /** What the design takes to make: one part per layer, its blank, forming and mass; signed in, the price. */
-export function MakePanel({ request }: { request: PredictionRequest }) {
+export function MakePanel({ request, unit = "mm" }: { request: PredictionRequest; unit?: DesignLengthUnit }) {
+  const L = (mm: number) => lengthText(mm, unit, 5);
   const me = useQuery(meQueryOptions);
-  const [quantity, setQuantity] = useState("10");
+  const [quantity, setQuantity] = useState<number | null>(10);
   // made as the design says (its construction also sets the as-built figure)
   const method = methodOf(request);
 
@@ -56,6 +61,7 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
     enabled: signedIn && priceBody.ok,
     retry: false,
   });
+  const priced = useLastGood(estimate.data, estimate.isSuccess && !estimate.isPlaceholderData);
 
   if (request.shape === "sphere" || !method) {
     return (
@@ -72,7 +78,7 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
   const customLayers = request.layers.flatMap((l, i) => (l.material ? [] : [i + 1]));
   // holes with a collar are parts of their own (the price route makes them); a plain hole is only cut
   const collared = (request.holes ?? []).filter((h) => h.collarLength_mm > 0);
-  const collarParts = estimate.data && !estimate.isPlaceholderData ? estimate.data.parts.filter((p) => p.role === "collar") : [];
+  const collarParts = priced ? priced.parts.filter((p) => p.role === "collar") : [];
   const collarMass = collarParts.reduce((sum, p) => sum + (p.mass_kg ?? 0) * p.quantityPerAssembly, 0);
   const fetching = blanks.some((q) => q.isFetching);
 
@@ -108,28 +114,30 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
             <li key={i} className="rounded-md border border-nickel-200 p-3" data-testid="make-part">
               <div className="flex flex-wrap items-baseline justify-between gap-x-4 gap-y-1">
                 <span className="font-semibold text-flux-900">
-                  Layer {i + 1} · {METHOD_WORDS[method]} · {layer.material ?? "custom μr"} {fmtMm(layer.thickness_mm)} mm
+                  Layer {i + 1} · {METHOD_WORDS[method]} · {layer.material ?? "custom μr"} {L(layer.thickness_mm)}
                 </span>
                 <Link className="text-meta font-semibold text-flux-700 underline underline-offset-4" to={paths.flatBlank.href(flatBlankPrefill(b))} data-testid="flat-blank-link">
                   Flat pattern and DXF for layer {i + 1}
                 </Link>
               </div>
               <p className="text-meta text-flux-600">
-                Inside {b.shape === "box" ? `${fmtMm(b.dimensions_mm.width)} × ${fmtMm(b.dimensions_mm.depth)} × ${fmtMm(b.dimensions_mm.height)} mm` : `Ø ${fmtMm(b.dimensions_mm.diameter)} × ${fmtMm(b.dimensions_mm.length)} mm`}
+                Inside {b.shape === "box" ? sizeText([b.dimensions_mm.width, b.dimensions_mm.depth, b.dimensions_mm.height], unit) : `Ø ${sizeText([b.dimensions_mm.diameter, b.dimensions_mm.length], unit)}`}
               </p>
               {q.isError ? (
                 <p className="mt-1 text-meta font-semibold text-danger-700">
-                  {q.error instanceof ApiError && Object.keys(q.error.fields).length ? Object.values(q.error.fields).join(" ") : (q.error as Error).message}
+                  {blamesInputs(q.error) && Object.keys(q.error.fields).length
+                    ? Object.values(q.error.fields).join(" ")
+                    : `The server could not work this blank out just now (${q.error instanceof ApiError ? q.error.message : "no answer"}); your design is not the problem.`}
                 </p>
               ) : r ? (
                 <dl className="mt-2 flex flex-wrap gap-x-8 gap-y-2">
                   <div>
                     <dt className="text-meta text-flux-600">Blank</dt>
-                    <dd className="font-mono text-flux-950" data-testid="make-blank-size">{blankSize(r)}</dd>
+                    <dd className="font-mono text-flux-950" data-testid="make-blank-size">{blankSize(r, unit)}</dd>
                   </div>
                   <div>
                     <dt className="text-meta text-flux-600">Forming</dt>
-                    <dd className="text-flux-950">{forming(r)}</dd>
+                    <dd className="text-flux-950">{forming(r, unit)}</dd>
                   </div>
                   <div>
                     <dt className="text-meta text-flux-600">Mass</dt>
@@ -155,8 +163,8 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
                 const hole = collared[k % collared.length];
                 return (
                   <li key={k} data-testid="make-collar">
-                    Layer {p.layer + 1} · collar for the Ø {fmtMm(hole.diameter_mm)} mm hole, {fmtMm(hole.collarLength_mm)} mm long · blank{" "}
-                    <span className="font-mono">{p.blank.kind === "disc" ? `disc Ø ${fmtMm(p.blank.diameter_mm)}` : `${fmtMm(p.blank.length_mm)} × ${fmtMm(p.blank.width_mm)}`} mm</span>
+                    Layer {p.layer + 1} · collar for the Ø {L(hole.diameter_mm)} hole, {L(hole.collarLength_mm)} long · blank{" "}
+                    <span className="font-mono">{p.blank.kind === "disc" ? `disc Ø ${L(p.blank.diameter_mm)}` : sizeText([p.blank.length_mm, p.blank.width_mm], unit)}</span>
                     {p.mass_kg !== undefined ? ` · ${kg(p.mass_kg)}` : ""}
                   </li>
                 );
@@ -193,7 +201,7 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
           <section className="space-y-4" aria-label="Price estimate">
             <div className="flex flex-wrap items-end justify-between gap-4">
               <div className="w-40">
-                <TextField label="Quantity" name="makeQuantity" inputMode="numeric" autoComplete="off" value={quantity} onChange={(e) => setQuantity(e.target.value)} error={!priceBody.ok && priceBody.reason === "quantity" ? priceBody.message : undefined} />
+                <UnitInput label="Quantity" name="makeQuantity" inputMode="numeric" scale={plainScale} value={quantity} onValueChange={setQuantity} error={!priceBody.ok && priceBody.reason === "quantity" ? priceBody.message : undefined} />
               </div>
               {estimate.isFetching && (
                 <span className="flex items-center gap-2 text-meta text-flux-600">
@@ -201,13 +209,14 @@ export function MakePanel({ request }: { request: PredictionRequest }) {
                 </span>
               )}
             </div>
-            {estimate.isError && (
-              <StatusNote tone="danger" word="No price">
-                {estimate.error instanceof ApiError && Object.keys(estimate.error.fields).length ? Object.values(estimate.error.fields).join(" ") : (estimate.error as Error).message}
+            {estimate.isError && blamesInputs(estimate.error) && (
+              <StatusNote tone="danger" word="No price for these values">
+                {Object.keys(estimate.error.fields).length ? Object.values(estimate.error.fields).join(" ") : estimate.error.message}
               </StatusNote>
             )}
-            {!estimate.data && estimate.isPending && priceBody.ok && <p className="text-flux-600">Pricing…</p>}
-            {estimate.data && <PriceBreakdown estimate={estimate.data} dimmed={estimate.isError || estimate.isPlaceholderData || !priceBody.ok} />}
+            {estimate.isError && !blamesInputs(estimate.error) && <ServerTrouble error={estimate.error} what="the price" kept={Boolean(priced)} onRetry={() => void estimate.refetch()} />}
+            {!priced && estimate.isPending && priceBody.ok && <p className="text-flux-600">Pricing…</p>}
+            {priced && <PriceBreakdown estimate={priced} dimmed={estimate.isError || estimate.isPlaceholderData || !priceBody.ok} />}
           </section>
         )
       )}

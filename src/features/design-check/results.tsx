@@ -1,8 +1,9 @@
 import { roundUpLength_mm } from "../../../shared/physics/predict";
+import { fromHertz } from "../../../shared/units";
 import type { PredictionResult } from "../../api/predictions";
+import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { StatusNote } from "../../components/ui/status-note";
-import { fmt } from "./design-model";
-import { ScrollX } from "../../components/ui/scroll-x";
+import { fmt, lengthText, type DesignUnits } from "./design-model";
 
 type LayerResult = PredictionResult["layers"][number];
 
@@ -15,6 +16,18 @@ export function formatFactor(S: number): string {
 }
 
 const tesla = (B: number) => (B >= 0.1 ? `${fmt(B, 3)} T` : B >= 1e-4 ? `${fmt(B * 1000, 3)} mT` : `${fmt(B * 1e6, 3)} µT`);
+const gauss = (B: number) => (B >= 1e-4 ? `${fmt(B * 1e4, 3)} G` : `${fmt(B * 1e7, 3)} mG`);
+
+/** A flux density (tesla) in the family of the unit the person chose for the field: gauss for G, mG and Oe, tesla otherwise. */
+export function fluxText(B_T: number, fieldUnit: DesignUnits["field"]): string {
+  return fieldUnit === "G" || fieldUnit === "mG" || fieldUnit === "Oe" ? gauss(B_T) : tesla(B_T);
+}
+
+/** A frequency in the person's unit: "60 Hz", "1.2 kHz"; DC for 0. */
+export function frequencyText(hz: number, unit: DesignUnits["frequency"]): string {
+  if (hz === 0) return "DC (static)";
+  return `${fmt(fromHertz(hz, unit), 4)} ${unit}`;
+}
 
 /** The margin as a number and a word, so it reads without the bar's colour. */
 export function marginWord(l: Pick<LayerResult, "saturation_T" | "saturationMargin">): { word: string; tone: "ok" | "caution" | "danger" | "info" } {
@@ -27,13 +40,13 @@ export function marginWord(l: Pick<LayerResult, "saturation_T" | "saturationMarg
 const db = (figure: { attenuation_db: number; beyondLimit: boolean }) => (figure.beyondLimit ? `over ${figure.attenuation_db.toFixed(0)} dB` : `${figure.attenuation_db.toFixed(1)} dB`);
 
 /** The built figure as the headline with its likely range; the seamless shell beside it, smaller, and one sentence on the difference. */
-export function Headline({ result, frequency }: { result: PredictionResult; frequency: number }) {
+export function Headline({ result, frequency, units }: { result: PredictionResult; frequency: number; units: DesignUnits }) {
   const { band, ideal, asBuilt } = result;
   return (
-    <div className="space-y-3" aria-live="polite">
+    <div className="space-y-3">
       <div className="grid items-end gap-x-8 gap-y-4 sm:grid-cols-2 lg:grid-cols-[auto_auto_1fr]">
         <div>
-          <p className="text-meta text-flux-600">Attenuation at {frequency === 0 ? "DC (static)" : `${fmt(frequency, 4)} Hz`}, as built</p>
+          <p className="text-meta text-flux-600">Attenuation at {frequencyText(frequency, units.frequency)}, as built</p>
           <p className="font-display text-h1 text-flux-950" data-testid="attenuation-db">
             {db(result)}
           </p>
@@ -72,7 +85,8 @@ export function Headline({ result, frequency }: { result: PredictionResult; freq
 const BAR_COLOURS = { ok: "bg-ok-700", caution: "bg-caution-700", danger: "bg-danger-700", info: "bg-flux-400" } as const;
 
 /** Wall flux against saturation per layer, with the rule of thumb's third-to-half band marked. */
-export function LayerBars({ result, materialName }: { result: PredictionResult; materialName: (id: string) => string }) {
+export function LayerBars({ result, materialName, units }: { result: PredictionResult; materialName: (id: string) => string; units: DesignUnits }) {
+  const flux = (B: number) => fluxText(B, units.field);
   return (
     <ol className="space-y-4" aria-label="Layers: wall flux and saturation margin" data-testid="layer-bars">
       {result.layers.map((l) => {
@@ -83,14 +97,14 @@ export function LayerBars({ result, materialName }: { result: PredictionResult; 
           <li key={l.index} className="space-y-1.5">
             <div className="flex flex-wrap items-baseline justify-between gap-x-4">
               <span className="font-semibold text-flux-900">
-                Layer {l.index + 1} · {l.material ? materialName(l.material) : "custom"} · {fmt(l.thickness_mm)} mm
+                Layer {l.index + 1} · {l.material ? materialName(l.material) : "custom"} · {lengthText(l.thickness_mm, units.length)}
               </span>
               <span className="text-meta text-flux-700">
                 margin <strong className="font-mono">{margin}</strong> · <strong>{word}</strong>
               </span>
             </div>
             {l.saturation_T != null && (
-              <div className="relative h-4 rounded-sm bg-nickel-100 ring-1 ring-nickel-300" role="img" aria-label={`Wall flux ${tesla(l.wallFluxDensity_T)} of ${l.saturation_T} T saturation: ${word}`}>
+              <div className="relative h-4 rounded-sm bg-nickel-100 ring-1 ring-nickel-300" role="img" aria-label={`Wall flux ${flux(l.wallFluxDensity_T)} of ${flux(l.saturation_T)} saturation: ${word}`}>
                 <div className={`h-full rounded-sm ${BAR_COLOURS[tone]}`} style={{ width: `max(3px, ${fraction * 100}%)` }} />
                 {/* keep the wall at or below about a third to a half of saturation [practice] */}
                 <div className="absolute inset-y-0 border-l-2 border-dashed border-flux-700" style={{ left: "33.3%" }} aria-hidden="true" />
@@ -99,10 +113,10 @@ export function LayerBars({ result, materialName }: { result: PredictionResult; 
             )}
             <p className="text-meta text-flux-600">
               {l.skinDepth_mm != null ? "Peak wall flux (outer face) " : "Wall flux "}
-              {tesla(l.wallFluxDensity_T)}
-              {l.saturation_T != null ? ` of ${l.saturation_T} T saturation` : ""} · μr used {Math.round(l.mu_r).toLocaleString("en-GB")} (
+              {flux(l.wallFluxDensity_T)}
+              {l.saturation_T != null ? ` of ${flux(l.saturation_T)} saturation` : ""} · μr used {Math.round(l.mu_r).toLocaleString("en-GB")} (
               {l.muReason}
-              {l.skinDepth_mm != null ? `) · skin depth ${fmt(l.skinDepth_mm, 3)} mm` : ")"}
+              {l.skinDepth_mm != null ? `) · skin depth ${lengthText(l.skinDepth_mm, units.length, 3)}` : ")"}
             </p>
           </li>
         );
@@ -126,40 +140,34 @@ export function Warnings({ result }: { result: PredictionResult }) {
 }
 
 /** Each cable hole: what its collar gives, what the design needs, in words as well as figures. */
-export function HoleTable({ result }: { result: PredictionResult }) {
+export function HoleTable({ result, units }: { result: PredictionResult; units: DesignUnits }) {
   const lost = result.wallAttenuation_db - result.attenuation_db;
+  const L = (mm: number) => lengthText(mm, units.length);
+  type Hole = PredictionResult["holes"][number];
   return (
     <div className="space-y-2">
-      <ScrollX label="the cable holes table">
-        <table className="w-full min-w-[30rem] text-left text-body" data-testid="hole-table">
-          <caption className="sr-only">Cable holes: collar attenuation and the collar length the design needs</caption>
-          <thead className="border-b border-nickel-300 text-meta text-flux-600">
-            <tr>
-              <th className="py-1 pr-3 font-semibold">Hole</th>
-              <th className="py-1 pr-3 text-right font-semibold">Diameter</th>
-              <th className="py-1 pr-3 text-right font-semibold">Collar</th>
-              <th className="py-1 pr-3 text-right font-semibold">Collar gives</th>
-              <th className="py-1 pr-3 text-right font-semibold">Collar needed, at least</th>
-              <th className="py-1 font-semibold">Verdict</th>
-            </tr>
-          </thead>
-          <tbody>
-            {result.holes.map((h) => {
+      <ResponsiveTable<Hole>
+        caption="Cable holes: collar attenuation and the collar length the design needs"
+        testId="hole-table"
+        rowTestId="hole-row"
+        rows={result.holes}
+        rowKey={(h) => String(h.index)}
+        columns={[
+          { key: "hole", header: "Hole", primary: true, cell: (h) => `Hole ${h.index + 1}`, className: "font-semibold" },
+          { key: "diameter", header: "Diameter", align: "end", className: "font-mono", cell: (h) => `Ø ${L(h.diameter_mm)}` },
+          { key: "collar", header: "Collar", align: "end", className: "font-mono", cell: (h) => (h.collarLength_mm > 0 ? L(h.collarLength_mm) : "none") },
+          { key: "gives", header: "Collar gives", align: "end", className: "font-mono", cell: (h) => `${h.collarAttenuation_db.toFixed(0)} dB` },
+          { key: "needed", header: "Collar needed, at least", align: "end", className: "font-mono", cell: (h) => L(roundUpLength_mm(h.neededCollarLength_mm)) },
+          {
+            key: "verdict",
+            header: "Verdict",
+            cell: (h) => {
               const short = h.collarLength_mm < h.neededCollarLength_mm;
-              return (
-                <tr key={h.index} className="border-b border-nickel-100" data-testid="hole-row">
-                  <td className="py-1 pr-3 font-semibold">{h.index + 1}</td>
-                  <td className="py-1 pr-3 text-right font-mono">Ø {fmt(h.diameter_mm)} mm</td>
-                  <td className="py-1 pr-3 text-right font-mono">{h.collarLength_mm > 0 ? `${fmt(h.collarLength_mm)} mm` : "none"}</td>
-                  <td className="py-1 pr-3 text-right font-mono">{h.collarAttenuation_db.toFixed(0)} dB</td>
-                  <td className="py-1 pr-3 text-right font-mono">{roundUpLength_mm(h.neededCollarLength_mm)} mm</td>
-                  <td className={`py-1 font-semibold ${short ? "text-danger-700" : "text-ok-700"}`}>{short ? "too short" : "long enough"}</td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </ScrollX>
+              return <span className={`font-semibold ${short ? "text-danger-700" : "text-ok-700"}`}>{short ? "too short" : "long enough"}</span>;
+            },
+          },
+        ]}
+      />
       <p className="text-meta text-flux-600" data-testid="hole-summary">
         {lost >= 0.05
           ? `The built walls alone give about ${result.wallAttenuation_db.toFixed(1)} dB; leakage through the holes takes that to ${result.attenuation_db.toFixed(1)} dB, the figure above.`

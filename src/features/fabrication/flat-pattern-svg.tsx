@@ -1,6 +1,11 @@
 import type { FlatPatternGeometry } from "../../../shared/fabrication";
+import { fromMillimetres, toMillimetres, unitSymbols, type LengthUnit } from "../../../shared/units";
 import type { BlankResponse } from "../../api/fabrication";
-import { Dimension, fmtMm, niceLength, ScaleBar } from "../../components/drawing/drawing";
+import { Dimension, fmtMm, niceLength, readableFontSize, ScaleBar } from "../../components/drawing/drawing";
+import { useElementWidth } from "../../lib/use-element-width";
+
+/** The drawing's greatest height on screen (Tailwind max-h-[36rem]). */
+const MAX_HEIGHT_PX = 576;
 
 function describe(result: BlankResponse): string {
   const b = result.blank;
@@ -30,27 +35,33 @@ function bounds(g: FlatPatternGeometry) {
  * The flat pattern to scale: the viewBox is in millimetres, so the outline's width in user units is
  * the blank's length in mm. The engine's y axis points up (as in the DXF); the drawing flips it.
  */
-export function FlatPatternSvg({ result }: { result: BlankResponse }) {
+export function FlatPatternSvg({ result, unit = "mm" }: { result: BlankResponse; unit?: LengthUnit }) {
+  const [ref, width] = useElementWidth<HTMLDivElement>();
   const g = result.geometry;
   const { minX, maxX, minY, maxY } = bounds(g);
   const w = maxX - minX;
   const h = maxY - minY;
   const size = Math.max(w, h);
-  const fs = Math.max(size * 0.032, 2.2); // label height in mm, readable at the drawing's size
   const Y = (y: number) => minY + maxY - y; // flip to SVG's downward y, keeping the same range
+  const frame = (fs: number) => ({ w: w + 10 * fs, h: h + 14 * fs });
+  // label height in mm: the drawing's own choice, grown on a narrow screen until it renders readable
+  const fs = readableFontSize(Math.max(size * 0.032, 2.2), { width, maxHeight: MAX_HEIGHT_PX }, frame);
   const pad = fs * 5;
   const bottom = fs * 9; // dimension line and scale bar
   const view = { x: minX - pad, y: minY - pad, w: w + 2 * pad, h: h + pad + bottom };
   const thin = fs * 0.07;
+  const L = (mm: number) => (unit === "mm" ? `${fmtMm(mm)} mm` : `${+fromMillimetres(mm, unit).toFixed(3)} ${unitSymbols[unit]}`);
 
   const outlineXs = g.outline.map((p) => p[0]);
   const outlineYs = g.outline.map((p) => Y(p[1]));
   const hasOutline = g.outline.length >= 3;
   const oMinX = Math.min(...outlineXs), oMaxX = Math.max(...outlineXs);
   const oMinY = Math.min(...outlineYs), oMaxY = Math.max(...outlineYs);
-  const bar = niceLength(w);
+  const barInUnit = niceLength(fromMillimetres(w, unit));
+  const bar = toMillimetres(barInUnit, unit);
 
   return (
+    <div ref={ref}>
     <svg
       role="img"
       aria-label={describe(result)}
@@ -87,7 +98,7 @@ export function FlatPatternSvg({ result }: { result: BlankResponse }) {
             <line x1={c.cx - r} y1={cy} x2={c.cx + r} y2={cy} stroke="currentColor" strokeWidth={thin} strokeDasharray={`${fs * 0.6} ${fs * 0.3}`} />
             {hasOutline && (
               <text x={c.cx} y={cy - fs * 0.5} fontSize={fs} textAnchor="middle" fill="currentColor">
-                Ø {fmtMm(c.diameter)} mm
+                Ø {L(c.diameter)}
               </text>
             )}
           </g>
@@ -95,33 +106,37 @@ export function FlatPatternSvg({ result }: { result: BlankResponse }) {
       })}
       {hasOutline && (
         <>
-          <Dimension x1={oMinX} y1={oMaxY} x2={oMaxX} y2={oMaxY} offset={fs * 2.2} label={`${fmtMm(oMaxX - oMinX)} mm`} fontSize={fs} />
-          <Dimension x1={oMinX} y1={oMinY} x2={oMinX} y2={oMaxY} offset={-fs * 2.2} label={`${fmtMm(oMaxY - oMinY)} mm`} fontSize={fs} />
+          <Dimension x1={oMinX} y1={oMaxY} x2={oMaxX} y2={oMaxY} offset={fs * 2.2} label={L(oMaxX - oMinX)} fontSize={fs} />
+          <Dimension x1={oMinX} y1={oMinY} x2={oMinX} y2={oMaxY} offset={-fs * 2.2} label={L(oMaxY - oMinY)} fontSize={fs} />
         </>
       )}
       {!hasOutline && g.circles[0] && (
-        <Dimension x1={minX} y1={maxY} x2={maxX} y2={maxY} offset={fs * 2.2} label={`Ø ${fmtMm(g.circles[0].diameter)} mm`} fontSize={fs} />
+        <Dimension x1={minX} y1={maxY} x2={maxX} y2={maxY} offset={fs * 2.2} label={`Ø ${L(g.circles[0].diameter)}`} fontSize={fs} />
       )}
-      <ScaleBar x={minX} y={maxY + fs * 5.2} length={bar} fontSize={fs} />
+      <ScaleBar x={minX} y={maxY + fs * 5.2} length={bar} fontSize={fs} label={`${+barInUnit.toPrecision(3)} ${unitSymbols[unit]}`} />
     </svg>
+    </div>
   );
 }
 
-export function FlatPatternLegend() {
+const LINE_KINDS = [
+  { key: "edge", label: "Blank edge (cut)", stroke: "#1d2834", width: 2, dash: undefined, present: (g: FlatPatternGeometry) => g.outline.length >= 3 || g.circles.length > 0 },
+  { key: "bend", label: "Bend line (centre of the bend)", stroke: "#b34a0c", width: 2, dash: "6 4", present: (g: FlatPatternGeometry) => g.bendLines.length > 0 },
+  { key: "relief", label: "Corner relief", stroke: "#0e7490", width: 1.5, dash: "2 2", present: (g: FlatPatternGeometry) => g.reliefs.length > 0 },
+] as const;
+
+/** The key to the drawing: only the kinds of line this blank has (a disc has no bend lines). */
+export function FlatPatternLegend({ geometry }: { geometry: FlatPatternGeometry }) {
   return (
-    <ul className="flex flex-wrap gap-x-6 gap-y-1 text-meta text-flux-700">
-      <li className="flex items-center gap-2">
-        <svg width="28" height="8" aria-hidden="true"><line x1="0" y1="4" x2="28" y2="4" stroke="#1d2834" strokeWidth="2" /></svg>
-        Cut line
-      </li>
-      <li className="flex items-center gap-2">
-        <svg width="28" height="8" aria-hidden="true"><line x1="0" y1="4" x2="28" y2="4" stroke="#b34a0c" strokeWidth="2" strokeDasharray="6 4" /></svg>
-        Bend line (centre of the bend)
-      </li>
-      <li className="flex items-center gap-2">
-        <svg width="28" height="8" aria-hidden="true"><line x1="0" y1="4" x2="28" y2="4" stroke="#0e7490" strokeWidth="1.5" strokeDasharray="2 2" /></svg>
-        Corner relief
-      </li>
+    <ul className="mt-2 flex flex-wrap gap-x-6 gap-y-1 text-meta text-flux-700" aria-label="Lines on the drawing" data-testid="pattern-key">
+      {LINE_KINDS.filter((k) => k.present(geometry)).map((k) => (
+        <li key={k.key} className="flex items-center gap-2" data-kind={k.key}>
+          <svg width="28" height="8" aria-hidden="true">
+            <line x1="0" y1="4" x2="28" y2="4" stroke={k.stroke} strokeWidth={k.width} strokeDasharray={k.dash} />
+          </svg>
+          {k.label}
+        </li>
+      ))}
     </ul>
   );
 }

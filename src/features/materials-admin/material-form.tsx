@@ -1,14 +1,22 @@
-import { useState } from "react";
-import { useFieldArray, useForm, get } from "react-hook-form";
+import { useEffect, useRef, useState } from "react";
+import { useFieldArray, useForm, useWatch, get } from "react-hook-form";
 import { zodResolver } from "@hookform/resolvers/zod";
 import type { z } from "zod";
 import { materialCreateSchema, TAGGED_VALUES, tagLabels } from "../../../shared/schemas/material";
 import { ApiError } from "../../api/client";
 import { useSaveMaterial, type MaterialRecord } from "../../api/materials";
+import { ControlledUnitInput } from "../../components/forms/controlled-unit-input";
 import { Button } from "../../components/ui/button";
+import { EditRows } from "../../components/ui/edit-rows";
 import { TextField } from "../../components/ui/field";
 import { Panel } from "../../components/ui/panel";
 import { StatusNote } from "../../components/ui/status-note";
+import { factorScale, fixedUnitScale, plainScale } from "../../components/ui/unit-input";
+import { MuCurvePlot } from "./mu-curve-plot";
+
+const tesla = fixedUnitScale("T", "tesla");
+const microOhmMetre = factorScale("µΩ·m", 1e-6, "microhm-metres");
+const kgPerCubicMetre = fixedUnitScale("kg/m³", "kilograms per cubic metre");
 
 type In = z.input<typeof materialCreateSchema>;
 type Out = z.output<typeof materialCreateSchema>;
@@ -42,17 +50,22 @@ const toForm = (m: MaterialRecord): In => ({
 });
 
 /** Edit one material (or add one), checked with the server's schema, saved only after a second click. */
-export function MaterialForm({ material, onSaved, onCancel }: { material: MaterialRecord | null; onSaved: (id: string) => void; onCancel: () => void }) {
+export function MaterialForm({ material, saved, onSaved, onCancel }: { material: MaterialRecord | null; saved: string | null; onSaved: (id: string) => void; onCancel: () => void }) {
   const editing = material !== null;
   const save = useSaveMaterial();
   const [asking, setAsking] = useState<Out | null>(null);
   const [message, setMessage] = useState<string | null>(null);
-  const { register, handleSubmit, control, setError, formState: { errors } } = useForm<In, unknown, Out>({ resolver: zodResolver(materialCreateSchema), defaultValues: material ? toForm(material) : blank });
+  const { register, handleSubmit, control, setError, setFocus, formState: { errors } } = useForm<In, unknown, Out>({ resolver: zodResolver(materialCreateSchema), defaultValues: material ? toForm(material) : blank });
   const curve = useFieldArray({ control, name: "muCurve" });
+  const points = useWatch({ control, name: "muCurve" });
   const err = (name: string) => (get(errors, name) as { message?: string } | undefined)?.message;
-  const num = (name: Parameters<typeof register>[0], label: string, hint?: string) => (
-    <TextField label={label} hint={hint} inputMode="decimal" type="text" error={err(name)} {...register(name, { setValueAs: (v: unknown) => (v === "" || v == null ? NaN : Number(v)) })} />
-  );
+  const panel = useRef<HTMLDivElement>(null);
+  // opened from the list: brought into view and the first box to edit focused, wherever the list left the page
+  const opened = useRef(editing);
+  useEffect(() => {
+    panel.current?.scrollIntoView({ block: "start" });
+    setFocus(opened.current ? "name" : "id");
+  }, [setFocus]);
 
   const confirm = async () => {
     if (!asking) return;
@@ -72,22 +85,18 @@ export function MaterialForm({ material, onSaved, onCancel }: { material: Materi
   };
 
   return (
+    <div ref={panel} className="scroll-mt-4" data-testid="material-form">
     <Panel title={editing ? `Edit ${material.id}` : "Add a material"}>
-      <form className="space-y-5" noValidate onSubmit={handleSubmit((values) => setAsking(values))} aria-label={editing ? `Edit ${material.id}` : "New material"}>
-        {message && (
-          <StatusNote tone="danger" word="Not saved" assertive>
-            {message}
-          </StatusNote>
-        )}
+      <form className="space-y-5" noValidate onSubmit={handleSubmit((values) => { setMessage(null); setAsking(values); }, () => setMessage("Some values need attention; see the messages beside them."))} aria-label={editing ? `Edit ${material.id}` : "New material"}>
         <div className="grid gap-4 sm:grid-cols-2">
           <TextField label="Id" readOnly={editing} className={editing ? "bg-nickel-100" : ""} hint={editing ? undefined : "Lower-case letters, digits, dashes: ni80."} error={err("id")} {...register("id")} />
           <TextField label="Name" error={err("name")} {...register("name")} />
-          {num("relativePermeability.initial", "Initial μr")}
-          {num("relativePermeability.maximum", "Maximum μr")}
-          <TextField label="Saturation (T)" hint="Empty for a non-magnetic metal." inputMode="decimal" error={err("saturation_T")} {...register("saturation_T", { setValueAs: (v: unknown) => (v === "" || v == null ? null : Number(v)) })} />
-          {num("resistivity_ohm_m", "Resistivity (Ω·m)", "e.g. 5.8e-7 for 0.58 µΩ·m")}
-          {num("density_kg_m3", "Density (kg/m³)")}
-          {num("asFormedFactor", "As-formed factor", "μ before the final anneal ÷ μ after; 0 to 1.")}
+          <ControlledUnitInput control={control} errors={errors} name="relativePermeability.initial" label="Initial μr" scale={plainScale} />
+          <ControlledUnitInput control={control} errors={errors} name="relativePermeability.maximum" label="Maximum μr" scale={plainScale} />
+          <ControlledUnitInput control={control} errors={errors} name="saturation_T" label="Saturation" scale={tesla} hint="Empty for a non-magnetic metal." />
+          <ControlledUnitInput control={control} errors={errors} name="resistivity_ohm_m" label="Resistivity" scale={microOhmMetre} hint="As data sheets give it: 0.58 for 80 % nickel-iron." />
+          <ControlledUnitInput control={control} errors={errors} name="density_kg_m3" label="Density" scale={kgPerCubicMetre} />
+          <ControlledUnitInput control={control} errors={errors} name="asFormedFactor" label="As-formed factor" scale={plainScale} hint="μ before the final anneal ÷ μ after; 0 to 1." />
         </div>
         <label className="flex items-center gap-2">
           <input type="checkbox" className="size-5" {...register("active")} /> In use (offered on the design check)
@@ -95,18 +104,25 @@ export function MaterialForm({ material, onSaved, onCancel }: { material: Materi
         <fieldset className="space-y-3">
           <legend className="text-h4">Annealed μ(B) curve</legend>
           {err("muCurve") && <p className="font-semibold text-danger-700">{err("muCurve")}</p>}
-          {curve.fields.map((f, i) => (
-            <div key={f.id} className="grid items-end gap-3 sm:grid-cols-[1fr_1fr_auto]">
-              {num(`muCurve.${i}.B_T`, `Point ${i + 1}: B (T)`)}
-              {num(`muCurve.${i}.mu_r`, `Point ${i + 1}: μr`)}
-              <Button variant="quiet" onClick={() => curve.remove(i)} disabled={curve.fields.length === 1} aria-label={`Remove point ${i + 1}`}>
-                Remove
-              </Button>
-            </div>
-          ))}
-          <Button variant="secondary" onClick={() => curve.append({ B_T: 1, mu_r: 1 })}>
-            Add a point
-          </Button>
+          <MuCurvePlot curve={(points ?? []).filter((p) => typeof p?.B_T === "number" && typeof p?.mu_r === "number" && Number.isFinite(p.B_T) && Number.isFinite(p.mu_r))} name={editing ? material.id : "the new material"} />
+          <EditRows
+            caption="Points of the μ(B) curve"
+            columns={[
+              { key: "B", header: "Flux density B (T)", track: "minmax(7rem,1fr)" },
+              { key: "mu", header: "μr", track: "minmax(7rem,1fr)" },
+            ]}
+            cardsBelow={420}
+            rows={curve.fields}
+            rowKey={(f) => f.id}
+            renderRow={(_f, i, wide) => [
+              <ControlledUnitInput key="b" control={control} errors={errors} name={`muCurve.${i}.B_T`} label={`Point ${i + 1}: flux density`} scale={tesla} hideLabel={wide} />,
+              <ControlledUnitInput key="m" control={control} errors={errors} name={`muCurve.${i}.mu_r`} label={`Point ${i + 1}: μr`} scale={plainScale} hideLabel={wide} />,
+            ]}
+            onRemove={(i) => curve.fields.length > 1 && curve.remove(i)}
+            removeLabel={(i) => `Remove point ${i + 1}`}
+            onAdd={() => curve.append({ B_T: 1, mu_r: 1 })}
+            addLabel="Add a point"
+          />
         </fieldset>
         <fieldset className="space-y-3">
           <legend className="text-h4">Where each value comes from</legend>
@@ -142,7 +158,19 @@ export function MaterialForm({ material, onSaved, onCancel }: { material: Materi
             </Button>
           </div>
         )}
+        {/* the outcome where the buttons are, where the person is looking */}
+        {saved && !asking && !message && (
+          <StatusNote tone="ok" word="Saved" live="polite">
+            {saved} is saved; predictions use it from now on. The change heads its list of changes.
+          </StatusNote>
+        )}
+        {message && (
+          <StatusNote tone="danger" word="Not saved" live="assertive">
+            {message}
+          </StatusNote>
+        )}
       </form>
     </Panel>
+    </div>
   );
 }

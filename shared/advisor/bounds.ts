@@ -1,0 +1,83 @@
+// Bounds that let the search skip work without ever dropping a design it would show. Each is a
+// bound, never an estimate; the property tests in tests/unit/advisor-search.test.ts check
+// them against the full computation on random designs.
+//
+// 1. Attenuation, from above: the as-built figure combines the walls with the construction
+//    ceiling as 1/S = 1/S_walls + 1/S_ceiling (+ leaks), so S ≤ S_ceiling; the band's low end
+//    is the same sum with the ceiling lowered by the model's spread (and never above the
+//    figure). A design whose lowered ceiling is below the requirement cannot meet it at the
+//    low end, whatever its walls.
+// 2. Price, from below: the price build-up with every blank's own mass as the material bought
+//    (utilisation 1, no nesting scrap). Nesting only ever buys more: gross = net / utilisation
+//    with utilisation ≤ 1, and while the scrap credit per kg is below the price per kg, each
+//    extra kg of scrap costs (price − credit) > 0. Every other line is the same for both. The
+//    rounding of kg to 0.001 and of each line, the margin, the discount and the unit price to
+//    whole cents is allowed for (see priceLowerBound).
+
+import { ceiling_db, constructionOf, fitFor, type BuildModel } from "../physics/build-model";
+import { discountFor, priceBuildUp, type FabricatedPart, type PriceList } from "../fabrication";
+import type { AdviceProblem, Design, LayerOption } from "./space";
+
+/** The highest as-built figure the design's construction allows, dB: its ceiling. */
+export function attenuationCeiling_db(p: AdviceProblem, d: Design, model: BuildModel): number {
+  const construction = constructionOf(p.shape, "closed");
+  // a fitted ceiling is looked up by the outermost layer's alloy, as the prediction does
+  const outer = d.layers[d.layers.length - 1];
+  return ceiling_db(model, construction, d.layers.length, fitFor(model, outer.material, d.method, construction)?.ceiling_db);
+}
+
+/** The highest low end of the band the construction allows: the band's low end takes the ceiling lowered by the model's spread. */
+export function lowEndCeiling_db(p: AdviceProblem, d: Design, model: BuildModel): number {
+  return attenuationCeiling_db(p, d, model) - Math.max(0, model.spread.ceiling_db);
+}
+
+export interface PriceBounder {
+  /** What rounding and scrap credits may take off a design with these layers (see lower). */
+  slackFor(layers: readonly LayerOption[]): number;
+  /**
+   * A unit price in cents that the exact price of a design is never below (−Infinity: no bound
+   * for this list); `slack` is slackFor(the design's layers). `parts` may be all of the
+   * design's parts, or some of them: the unnested subtotal only grows as parts are added (each
+   * line's quantity is a sum over the parts, every rate is ≥ 0), so part of a design bounds the
+   * whole. A part list seen before (the same array) is not priced again.
+   */
+  lower(parts: FabricatedPart[], slack: number): number;
+}
+
+export function priceBounder(priceList: PriceList, nestGap_mm: number, quantity: number): PriceBounder {
+  // With a scrap credit above the price per kg, more scrap would lower the price: no bound.
+  const creditAbovePrice = priceList.scrapCredit && priceList.materials.some((m) => m.scrapCreditPerKg_cents > m.pricePerKg_cents);
+  const unnested: PriceList = { ...priceList, stockSheets: [], fallbackUtilisation: 1 };
+  const creditOf = new Map(priceList.materials.map((m) => [m.materialId, priceList.scrapCredit ? m.scrapCreditPerKg_cents : 0]));
+  const m = priceList.marginPercent / 100;
+  const d = discountFor(quantity, priceList) / 100;
+  const subtotals = new WeakMap<FabricatedPart[], number>();
+  const subtotalOf = (parts: FabricatedPart[]) => {
+    let sub = subtotals.get(parts);
+    if (sub === undefined) subtotals.set(parts, (sub = priceBuildUp({ parts, quantity, priceList: unnested, nestGap_mm }).subtotal_cents));
+    return sub;
+  };
+  return {
+    slackFor(layers) {
+      // Per alloy and gauge (a design's groups are its layers' distinct alloy and gauge), the
+      // nested material line against the unnested one:
+      // round(q(G)·p) − round(q(G − N)·c) − round(q(N)·p) ≥ (q(G) − q(N))·(p − c) − 0.0015·c − 1.5,
+      // q rounding kg to 0.001 (±0.0005) and round to whole cents (±0.5); without a credit line
+      // it is ≥ 0 (both rounding steps keep order).
+      let slack = 0;
+      layers.forEach((l, i) => {
+        for (let j = 0; j < i; j++) if (layers[j].material === l.material && layers[j].thickness_mm === l.thickness_mm) return;
+        const c = creditOf.get(l.material) ?? 0;
+        if (c > 0) slack += 0.0015 * c + 1.5;
+      });
+      return slack;
+    },
+    lower(parts, slack) {
+      if (creditAbovePrice) return -Infinity;
+      // exact = sub + round(sub·m) − round((sub + round(sub·m))·d) ≥ sub·(1 + m)(1 − d) − 1,
+      // and the unit price round(exact / quantity) is a whole number ≥ exact / quantity − 0.5.
+      const exact = (subtotalOf(parts) - slack) * (1 + m) * (1 - d) - 1;
+      return Math.ceil(exact / quantity - 0.5 - 1e-9);
+    },
+  };
+}
