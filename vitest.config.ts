@@ -23,6 +23,8 @@ export default defineConfig({
           globalSetup: ["tests/support/database-setup.ts"],
           fileParallelism: false,
           testTimeout: 60_000,
+          // the demo seed and the browser start in a hook: slow on a busy machine
+          hookTimeout: 120_000,
         },
       },
     ],

@@ -48,6 +48,10 @@ export const paths = {
       return query ? `/admin/users?${query}` : "/admin/users";
     },
   },
+  qualityLots: { path: "/quality/lots", href: (stage?: string) => (stage && stage !== "to-measure" ? `/quality/lots?stage=${encode(stage)}` : "/quality/lots") },
+  qualityLot: { path: "/quality/lots/:id", href: (id: string) => `/quality/lots/${encode(id)}` },
+  certificates: { path: "/certificates", href: () => "/certificates" },
+  verify: { path: "/verify/:digest?", href: (digest?: string) => (digest ? `/verify/${encode(digest)}` : "/verify") },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

@@ -19,7 +19,15 @@ const SIZES = [
 type Role = "anonymous" | "customer" | "operator" | "qa" | "admin";
 
 /** What each role can open, and what shows the page has finished arriving. */
-const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page) => Promise<unknown> }>> = {
+/** The lot page of the newest lot the quality queue lists (the demo's), asked of the API as the signed-in person. */
+const firstQualityLot = async (page: Page) => {
+  const answer = await page.request.get(`${new URL(page.url()).origin}/api/quality/lots?stage=all`);
+  const { items } = (await answer.json()) as { items: Array<{ id: string }> };
+  return `/quality/lots/${items[0].id}`;
+};
+const listOrEmpty = (testId: string, empty: RegExp) => (p: Page) => p.getByTestId(testId).or(p.getByText(empty)).first().waitFor();
+
+const PAGES: Record<Role, Array<{ path: string | ((page: Page) => Promise<string>); name: string; ready: (page: Page) => Promise<unknown> }>> = {
   anonymous: [
     { path: "/", name: "home", ready: (p) => p.getByRole("link", { name: /check a design/i }).waitFor() },
     { path: "/sign-in", name: "sign-in", ready: (p) => p.getByLabel(/^password/i).waitFor() },
@@ -29,6 +37,7 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/invitation/not-a-real-link", name: "invitation-bad-link", ready: (p) => p.getByText(/expired or has already been used/i).waitFor() },
     { path: "/design-check", name: "design-check", ready: designCheckReady },
     { path: "/flat-blank", name: "flat-blank", ready: flatBlankReady },
+    { path: "/verify", name: "verify", ready: (p) => p.getByTestId("drop-zone").waitFor() },
     { path: "/no-such-page", name: "not-found", ready: (p) => p.getByRole("heading", { level: 1, name: /nothing at this address/i }).waitFor() },
   ],
   customer: [
@@ -36,6 +45,7 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/design-check", name: "design-check", ready: async (p) => { await designCheckReady(p); await p.getByTestId("make-panel").getByTestId("total-price").waitFor(); } },
     { path: "/flat-blank", name: "flat-blank", ready: async (p) => { await flatBlankReady(p); await p.getByTestId("total-price").waitFor(); } },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
+    { path: "/certificates", name: "certificates", ready: listOrEmpty("certificates-table", /no certificates yet/i) },
   ],
   operator: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -48,6 +58,9 @@ const PAGES: Record<Role, Array<{ path: string; name: string; ready: (page: Page
     { path: "/design-check", name: "design-check", ready: designCheckReady },
     { path: "/flat-blank", name: "flat-blank", ready: flatBlankReady },
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
+    { path: "/quality/lots?stage=all", name: "quality-lots", ready: listOrEmpty("quality-lots", /no lots at this stage/i) },
+    { path: firstQualityLot, name: "quality-lot", ready: (p) => p.getByTestId("sample-progress").or(p.getByText(/acceptance is discontinued/i)).first().waitFor() },
+    { path: "/certificates", name: "certificates", ready: listOrEmpty("certificates-table", /no certificates yet/i) },
   ],
   admin: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -109,7 +122,7 @@ async function walk(role: Role) {
   for (const size of SIZES) {
     await page.setViewportSize({ width: size.width, height: size.height });
     for (const p of PAGES[role]) {
-      await page.goto(`${h.baseUrl}${p.path}`);
+      await page.goto(`${h.baseUrl}${typeof p.path === "string" ? p.path : await p.path(page)}`);
       await p.ready(page);
       await page.waitForTimeout(250); // drawings measure their width after the first paint
       const where = `${role} ${p.name} at ${size.name}`;

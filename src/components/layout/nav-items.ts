@@ -28,11 +28,12 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   switch (user.role) {
     case "customer":
-      return [home, ...tools, account];
+      return [home, ...tools, { label: "Certificates", to: paths.certificates.href() }, account];
     case "admin":
       return [home, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, ...tools, account];
-    case "operator":
     case "qa":
+      return [home, { label: "Lots to inspect", to: paths.qualityLots.href() }, { label: "Certificates", to: paths.certificates.href() }, ...tools, account];
+    case "operator":
       return [home, ...tools, account];
   }
 }
