@@ -11,6 +11,7 @@ import { createFileStore, type FileStore } from "../files/store";
 import { seedOrdering } from "./seed-ordering";
 import { seedShopFloor } from "./seed-shop-floor";
 import { seedInstruments } from "./seed-quality";
+import { seedQualityRecords } from "./seed-quality-records";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -96,6 +97,7 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
       })),
     );
     created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
+    created.push(...(await seedQualityRecords({ sequelize, qa: byEmail("qa@demo.test"), appUrl: opts.appUrl ?? "http://127.0.0.1:4100", transaction })));
   });
   return { created };
 }
