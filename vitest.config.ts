@@ -13,6 +13,8 @@ export default defineConfig({
         test: {
           name: "api",
           include: ["tests/api/**/*.test.ts"],
+          // a project does not inherit the root's timeouts; several suites at once on a small machine
+          testTimeout: 20_000,
           globalSetup: ["tests/support/database-setup.ts"],
         },
       },

@@ -34,6 +34,7 @@ import { jobsRouter } from "./routes/jobs";
 import { scansRouter } from "./routes/scans";
 import { instrumentsRouter } from "./routes/instruments";
 import { qualitySettingsRouter } from "./routes/quality-settings";
+import { qualityRouter, verifyPublicRouter } from "./routes/quality";
 import { samplingPublicRouter } from "./routes/sampling";
 import { ordersRouter } from "./routes/orders";
 import { quotesRouter } from "./routes/quotes";
@@ -191,6 +192,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(materialsPublicRouter(deps));
   api.use(predictionsRouter(deps));
   api.use(samplingPublicRouter(deps));
+  api.use(verifyPublicRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);
@@ -211,6 +213,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(qualitySettingsRouter(deps));
   api.use(instrumentsRouter(deps));
   api.use(calibrationRouter(deps, { readLots }));
+  api.use(qualityRouter(deps));
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -1,5 +1,6 @@
 import { contractBlankExamples, contractPredictionExample } from "../../shared/schemas/contract-examples";
 import type { HttpCase } from "./http";
+import { certificateDigestForBench } from "./verify-digest";
 
 // App routes measured against the bare Express route; each engineer adds their public routes here.
 export const httpCases: HttpCase[] = [
@@ -23,4 +24,6 @@ export const httpCases: HttpCase[] = [
   },
   // ISO 2859-1 plan for a lot of 500 at AQL 1.0 (public reference data)
   { name: "sampling plan", path: "/api/sampling-plan?lotSize=500&aql=1.0", minRatio: 0.6 },
+  // the public check of a certificate the demo issued (one indexed read)
+  { name: "verify certificate", path: `/api/verify/${await certificateDigestForBench()}`, minRatio: 0.6 },
 ];

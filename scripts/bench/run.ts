@@ -29,6 +29,11 @@ for (const [file, fn, title] of [
   }
 }
 
+if (wants("certificate")) {
+  section("certificate of conformance (in-process)");
+  rows.push(...(await (await import("./certificate")).benchCertificate()));
+}
+
 if (wants("http")) {
   section("HTTP, 10 connections, RATE_LIMIT_PUBLIC=0");
   const cases: HttpCase[] = [{ name: "health", path: "/api/health", minRatio: 0.8 }];

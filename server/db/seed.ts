@@ -12,6 +12,7 @@ import { seedOrdering } from "./seed-ordering";
 import { seedShopFloor } from "./seed-shop-floor";
 import { seedInstruments } from "./seed-quality";
 import { seedMeasuredLots } from "./seed-calibration";
+import { seedQualityRecords } from "./seed-quality-records";
 
 // The demo scenario: an invented shield shop and two invented customer organisations.
 // Any resemblance to a real company is accidental.
@@ -99,6 +100,7 @@ export async function seedDemo(sequelize: Sequelize, opts: { password: string; a
     );
     created.push(...(await seedInstruments({ qa: byEmail("qa@demo.test"), transaction })));
     measuredLots.push(...(await seedMeasuredLots({ sequelize, transaction })));
+    created.push(...(await seedQualityRecords({ sequelize, qa: byEmail("qa@demo.test"), appUrl: opts.appUrl ?? "http://127.0.0.1:4100", transaction })));
   });
   created.push(...measuredLots);
   return { created };

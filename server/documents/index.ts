@@ -2,7 +2,7 @@ import type { Sequelize } from "sequelize";
 import { documentNumber } from "../../shared/schemas/documents";
 import type { PaperSize } from "../../shared/schemas/shop-settings";
 import type { MailAttachmentRef, RenderedAttachment } from "../jobs/mailer";
-import { Invoice, Job, Order, Organization, Payment, Quote, ShopSettings, User } from "../models";
+import { Certificate, Invoice, Job, Order, Organization, Payment, Quote, ShopSettings, User } from "../models";
 import { partDescription } from "../presenters/jobs";
 import { loadJobView } from "../services/jobViews";
 import { loadLotView, lotHeats, lotJobs } from "../services/lotViews";
@@ -132,5 +132,15 @@ export async function renderMailAttachment(ref: MailAttachmentRef): Promise<Rend
     const { filename, content } = await invoiceDocument(invoice);
     return { filename, content, contentType: "application/pdf" };
   }
+  if (ref.document === "certificate") {
+    const certificate = await Certificate.findByPk(ref.id);
+    if (!certificate) throw new Error(`no certificate ${ref.id}`);
+    return { ...certificateFile(certificate), contentType: "application/pdf" };
+  }
   throw new Error(`unknown document ${String(ref.document)}`);
+}
+
+/** An issued certificate's file: the bytes rendered at issue, never again. */
+export function certificateFile(certificate: Pick<Certificate, "number" | "revision" | "pdf">): { filename: string; content: Buffer } {
+  return { filename: `certificate-${certificate.number}-rev${certificate.revision}.pdf`, content: certificate.pdf };
 }

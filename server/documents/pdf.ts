@@ -1,5 +1,6 @@
 import { readFileSync } from "node:fs";
 import { createRequire } from "node:module";
+import { inflateSync } from "node:zlib";
 import PDFDocument from "pdfkit";
 import type { PaperSize } from "../../shared/schemas/shop-settings";
 
@@ -8,7 +9,46 @@ import type { PaperSize } from "../../shared/schemas/shop-settings";
 // details, tables, and page numbers. Text goes through pdfText so no glyph is missing.
 
 const require = createRequire(import.meta.url);
-const font = (pkg: string, file: string) => readFileSync(require.resolve(`@fontsource/${pkg}/files/${file}`));
+const font = (pkg: string, file: string) => woffToSfnt(readFileSync(require.resolve(`@fontsource/${pkg}/files/${file}`)));
+
+/**
+ * A WOFF 1.0 font as the plain TrueType/OpenType file it wraps (W3C WOFF 1.0, sections 4–6), unpacked
+ * once with node's zlib: handed the .woff, fontkit inflates every table again in JavaScript for
+ * each document (most of a certificate's rendering time).
+ */
+export function woffToSfnt(woff: Buffer): Buffer {
+  if (woff.toString("latin1", 0, 4) !== "wOFF") return woff;
+  const flavor = woff.readUInt32BE(4);
+  const numTables = woff.readUInt16BE(12);
+  const tables = Array.from({ length: numTables }, (_, i) => {
+    const at = 44 + i * 20;
+    const offset = woff.readUInt32BE(at + 4);
+    const compLength = woff.readUInt32BE(at + 8);
+    const origLength = woff.readUInt32BE(at + 12);
+    const raw = woff.subarray(offset, offset + compLength);
+    return { tag: woff.readUInt32BE(at), checksum: woff.readUInt32BE(at + 16), data: compLength < origLength ? inflateSync(raw) : raw };
+  });
+  const pow = 2 ** Math.floor(Math.log2(numTables));
+  const header = Buffer.alloc(12 + numTables * 16);
+  header.writeUInt32BE(flavor, 0);
+  header.writeUInt16BE(numTables, 4);
+  header.writeUInt16BE(pow * 16, 6);
+  header.writeUInt16BE(Math.log2(pow), 8);
+  header.writeUInt16BE(numTables * 16 - pow * 16, 10);
+  const parts: Buffer[] = [header];
+  let offset = header.length;
+  tables.forEach((t, i) => {
+    header.writeUInt32BE(t.tag, 12 + i * 16);
+    header.writeUInt32BE(t.checksum, 16 + i * 16);
+    header.writeUInt32BE(offset, 20 + i * 16);
+    header.writeUInt32BE(t.data.length, 24 + i * 16);
+    const padded = Buffer.alloc((t.data.length + 3) & ~3);
+    t.data.copy(padded);
+    parts.push(padded);
+    offset += padded.length;
+  });
+  return Buffer.concat(parts);
+}
 
 let fonts: Record<string, Buffer> | undefined;
 function loadFonts(): Record<string, Buffer> {

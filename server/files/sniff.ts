@@ -59,6 +59,10 @@ export async function sniffUpload<K extends string>(file: string, filename: stri
   return { ok: true, kind, mime: kinds[kind].mime };
 }
 
+export function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
+  return sniffFile(file, filename, DRAWINGS);
+}
+
 /** The kinds a use accepts, and how to name them to people. */
 export interface Accepted {
   kinds: readonly DrawingKind[];
@@ -69,14 +73,11 @@ export const DRAWINGS: Accepted = { kinds: Object.keys(drawingKinds) as DrawingK
 /** A scanned paper record (a mill certificate, a furnace chart): PDF or an image. */
 export const PAPER_RECORDS: Accepted = { kinds: ["pdf", "png", "jpg", "tif", "webp"], what: "a PDF or an image (PNG, JPEG, TIFF, WebP)" };
 
-/** The file's kind by its content, when it is one of the accepted drawing kinds and its name agrees. */
-export function sniffFile(file: string, filename: string, accepted: Accepted): Promise<SniffResult> {
-  const kinds: Partial<UploadKinds<DrawingKind>> = Object.fromEntries(accepted.kinds.map((k) => [k, drawingKinds[k]]));
-  return sniffUpload(file, filename, kinds as UploadKinds<DrawingKind>, accepted.what);
-}
-
-export function sniffDrawing(file: string, filename: string): Promise<SniffResult> {
-  return sniffFile(file, filename, DRAWINGS);
+/** The file's kind by its content, when it is one of the accepted kinds and its name agrees. */
+export async function sniffFile(file: string, filename: string, accepted: Accepted): Promise<SniffResult> {
+  const sniffed = await sniffUpload(file, filename, drawingKinds, accepted.what);
+  if (sniffed.ok && !accepted.kinds.includes(sniffed.kind)) return { ok: false, reason: `its content is a ${drawingKinds[sniffed.kind].label}, not ${accepted.what}` };
+  return sniffed;
 }
 
 function path_ext(filename: string): string {

@@ -5,7 +5,7 @@ import type { JobQueue, QueueDefinition } from "./queue";
 
 /** A document rendered when the mail goes out (so the job holds a reference, not the file). */
 export interface MailAttachmentRef {
-  document: "invoice";
+  document: "invoice" | "certificate";
   id: string;
 }
 

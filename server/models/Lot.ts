@@ -19,6 +19,8 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
   declare heldAt: CreationOptional<Date | null>;
   declare heldById: CreationOptional<string | null>;
   declare shipmentId: CreationOptional<string | null>;
+  /** quality: the inspection round (a lot sent back for another anneal is sampled again) */
+  declare inspectionRound: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare order?: NonAttribute<Order>;
@@ -39,6 +41,7 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
         heldAt: { type: DataTypes.DATE, allowNull: true },
         heldById: { type: DataTypes.UUID, allowNull: true },
         shipmentId: { type: DataTypes.UUID, allowNull: true },
+        inspectionRound: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 1 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -4,9 +4,13 @@ import { CheckoutSession } from "./CheckoutSession";
 import { Design } from "./Design";
 import { Event } from "./Event";
 import { FurnaceRun } from "./FurnaceRun";
+import { Certificate } from "./Certificate";
 import { Instrument } from "./Instrument";
 import { InstrumentCalibration } from "./InstrumentCalibration";
 import { Invoice } from "./Invoice";
+import { LotDisposition } from "./LotDisposition";
+import { Measurement } from "./Measurement";
+import { Nonconformance } from "./Nonconformance";
 import { Job } from "./Job";
 import { Lot } from "./Lot";
 import { Material } from "./Material";
@@ -30,6 +34,7 @@ export { Material };
 export { CheckoutSession, Design, Invoice, Order, OrderFile, Payment, Quote, ShopSettings, WebhookEvent };
 export { FurnaceRun, Job, Lot, MaterialHeat, Scan, Shipment };
 export { Instrument, InstrumentCalibration };
+export { Certificate, LotDisposition, Measurement, Nonconformance };
 export { recordEvent } from "./Event";
 export { paymentTotals } from "./Payment";
 
@@ -67,4 +72,6 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [Instrument, InstrumentCalibration]) model.initModel(sequelize);
   Instrument.belongsTo(StoredFile, { foreignKey: "currentCertificateId", as: "currentCertificate" });
   InstrumentCalibration.belongsTo(StoredFile, { foreignKey: "storedFileId", as: "file" });
+  // quality: measurements, dispositions, nonconformances, certificates
+  for (const model of [Measurement, LotDisposition, Nonconformance, Certificate]) model.initModel(sequelize);
 }

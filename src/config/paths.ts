@@ -91,6 +91,10 @@ export const paths = {
   furnaceRuns: { path: "/floor/furnace", href: () => "/floor/furnace" },
   heats: { path: "/floor/heats", href: () => "/floor/heats" },
   shipping: { path: "/floor/shipping", href: () => "/floor/shipping" },
+  qualityLots: { path: "/quality/lots", href: (stage?: string) => (stage && stage !== "to-measure" ? `/quality/lots?stage=${encode(stage)}` : "/quality/lots") },
+  qualityLot: { path: "/quality/lots/:id", href: (id: string) => `/quality/lots/${encode(id)}` },
+  certificates: { path: "/certificates", href: () => "/certificates" },
+  verify: { path: "/verify/:digest?", href: (digest?: string) => (digest ? `/verify/${encode(digest)}` : "/verify") },
   notFound: { path: "*", href: () => "/not-found" },
 } as const;
 

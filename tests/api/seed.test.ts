@@ -56,7 +56,7 @@ describe("the demo scenario's shop floor", () => {
     const atStep = new Set(demoJobs.filter((j) => j.currentStep).map((j) => j.currentStep));
     expect([...atStep].sort()).toEqual(["anneal", "blank", "clean", "form", "material", "pack", "verify", "weld"]);
     expect(demoJobs.some((j) => j.completedAt)).toBe(true);
-    const held = await Lot.findAll({ where: { orderId: demoOrders, holdReason: { [Op.ne]: null } } });
+    const held = (await Lot.findAll({ where: { orderId: demoOrders, holdReason: { [Op.ne]: null } } })).filter((l) => !l.holdReason!.startsWith("Rejected under its sampling plan")); // the quality demo's rejected lot is held too
     expect(held).toHaveLength(1);
     expect(held[0].holdReason).toMatch(/outside the .* anneal window: Peak temperature 1192 °C is above/);
     const runs = await FurnaceRun.findAll({ where: { id: held[0].furnaceRunId! } });
@@ -89,5 +89,23 @@ describe("the demo scenario's instruments", () => {
     expect(await InstrumentCalibration.count({ where: { instrumentId: rows.map((i) => i.id) } })).toBe(7);
     await seedDemo(sequelize, { password: "fluxwright-demo" });
     expect(await Instrument.count({ where: { name: demoNames } })).toBe(7);
+  });
+});
+
+describe("the demo scenario's quality records", () => {
+  it("a lot measured, accepted and certified with a second revision; a lot rejected with its nonconformance; a second run adds nothing", async () => {
+    const { sequelize } = app.locals.deps;
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
+    const { Certificate, Nonconformance, Measurement } = await import("../../server/models");
+    const count = async () => [await Certificate.count(), await Nonconformance.count({ where: { status: "open" } }), await Measurement.count()];
+    // the demo's customers' certificates (other test files issue their own)
+    const demoOrgs = (await Organization.findAll({ where: { name: { [Op.like]: "%(demo)%" } }, attributes: ["id"] })).map((o) => o.id);
+    const demo = await Certificate.findAll({ where: { organizationId: demoOrgs }, attributes: ["number", "revision", "supersedesId"], order: [["revision", "ASC"]] });
+    expect(demo.map((c) => c.revision)).toEqual([1, 2]);
+    expect(demo[1].supersedesId).toBeTruthy();
+    expect(await Nonconformance.count({ where: { status: "open" } })).toBeGreaterThanOrEqual(1);
+    const before = await count();
+    await seedDemo(sequelize, { password: "fluxwright-demo", store: app.locals.deps.files });
+    expect(await count()).toEqual(before);
   });
 });

@@ -23,7 +23,15 @@ type Role = "anonymous" | "customer" | "operator" | "qa" | "admin";
 const ADVICE_EXAMPLE = "shape=cylinder&d=50&l=120&att=60&f=60&B=100&dir=transverse&qty=10&layers=3&lu=mm&fu=uT&fq=Hz";
 
 /** What each role can open, and what shows the page has finished arriving. */
-const PAGES: Record<Role, Array<{ path: string | (() => Promise<string>); name: string; ready: (page: Page) => Promise<unknown> }>> = {
+/** The lot page of the newest lot the quality queue lists (the demo's), asked of the API as the signed-in person. */
+const firstQualityLot = async (page: Page) => {
+  const answer = await page.request.get(`${new URL(page.url()).origin}/api/quality/lots?stage=all`);
+  const { items } = (await answer.json()) as { items: Array<{ id: string }> };
+  return `/quality/lots/${items[0].id}`;
+};
+const listOrEmpty = (testId: string, empty: RegExp) => (p: Page) => p.getByTestId(testId).or(p.getByText(empty)).first().waitFor();
+
+const PAGES: Record<Role, Array<{ path: string | ((page: Page) => Promise<string>); name: string; ready: (page: Page) => Promise<unknown> }>> = {
   anonymous: [
     { path: "/", name: "home", ready: (p) => p.getByRole("link", { name: /check a design/i }).waitFor() },
     { path: "/sign-in", name: "sign-in", ready: (p) => p.getByLabel(/^password/i).waitFor() },
@@ -33,6 +41,7 @@ const PAGES: Record<Role, Array<{ path: string | (() => Promise<string>); name: 
     { path: "/invitation/not-a-real-link", name: "invitation-bad-link", ready: (p) => p.getByText(/expired or has already been used/i).waitFor() },
     { path: "/design-check", name: "design-check", ready: designCheckReady },
     { path: "/flat-blank", name: "flat-blank", ready: flatBlankReady },
+    { path: "/verify", name: "verify", ready: (p) => p.getByTestId("drop-zone").waitFor() },
     { path: "/no-such-page", name: "not-found", ready: (p) => p.getByRole("heading", { level: 1, name: /nothing at this address/i }).waitFor() },
   ],
   customer: [
@@ -50,6 +59,7 @@ const PAGES: Record<Role, Array<{ path: string | (() => Promise<string>); name: 
     { path: "/orders", name: "orders", ready: (p) => p.getByTestId("orders-table").waitFor() },
     { path: async () => `/orders/${await demoOrderId("awaiting_payment")}`, name: "order-to-pay", ready: (p) => p.getByRole("button", { name: /^pay /i }).waitFor() },
     { path: async () => `/orders/${await demoOrderId("refunded")}`, name: "order-refunded", ready: (p) => p.getByTestId("payments-table").waitFor() },
+    { path: "/certificates", name: "certificates", ready: listOrEmpty("certificates-table", /no certificates yet/i) },
   ],
   operator: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -70,6 +80,9 @@ const PAGES: Record<Role, Array<{ path: string | (() => Promise<string>); name: 
     { path: "/account", name: "account", ready: (p) => p.getByRole("button", { name: /change password/i }).waitFor() },
     { path: "/floor/scan", name: "scan-station", ready: (p) => p.getByLabel(/scan a traveler/i).waitFor() },
     { path: "/floor/heats", name: "heats", ready: (p) => p.getByTestId("heats-table").waitFor() },
+    { path: "/quality/lots?stage=all", name: "quality-lots", ready: listOrEmpty("quality-lots", /no lots at this stage/i) },
+    { path: firstQualityLot, name: "quality-lot", ready: (p) => p.getByTestId("sample-progress").or(p.getByText(/acceptance is discontinued/i)).first().waitFor() },
+    { path: "/certificates", name: "certificates", ready: listOrEmpty("certificates-table", /no certificates yet/i) },
   ],
   admin: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -165,7 +178,7 @@ async function walk(role: Role) {
   for (const size of SIZES) {
     await page.setViewportSize({ width: size.width, height: size.height });
     for (const p of PAGES[role]) {
-      await page.goto(`${h.baseUrl}${typeof p.path === "string" ? p.path : await p.path()}`);
+      await page.goto(`${h.baseUrl}${typeof p.path === "string" ? p.path : await p.path(page)}`);
       await p.ready(page);
       await page.waitForTimeout(250); // drawings measure their width after the first paint
       const where = `${role} ${p.name} at ${size.name}`;

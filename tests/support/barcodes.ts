@@ -23,7 +23,7 @@ function decode(png: PNG): string | null {
   }
   const reader = new MultiFormatReader();
   const hints = new Map<DecodeHintType, unknown>([
-    [DecodeHintType.POSSIBLE_FORMATS, [BarcodeFormat.CODE_128, BarcodeFormat.DATA_MATRIX]],
+    [DecodeHintType.POSSIBLE_FORMATS, [BarcodeFormat.CODE_128, BarcodeFormat.DATA_MATRIX, BarcodeFormat.QR_CODE]],
     [DecodeHintType.TRY_HARDER, true],
   ]);
   try {

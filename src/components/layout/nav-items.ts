@@ -35,11 +35,11 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   switch (user.role) {
     case "customer":
-      return [home, findADesign, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, account];
+      return [home, findADesign, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, { label: "Certificates", to: paths.certificates.href() }, account];
     case "admin":
-      return [home, { label: "Orders", to: paths.orders.href() }, ...floorFor("admin"), ...quality, findADesign, ...tools, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
+      return [home, { label: "Orders", to: paths.orders.href() }, ...floorFor("admin"), { label: "Lots to inspect", to: paths.qualityLots.href() }, ...quality, findADesign, ...tools, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
     case "qa":
-      return [home, ...floorFor("qa"), ...quality, ...tools, account];
+      return [home, { label: "Lots to inspect", to: paths.qualityLots.href() }, { label: "Certificates", to: paths.certificates.href() }, ...floorFor("qa"), ...quality, ...tools, account];
     case "operator":
       return [home, ...floorFor("operator"), ...tools, account];
   }
