@@ -19,6 +19,7 @@ import { Certificate, Instrument, Nonconformance } from "../models";
 import { certificatePolicy, qualityPolicy } from "../policies/quality";
 import { abilities, authorize, requireRole, type Actor } from "../policies/utils";
 import { presentCertificateSummary, presentMeasurement, presentNonconformance, presentVerification, type CertificateRow, type MeasurementRow, type NonconformanceRow, type VerificationRow } from "../presenters/quality";
+import { queueCalibrationRefit } from "../jobs/calibration-refit";
 import { certificateIssuer, certificateRefusal, certificateReviser } from "../services/certificateIssuer";
 import { loadLotInspection, lotProgress, lotSamplingPlan, notAnnealedReason, type LotInspectionRow } from "../services/lotInspection";
 import { materialCatalog } from "../services/materialCatalog";
@@ -67,7 +68,7 @@ export function verifyPublicRouter({ sequelize, publicLimit }: AppDeps): Router 
 
 /** Lot inspection: sampling plans, measurements, dispositions and nonconformances, certificates. */
 export function qualityRouter(deps: AppDeps): Router {
-  const { sequelize, files: store, config, mailer } = deps;
+  const { sequelize, files: store, config, mailer, jobs } = deps;
   const router = Router();
   const ip = (req: Request) => req.ip ?? null;
   const receiveCsv = createReceiver({ store, field: "file", maxBytes: MAX_CSV_BYTES, maxFiles: 1, what: "CSV file of readings" });
@@ -202,7 +203,12 @@ export function qualityRouter(deps: AppDeps): Router {
   router.post("/lots/:id/certificate", requireUser, async (req, res) => {
     const lot = await inspectLot(sequelize, req.params.id, req.user!);
     authorize(req.user!, "certify", qualityPolicy, { organizationId: lot.organization_id });
-    const certificate = await sequelize.transaction((transaction) => certificateIssuer({ actor: req.user!, lotId: lot.id, sequelize, appUrl: config.appUrl, mailer, ip: ip(req), transaction }));
+    const certificate = await sequelize.transaction(async (transaction) => {
+      const issued = await certificateIssuer({ actor: req.user!, lotId: lot.id, sequelize, appUrl: config.appUrl, mailer, ip: ip(req), transaction });
+      // every certified lot is a measurement of how this shop's shields really perform: refit after commit
+      await queueCalibrationRefit(jobs, { actorId: req.user!.id, reason: `certificate ${issued.number} issued for lot ${lot.number}` }, transaction);
+      return issued;
+    });
     res.status(201).json({ id: certificate.id, digest: certificate.digest, number: certificate.number, revision: certificate.revision, pdfUrl: `/api/certificates/${certificate.id}.pdf`, verifyUrl: `/verify/${certificate.digest}` });
   });
 

@@ -1,4 +1,5 @@
 import { createHash, randomUUID } from "node:crypto";
+import { QueryTypes } from "sequelize";
 import request from "supertest";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Certificate, Job, Lot, Measurement, Nonconformance, Order } from "../../server/models";
@@ -147,6 +148,18 @@ describe("dispositions, certificates and verification", () => {
     expect(issued.status, JSON.stringify(issued.body)).toBe(201);
     expect(issued.body.digest).toMatch(/^[0-9a-f]{64}$/);
     expect((await post(qa, `/api/lots/${lot.id}/certificate`)).status).toBe(409);
+
+    // the calibration reads the lot's measured parts, each with its design and no test field, and a
+    // refit was queued with the certificate (or one already waits: the queue keeps one in waiting)
+    const db = Certificate.sequelize!;
+    const parts = await db.query<{ design: Record<string, unknown>; disposition: string }>("select design, disposition from calibration_measured_parts where lot_id = $1", { bind: [lot.id], type: QueryTypes.SELECT });
+    expect(parts.length).toBe(plan.sampleSize);
+    expect(parts[0].disposition).toBe("accepted");
+    expect(parts[0].design).toHaveProperty("method");
+    expect(parts[0].design).toHaveProperty("layers");
+    expect(parts[0].design).not.toHaveProperty("field");
+    const refits = await db.query("select 1 from pgboss.job where name = 'calibration-refit' and (data->>'reason' like $1 or state in ('created', 'retry'))", { bind: [`%${issued.body.number}%`], type: QueryTypes.SELECT });
+    expect(refits.length).toBeGreaterThan(0);
 
     // the owner downloads it; another organisation gets 404
     const owner = await customer(app, buyer.organizationId);
