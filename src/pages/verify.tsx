@@ -99,7 +99,7 @@ export function Component() {
             className={`rounded-lg border-2 border-dashed p-6 text-center ${dragging ? "border-flux-800 bg-anneal-50" : "border-nickel-400"}`} data-testid="drop-zone">
             <p className="mb-3">Drop the certificate PDF here, or choose it:</p>
             <label htmlFor="certificate-file" className="sr-only">Certificate PDF</label>
-            <input id="certificate-file" type="file" accept="application/pdf,.pdf" onChange={(e) => { const f = e.target.files?.[0]; if (f) void checkFile(f); }} className="mx-auto block" />
+            <input id="certificate-file" type="file" accept="application/pdf,.pdf" onChange={(e) => { const f = e.target.files?.[0]; if (f) void checkFile(f); }} className="mx-auto block w-full max-w-full" />
             <p className="mt-3 text-meta text-flux-600">The file is hashed in your browser; only its SHA-256 is sent.</p>
           </div>
           {fileResult?.error && <StatusNote tone="danger" live="assertive" word="Not verified">{fileResult.name}: {fileResult.error}</StatusNote>}

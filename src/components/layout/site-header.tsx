@@ -48,10 +48,11 @@ export function SiteHeader({ user }: { user: User | null }) {
 
         <div
           id={menuId}
-          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 xl:flex xl:w-auto xl:flex-1 xl:flex-row xl:items-center xl:pb-0`}
+          className={`${open ? "flex" : "hidden"} w-full flex-col gap-2 pb-2 xl:flex xl:w-auto xl:min-w-0 xl:flex-1 xl:flex-row xl:items-center xl:pb-0`}
         >
-          <nav aria-label="Main" className="xl:flex-1">
-            <ul className="flex flex-col gap-1 xl:flex-row">
+          {/* a long staff menu wraps onto a second row inside the header rather than running off the page */}
+          <nav aria-label="Main" className="xl:min-w-0 xl:flex-1">
+            <ul className="flex flex-col gap-1 xl:flex-row xl:flex-wrap">
               {items.map((item) => (
                 <li key={item.to}>
                   <NavLink to={item.to} end={item.end} className={navLink}>
