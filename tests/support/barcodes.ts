@@ -8,14 +8,19 @@ import path from "node:path";
 import { PNG } from "pngjs";
 
 function decode(png: PNG): string | null {
+  // as printed, then four times larger (a symbol drawn one pixel a module is too fine for the binarizer)
+  return decodeAt(png, 1) ?? decodeAt(png, 4);
+}
+
+function decodeAt(png: PNG, scale: number): string | null {
   // a white quiet zone round the symbol, as the paper gives it
   const pad = 24;
-  const w = png.width + 2 * pad;
-  const h = png.height + 2 * pad;
+  const w = png.width * scale + 2 * pad;
+  const h = png.height * scale + 2 * pad;
   const lum = new Uint8ClampedArray(w * h).fill(255);
-  for (let y = 0; y < png.height; y++) {
-    for (let x = 0; x < png.width; x++) {
-      const i = (y * png.width + x) * 4;
+  for (let y = 0; y < png.height * scale; y++) {
+    for (let x = 0; x < png.width * scale; x++) {
+      const i = (Math.floor(y / scale) * png.width + Math.floor(x / scale)) * 4;
       const a = png.data[i + 3] / 255;
       const grey = (png.data[i] + png.data[i + 1] + png.data[i + 2]) / 3;
       lum[(y + pad) * w + x + pad] = Math.round(grey * a + 255 * (1 - a));
