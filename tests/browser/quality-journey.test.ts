@@ -81,8 +81,9 @@ describe("inspecting a lot and certifying it", () => {
     const pdf = Buffer.from(await download.body());
 
     // the QR code in the PDF leads to the public check (no sign-in)
-    const qr = pdfBarcodes(pdf).find((t) => t.includes("/verify/"));
-    expect(qr).toBeTruthy();
+    const read = pdfBarcodes(pdf);
+    const qr = read.find((t) => t.includes("/verify/"));
+    expect(qr, `barcodes read from the certificate: ${JSON.stringify(read)}`).toBeTruthy();
     await h.context.clearCookies();
     await page.goto(`${h.baseUrl}${new URL(qr!).pathname}`);
     await page.getByTestId("verification").waitFor();

@@ -9,10 +9,10 @@ import { PNG } from "pngjs";
 
 function decode(png: PNG): string | null {
   // as printed, then four times larger (a symbol drawn one pixel a module is too fine for the binarizer)
-  return decodeAt(png, 1) ?? decodeAt(png, 4);
+  return decodeAt(png, 1, false) ?? decodeAt(png, 4, false) ?? decodeAt(png, 1, true);
 }
 
-function decodeAt(png: PNG, scale: number): string | null {
+function decodeAt(png: PNG, scale: number, pure: boolean): string | null {
   // a white quiet zone round the symbol, as the paper gives it
   const pad = 24;
   const w = png.width * scale + 2 * pad;
@@ -30,6 +30,8 @@ function decodeAt(png: PNG, scale: number): string | null {
   const hints = new Map<DecodeHintType, unknown>([
     [DecodeHintType.POSSIBLE_FORMATS, [BarcodeFormat.CODE_128, BarcodeFormat.DATA_MATRIX, BarcodeFormat.QR_CODE]],
     [DecodeHintType.TRY_HARDER, true],
+    // a generated symbol on its own quiet zone, unrotated: read it module by module
+    ...(pure ? [[DecodeHintType.PURE_BARCODE, true] as [DecodeHintType, unknown]] : []),
   ]);
   try {
     return reader.decode(new BinaryBitmap(new HybridBinarizer(new RGBLuminanceSource(lum, w, h))), hints).getText();
