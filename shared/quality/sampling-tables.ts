@@ -11,7 +11,7 @@
 // Where the tables come from (see DEVELOPERS.md, "Sampling plans"): Table I and Table II-A as
 // printed in ISO 2859-1 / ANSI/ASQ Z1.4 / MIL-STD-105E (a public-domain edition); Tables II-B and
 // II-C of Z1.4 / MIL-STD-105E (II-C with the gap between Ac and Re that the 1999 ISO edition later
-// removed). Values transcribed from memory and cross-checked against a public transcription of
+// removed). Values written down from memory and cross-checked against a public copy of
 // MIL-STD-105E for the AQL columns 0.65 … 15.
 
 export const CODE_LETTERS = ["A", "B", "C", "D", "E", "F", "G", "H", "J", "K", "L", "M", "N", "P", "Q", "R"] as const;

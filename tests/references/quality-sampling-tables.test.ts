@@ -6,9 +6,9 @@ import {
 
 // Sources:
 // [pub] ISO 2859-1 Table I / Table II-A ≡ ANSI/ASQ Z1.4 Tables I and II-A ≡ MIL-STD-105E (10 May 1989,
-//       public domain) Tables I, II-A, II-B and II-C. The "printed" rows below are transcribed
-//       from memory of those tables ([memory]); the rows marked "105E transcription" are a public
-//       transcription of MIL-STD-105E for the AQL columns 0.65 … 15 (rejection numbers and arrows),
+//       public domain) Tables I, II-A, II-B and II-C. The "printed" rows below are written down
+//       from memory of those tables ([memory]); the rows marked "105E copy" are a public
+//       copy of MIL-STD-105E for the AQL columns 0.65 … 15 (rejection numbers and arrows),
 //       and the plan sequences per row are MIL-STD-105E Table II-A's ([pub]).
 // Notation: "Ac/Re" a plan, "↓" use the first plan below the arrow, "↑" the first plan above.
 
@@ -17,7 +17,7 @@ const cellText = (inspection: Inspection, letter: TableLetter, column: number) =
   return c.kind === "plan" ? `${c.accept}/${c.reject}` : c.kind === "down" ? "↓" : "↑";
 };
 const rowText = (inspection: Inspection, letter: TableLetter) => AQL_COLUMNS.map((_, j) => cellText(inspection, letter, j)).join(" ");
-const transcribedCells = (inspection: Inspection, letter: TableLetter) =>
+const tabledCells = (inspection: Inspection, letter: TableLetter) =>
   [9, 10, 11, 12, 13, 14, 15, 16]
     .map((j) => {
       const c = tableCell(inspection, letter, j);
@@ -59,7 +59,7 @@ describe("Table I, general inspection level II: code letters from the lot size [
   });
 });
 
-describe("Table II-A, normal inspection, every letter and AQL column as printed [pub, transcribed from memory]", () => {
+describe("Table II-A, normal inspection, every letter and AQL column as printed [pub, written down from memory]", () => {
   const printed: Record<string, string> = {
     A: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 0/1 ↑ ↓ 1/2 2/3 3/4 5/6 7/8 10/11 14/15 21/22 30/31",
     B: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 0/1 ↑ ↓ 1/2 2/3 3/4 5/6 7/8 10/11 14/15 21/22 30/31 44/45",
@@ -82,14 +82,14 @@ describe("Table II-A, normal inspection, every letter and AQL column as printed 
     expect(rowText("normal", letter)).toBe(printed[letter]);
   });
 
-  // MIL-STD-105E Table II-A, public transcription, AQL 0.65 1.0 1.5 2.5 4.0 6.5 10 15: Re or arrow [pub]
-  const transcription: Record<string, string> = {
+  // MIL-STD-105E Table II-A, public copy, AQL 0.65 1.0 1.5 2.5 4.0 6.5 10 15: Re or arrow [pub]
+  const publicCopy: Record<string, string> = {
     A: "↓ ↓ ↓ ↓ ↓ 1 ↑ ↓", B: "↓ ↓ ↓ ↓ 1 ↑ ↓ 2", C: "↓ ↓ ↓ 1 ↑ ↓ 2 3", D: "↓ ↓ 1 ↑ ↓ 2 3 4", E: "↓ 1 ↑ ↓ 2 3 4 6",
     F: "1 ↑ ↓ 2 3 4 6 8", G: "↑ ↓ 2 3 4 6 8 11", H: "↓ 2 3 4 6 8 11 15", J: "2 3 4 6 8 11 15 22", K: "3 4 6 8 11 15 22 ↑",
     L: "4 6 8 11 15 22 ↑ ↑", M: "6 8 11 15 22 ↑ ↑ ↑", N: "8 11 15 22 ↑ ↑ ↑ ↑", P: "11 15 22 ↑ ↑ ↑ ↑ ↑", Q: "15 22 ↑ ↑ ↑ ↑ ↑ ↑",
   };
-  it.each(Object.keys(transcription).map((l) => [l]))("letter %s against the 105E transcription, AQL 0.65 … 15 [pub]", (letter) => {
-    expect(transcribedCells("normal", letter as TableLetter)).toBe(transcription[letter]);
+  it.each(Object.keys(publicCopy).map((l) => [l]))("letter %s against the 105E copy, AQL 0.65 … 15 [pub]", (letter) => {
+    expect(tabledCells("normal", letter as TableLetter)).toBe(publicCopy[letter]);
   });
 
   // MIL-STD-105E Table II-A: the plans of each row, left to right [pub]
@@ -106,7 +106,7 @@ describe("Table II-A, normal inspection, every letter and AQL column as printed 
   });
 });
 
-describe("Table II-B, tightened inspection, as printed [pub, transcribed from memory]", () => {
+describe("Table II-B, tightened inspection, as printed [pub, written down from memory]", () => {
   const printed: Record<string, string> = {
     A: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 1/2 2/3 3/4 5/6 8/9 12/13 18/19 27/28",
     B: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 0/1 ↓ ↓ 1/2 2/3 3/4 5/6 8/9 12/13 18/19 27/28 41/42",
@@ -129,17 +129,17 @@ describe("Table II-B, tightened inspection, as printed [pub, transcribed from me
   it.each([...CODE_LETTERS, "S"].map((l) => [l]))("letter %s", (letter) => {
     expect(rowText("tightened", letter as TableLetter)).toBe(printed[letter]);
   });
-  // MIL-STD-105E Table II-B, public transcription, AQL 0.65 … 15: Re or arrow [pub]
-  const transcription: Record<string, string> = {
+  // MIL-STD-105E Table II-B, public copy, AQL 0.65 … 15: Re or arrow [pub]
+  const publicCopy: Record<string, string> = {
     A: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓", B: "↓ ↓ ↓ ↓ ↓ 1 ↓ ↓", C: "↓ ↓ ↓ ↓ 1 ↓ ↓ 2", D: "↓ ↓ ↓ 1 ↓ ↓ 2 3", E: "↓ ↓ 1 ↓ ↓ 2 3 4",
     F: "↓ 1 ↓ ↓ 2 3 4 6", G: "1 ↓ ↓ 2 3 4 6 9", H: "↓ ↓ 2 3 4 6 9 13", J: "↓ 2 3 4 6 9 13 19", K: "2 3 4 6 9 13 19 ↑", L: "3 4 6 9 13 19 ↑ ↑",
   };
-  it.each(Object.keys(transcription).map((l) => [l]))("letter %s against the 105E transcription, AQL 0.65 … 15 [pub]", (letter) => {
-    expect(transcribedCells("tightened", letter as TableLetter)).toBe(transcription[letter]);
+  it.each(Object.keys(publicCopy).map((l) => [l]))("letter %s against the 105E copy, AQL 0.65 … 15 [pub]", (letter) => {
+    expect(tabledCells("tightened", letter as TableLetter)).toBe(publicCopy[letter]);
   });
 });
 
-describe("Table II-C, reduced inspection (Z1.4 / MIL-STD-105E, with the Ac–Re gap), as printed [pub, transcribed from memory]", () => {
+describe("Table II-C, reduced inspection (Z1.4 / MIL-STD-105E, with the Ac–Re gap), as printed [pub, written down from memory]", () => {
   const printed: Record<string, string> = {
     A: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 0/1 ↑ ↓ 0/2 1/3 1/4 2/5 3/6 5/8 7/10 10/13 14/17",
     B: "↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ ↓ 0/1 ↑ ↓ 0/2 1/3 1/4 2/5 3/6 5/8 7/10 10/13 14/17 21/24",
