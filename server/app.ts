@@ -23,6 +23,7 @@ import { instrumentReminderQueueDefinition, startInstrumentReminders } from "./j
 import { calibrationRefitQueueDefinition, startCalibrationRefits } from "./jobs/calibration-refit";
 import { calibrationRouter } from "./routes/calibration";
 import { buildModelCatalog } from "./services/buildModelCatalog";
+import { listenForReferenceChanges } from "./services/referenceData";
 import { createMeasuredLotsReader } from "./services/measuredLotsReader";
 import { ShopSettings } from "./models";
 import { createStripe } from "./payments/stripe";
@@ -99,6 +100,8 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   void startCalibrationRefits({ queue: jobs, sequelize, readLots, config, logger }).catch((err) => logger.error({ err }, "calibration refits did not start"));
   // the as-built model with the calibration fits, loaded before the first quote needs it
   void Promise.resolve(buildModelCatalog()).catch((err) => logger.warn({ err }, "as-built model not loaded yet"));
+  // another process's edit of that reference data (or a refit its job worker ran) reaches this one at once
+  const referenceChanges = listenForReferenceChanges({ databaseUrl: config.DATABASE_URL, logger });
   const secure = config.appUrl.startsWith("https://");
 
   const app = express() as FluxwrightApp;
@@ -231,6 +234,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
     await sessionPool.end().catch(() => {});
     await mailer.idle(2_000);
     await jobs.stop();
+    await referenceChanges.close();
   };
   return app;
 }

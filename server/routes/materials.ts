@@ -8,7 +8,8 @@ import { requireUser } from "../middleware/security";
 import { Event, Material, User } from "../models";
 import { requireRole } from "../policies/utils";
 import { presentMaterialChange, presentMaterialForAdmin } from "../presenters/material";
-import { invalidateMaterialCatalog, materialCatalog } from "../services/materialCatalog";
+import { materialCatalog } from "../services/materialCatalog";
+import { referenceDataChanged } from "../services/referenceData";
 import { materialCreator, materialUpdater } from "../services/materialSaver";
 
 /** GET /api/materials: public reference data, served from the in-process catalog. */
@@ -39,7 +40,7 @@ export function materialsAdminRouter({ sequelize }: AppDeps): Router {
     requireRole(req.user!, "admin");
     const input = parseInput(materialCreateSchema, req.body);
     const material = await sequelize.transaction((transaction) => materialCreator({ actor: req.user!, input, ip: req.ip ?? null, transaction }));
-    invalidateMaterialCatalog();
+    await referenceDataChanged(sequelize, "materials");
     res.status(201).json(presentMaterialForAdmin(material));
   });
 
@@ -48,7 +49,7 @@ export function materialsAdminRouter({ sequelize }: AppDeps): Router {
     const { id } = parseInput(idParam, req.params);
     const input = parseInput(materialUpdateSchema, req.body);
     const material = await sequelize.transaction((transaction) => materialUpdater({ actor: req.user!, id, input, ip: req.ip ?? null, transaction }));
-    invalidateMaterialCatalog();
+    await referenceDataChanged(sequelize, "materials");
     res.json(presentMaterialForAdmin(material));
   });
 

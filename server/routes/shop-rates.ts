@@ -7,8 +7,7 @@ import { requireUser } from "../middleware/security";
 import { PriceListVersion, User } from "../models";
 import { requireRole } from "../policies/utils";
 import { presentShopRates, presentShopRatesVersion } from "../presenters/shop-rates";
-import { invalidateBuildModel } from "../services/buildModelCatalog";
-import { invalidateShopRatesCatalog } from "../services/shopRatesCatalog";
+import { referenceDataChanged } from "../services/referenceData";
 import { currentShopRates, shopRatesUpdater, type ShopRatesChange } from "../services/shopRatesUpdater";
 
 const historyQuery = z.object({ limit: z.coerce.number().int().min(1).max(200).default(50) });
@@ -38,9 +37,9 @@ export function shopRatesRouter({ sequelize }: AppDeps): Router {
     const { version } = await sequelize.transaction((transaction) =>
       shopRatesUpdater({ actor: req.user!, change: { part, input } as ShopRatesChange, ip: req.ip ?? null, transaction }),
     );
-    // predictions read the construction settings in process: the new version from now on
-    if (part === "construction") invalidateBuildModel();
-    invalidateShopRatesCatalog();
+    // predictions read the construction settings in process (every process): the new version from now on
+    await referenceDataChanged(sequelize, "shop-rates");
+    if (part === "construction") await referenceDataChanged(sequelize, "build-model");
     await version.reload(withCreator);
     res.json(presentShopRates(version));
   };

@@ -3,9 +3,9 @@ import { calibrateSteps, type Calibration } from "../../shared/calibration";
 import { buildModelFrom } from "../../shared/physics/build-model";
 import { constructionSettingsOf } from "../../shared/schemas/pricing";
 import { PriceListVersion, recordEvent } from "../models";
-import { invalidateBuildModel } from "./buildModelCatalog";
 import { materialCatalog } from "./materialCatalog";
 import { measuredLotsFingerprint, type MeasuredLotsReader } from "./measuredLotsReader";
+import { referenceDataChanged } from "./referenceData";
 
 /** Lots a class needs before its fit is used (the shop setting). */
 export async function calibrationMinLots(sequelize: Sequelize): Promise<number> {
@@ -81,7 +81,7 @@ export async function calibrationRefitter(props: {
     );
     return run.id;
   });
-  invalidateBuildModel();
+  await referenceDataChanged(sequelize, "build-model");
   return { runId, calibration };
 }
 

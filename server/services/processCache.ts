@@ -1,6 +1,7 @@
 // Reference data held in this process so a public computation costs no database round trip.
-// An edit through this process invalidates it at once; another process's edit is picked up
-// within refreshMs (served from the old copy while the new one loads).
+// An edit invalidates it at once in every process (referenceData.ts: here directly, elsewhere by
+// NOTIFY); refreshMs is the backstop for a signal lost with its connection (served from the old
+// copy while the new one loads).
 
 export interface ProcessCache<T> {
   /** the value; loads it on first use */

@@ -4,7 +4,7 @@ import { processCache } from "./processCache";
 
 // The current shop-rates document (stock sheets, forming limits, prices) held in this process,
 // so a public blank computation can check its part against the stock sheets without a database
-// query. A save through this process invalidates it at once; other processes within 30 s.
+// query. A save invalidates it at once in every process (referenceData.ts).
 
 const cache = processCache<PriceList | null>(async () => (await PriceListVersion.current())?.data ?? null);
 

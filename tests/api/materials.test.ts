@@ -137,6 +137,25 @@ describe("material edits", () => {
     expect(all.body.items.find((x: { id: string }) => x.id === m.id).active).toBe(false);
   });
 
+  it("another process's edit reaches this process's list at once, through the database's NOTIFY", async () => {
+    const { agent, csrf } = await admin();
+    const m = newMaterial();
+    expect((await agent.post("/api/materials").set("X-CSRF-Token", csrf).send(m)).status).toBe(201);
+    const nameOf = async () => (await request(app).get("/api/materials")).body.find((x: { id: string }) => x.id === m.id)?.name;
+    expect(await nameOf()).toBe(m.name); // loaded into this process
+    // what another server process does: its own transaction, then the signal (its process copy is its own)
+    const { sequelize } = app.locals.deps;
+    await sequelize.query("update materials set name = 'Renamed elsewhere' where id = $1", { bind: [m.id] });
+    expect(await nameOf(), "held in this process until told").toBe(m.name);
+    let seen: string | undefined;
+    for (let i = 0; i < 50 && seen !== "Renamed elsewhere"; i++) {
+      await sequelize.query("select pg_notify('fluxwright_reference_data', 'materials')");
+      await new Promise((r) => setTimeout(r, 100));
+      seen = await nameOf();
+    }
+    expect(seen).toBe("Renamed elsewhere");
+  });
+
   it("seeding again changes nothing", async () => {
     expect(await seedMaterials()).toEqual([]);
   });
