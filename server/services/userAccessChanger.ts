@@ -8,7 +8,7 @@ import type { Actor } from "../policies/utils";
 /**
  * The planner changes a person's role or deactivates (or reactivates) them. Staff move between
  * staff roles only (a customer belongs to a customer organisation, staff to the shop). The shop
- * always keeps an active planner: the active planners are locked first, so two planners demoting
+ * always keeps an active planner: the shop's active planners are locked first, so two planners demoting
  * each other at the same moment cannot both succeed. Each change is an event in the same
  * transaction; a deactivated person is signed out everywhere.
  */
@@ -24,7 +24,7 @@ export async function userAccessChanger(props: { actor: Actor; user: User; input
   const wasPlanner = user.role === "admin" && user.disabledAt === null;
   const staysPlanner = role === "admin" && active;
   if (wasPlanner && !staysPlanner) {
-    const planners = await User.findAll({ where: { role: "admin", disabledAt: { [Op.is]: null } }, transaction, lock: transaction.LOCK.UPDATE, order: [["id", "ASC"]] });
+    const planners = await User.findAll({ where: { role: "admin", organizationId: user.organizationId, disabledAt: { [Op.is]: null } }, transaction, lock: transaction.LOCK.UPDATE, order: [["id", "ASC"]] });
     if (!planners.some((p) => p.id !== user.id)) {
       throw new AppError(409, "LAST_PLANNER", `${user.name} is the last active planner: make someone else a planner first, so the shop is never left without one.`);
     }
