@@ -122,10 +122,13 @@ export async function paymentEventRecorder(props: { event: PaymentEvent; mailer:
   const parsed = sessionObject.safeParse(event.data.object);
   if (!parsed.success) return outcome("ignored");
   const object = parsed.data;
-  const session = await CheckoutSession.findByPk(object.id, { transaction, lock: transaction.LOCK.UPDATE });
-  if (!session) return outcome("unknown_session");
-  const order = await Order.findByPk(session.orderId, { transaction, lock: transaction.LOCK.UPDATE });
+  const known = await CheckoutSession.findByPk(object.id, { transaction, attributes: ["id", "orderId"] });
+  if (!known) return outcome("unknown_session");
+  // the order's row first, then its session's: the order the checkout takes them in, so an event
+  // arriving while the customer reopens the checkout waits instead of deadlocking with it
+  const order = await Order.findByPk(known.orderId, { transaction, lock: transaction.LOCK.UPDATE });
   if (!order) return outcome("unknown_order");
+  const session = (await CheckoutSession.findByPk(object.id, { transaction, lock: transaction.LOCK.UPDATE }))!;
 
   if (event.type === "checkout.session.expired") {
     if (session.status === "open") {

@@ -131,7 +131,8 @@ describe("paying on the stand-in", () => {
     const first = await agent.post(`/api/orders/${order.id}/checkout`).set("X-CSRF-Token", csrf);
     await app.locals.deps.stripe.checkout.sessions.expire(first.body.sessionId);
     const second = await agent.post(`/api/orders/${order.id}/checkout`).set("X-CSRF-Token", csrf);
-    expect(second.status).toBe(200);
+    expect(first.status, JSON.stringify(first.body)).toBe(200);
+    expect(second.status, JSON.stringify(second.body)).toBe(200);
     expect(second.body.sessionId).not.toBe(first.body.sessionId);
     expect((await orderOf(agent, order.id)).status).toBe("awaiting_payment");
   });
@@ -167,6 +168,25 @@ describe("POST /api/webhooks/stripe", () => {
     expect((await post(good.payload, oldHeader)).status).toBe(400);
     expect(await WebhookEvent.count({ where: { id: event.id } })).toBe(0);
     expect((await Order.findByPk(order.id))!.status).toBe("awaiting_payment");
+  });
+
+  it("an expiry event arriving while the checkout is reopened (the order's row held) waits for it instead of deadlocking", async () => {
+    const { order, sessionId } = await sessionFor();
+    const event = { ...completedEvent(sessionId, order.totalCents), type: "checkout.session.expired" };
+    const { payload, header } = signed(event);
+    const { sequelize } = app.locals.deps;
+    let answer!: Promise<request.Response>;
+    // what POST /api/orders/:id/checkout does: the order's row, then (after a call out) its session's
+    await sequelize.transaction(async (transaction) => {
+      await Order.findByPk(order.id, { transaction, lock: transaction.LOCK.UPDATE });
+      answer = post(payload, header).then((r) => r); // supertest sends on then()
+      await new Promise((r) => setTimeout(r, 300)); // the event is in its own transaction by now, waiting
+      await CheckoutSession.update({ status: "expired" }, { where: { id: sessionId }, transaction });
+    });
+    const res = await answer;
+    expect(res.status).toBe(200);
+    expect(res.body.outcome).toBe("processed");
+    expect((await CheckoutSession.findByPk(sessionId))!.status).toBe("expired");
   });
 
   it("a replayed event (3 times) records one payment", async () => {
