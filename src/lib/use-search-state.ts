@@ -21,10 +21,22 @@ export function useSearchState<T>(read: (search: URLSearchParams) => T, write: (
   const [state, setState] = useState<T>(() => read(new URLSearchParams(location.search)));
   const written = useRef<string>(write(state).toString());
   const pushNext = useRef(true);
+  // Addresses this hook navigated to that the router has not shown yet. A navigation lands after
+  // the route's loaders, so on a slow machine an earlier edit's address can arrive after a later
+  // edit was made: it is ours and old, not Back, and must not roll the state back to it.
+  const inFlight = useRef<string[]>([]);
+  const navigateTo = useCallback(
+    (search: string, replace: boolean) => {
+      inFlight.current.push(search);
+      if (inFlight.current.length > 100) inFlight.current.shift();
+      navigate({ search }, { replace, preventScrollReset: true });
+    },
+    [navigate],
+  );
 
   // The address bar always holds the whole state, from the first render on (a bare /page link too).
   useEffect(() => {
-    if (location.search.replace(/^\?/, "") !== written.current) navigate({ search: written.current }, { replace: true, preventScrollReset: true });
+    if (location.search.replace(/^\?/, "") !== written.current) navigateTo(written.current, true);
     // once, on arrival: later changes go through `update`
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
@@ -32,6 +44,11 @@ export function useSearchState<T>(read: (search: URLSearchParams) => T, write: (
   // Back, forward or a link changed the address: that is the state now.
   useEffect(() => {
     const search = location.search.replace(/^\?/, "");
+    const ours = inFlight.current.indexOf(search);
+    if (ours >= 0) {
+      inFlight.current.splice(0, ours + 1); // this one and any older of ours have landed
+      return;
+    }
     if (search === written.current) return;
     const next = read(new URLSearchParams(search));
     const normal = write(next).toString();
@@ -49,9 +66,9 @@ export function useSearchState<T>(read: (search: URLSearchParams) => T, write: (
       written.current = search;
       const replace = kind === "typing" && !pushNext.current;
       pushNext.current = kind === "commit";
-      navigate({ search }, { replace, preventScrollReset: true });
+      navigateTo(search, replace);
     },
-    [navigate, write],
+    [navigateTo, write],
   );
 
   /** The person finished an edit (left the box): the next keystroke starts a new history entry. */

@@ -6,6 +6,7 @@ import { Link, useNavigate, useParams } from "react-router-dom";
 import { ApiError } from "../api/client";
 import { verifyFileHash, verifyQueryOptions, type CertificateVerificationJson } from "../api/quality";
 import { Button } from "../components/ui/button";
+import { ResponsiveTable, type Column } from "../components/ui/responsive-table";
 import { TextField } from "../components/ui/field";
 import { PageHeader, Panel } from "../components/ui/panel";
 import { Loading } from "../components/ui/spinner";
@@ -15,6 +16,36 @@ import { certificateDigest, type CanonicalValue } from "../../shared/quality/dig
 
 // Public: anyone holding a certificate checks it here, by the digest printed on it (or its QR
 // code), or by dropping the PDF itself. No sign-in.
+
+type MeasuredPart = CertificateVerificationJson["content"]["measurements"][number] & { row: number };
+
+const fixed = (x: number, digits: number) => x.toLocaleString("en-GB", { minimumFractionDigits: digits, maximumFractionDigits: digits });
+
+const partColumns: Column<MeasuredPart>[] = [
+  { key: "serial", header: "Serial", cell: (m) => m.serial, primary: true },
+  { key: "field", header: "Applied field", cell: (m) => `${fixed(m.appliedField_uT, 1)} µT at ${fixed(m.frequency_hz, 0)} Hz`, align: "end" },
+  { key: "inside", header: "Inside", cell: (m) => `${fixed(m.insideField_uT, 3)} µT`, align: "end" },
+  { key: "where", header: "Orientation, probe", cell: (m) => `${m.orientation}, ${m.probePosition}` },
+  { key: "s", header: "Shielding factor", cell: (m) => fixed(m.shieldingFactor, 0), align: "end" },
+  { key: "db", header: "Attenuation", cell: (m) => `${fixed(m.attenuation_db, 1)} dB`, align: "end" },
+  { key: "pass", header: "Against the order", cell: (m) => (m.pass ? "Pass" : "Fail") },
+];
+
+/** What the certificate certifies beyond its summary: the material's heats, the route, the instruments and every measured part. */
+function CertifiedDetail({ c }: { c: CertificateVerificationJson["content"] }) {
+  return (
+    <div className="space-y-4">
+      <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
+        <div><dt className="text-meta text-flux-600">Heats</dt><dd>{c.material.heats.length ? c.material.heats.map((h) => `${h.heatNumber} (${h.supplier})`).join("; ") : "—"}</dd></div>
+        <div><dt className="text-meta text-flux-600">Forming route</dt><dd>{c.formingRoute.join(" → ") || "—"}</dd></div>
+        <div><dt className="text-meta text-flux-600">Instruments</dt><dd>{c.instruments.map((i) => `${i.name} (${i.serialNumber}, calibrated ${i.lastCalibratedOn}, due ${i.calibrationDue})`).join("; ") || "—"}</dd></div>
+        <div><dt className="text-meta text-flux-600">Predicted for the design</dt><dd>{c.predicted_db === null ? "—" : `${fixed(c.predicted_db, 1)} dB (an estimate, for comparison)`}</dd></div>
+      </dl>
+      <ResponsiveTable caption={`The ${c.measurements.length} measured parts`} columns={partColumns} rows={c.measurements.map((m, row) => ({ ...m, row }))} rowKey={(m) => String(m.row)} testId="certified-parts" rowTestId="certified-part" />
+      <p className="text-meta text-flux-700">{c.statement}</p>
+    </div>
+  );
+}
 
 function Verdict({ v }: { v: CertificateVerificationJson }) {
   const c = v.content;
@@ -46,6 +77,7 @@ function Verdict({ v }: { v: CertificateVerificationJson }) {
           <div key={k}><dt className="text-meta text-flux-600">{k}</dt><dd>{val}</dd></div>
         ))}
       </dl>
+      <CertifiedDetail c={c} />
       <p className="break-all font-mono text-meta">SHA-256 {v.digest}</p>
       <p className="text-meta text-flux-700">
         {recomputed ? "This page recomputed the digest from the content shown, in your browser: it matches." : "The digest recomputed in your browser does not match: do not rely on this certificate."} The

@@ -92,18 +92,27 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     await page.goto(`${h.baseUrl}/quality/calibration`);
     await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor({ timeout: 30_000 });
 
-    // the design check's default 80 % nickel-iron can, made rolled and seam-welded: that class is calibrated
-    await page.goto(`${h.baseUrl}/design-check`);
-    await page.getByLabel(/how it is made/i).selectOption("rolled");
-    const source = page.getByTestId("calibration-source");
-    await source.waitFor();
-    // Whether the class's fit is in use depends on every lot measured so far (other test files certify
-    // lots of invented readings into the same database): the design check must say what the latest fit says.
-    const fits = (await (await page.request.get(`${h.baseUrl}/api/calibration`)).json()) as Array<{ material: string; method: string; construction: string; inUse: boolean; lots: number }>;
-    const fit = fits.find((f) => f.material === "ni80" && f.method === "rolled" && f.construction === "closed-can");
-    expect(fit, "the rolled 80 % nickel-iron can class has a fit").toBeTruthy();
-    expect(await source.getAttribute("data-source")).toBe(fit!.inUse ? "shop" : "library");
-    if (fit!.inUse) await expect(source.textContent()).resolves.toMatch(/Calibrated on \d+ of the shop's measured lots/);
+    // the design check's default 80 % nickel-iron can, made rolled and seam-welded: that class is calibrated.
+    // Whether its fit is in use depends on every lot measured so far, and other test files certify lots
+    // of invented readings into the same database (each queueing a refit): the design check must say
+    // what the latest fit says. A refit landing between the page and the list is retried, not judged.
+    type Fit = { id: string; material: string; method: string; construction: string; inUse: boolean };
+    let judged = false;
+    for (let attempt = 0; attempt < 5 && !judged; attempt++) {
+      await page.goto(`${h.baseUrl}/design-check`);
+      await page.getByLabel(/how it is made/i).selectOption("rolled");
+      const source = page.getByTestId("calibration-source");
+      await source.waitFor();
+      const shown = { fitId: await source.getAttribute("data-fit-id"), source: await source.getAttribute("data-source"), text: await source.textContent() };
+      const fits = (await (await page.request.get(`${h.baseUrl}/api/calibration`)).json()) as Fit[];
+      const fit = fits.find((f) => f.material === "ni80" && f.method === "rolled" && f.construction === "closed-can");
+      expect(fit, "the rolled 80 % nickel-iron can class has a fit").toBeTruthy();
+      if (fit!.id !== shown.fitId) continue; // a newer refit than the page's: look again
+      expect(shown.source).toBe(fit!.inUse ? "shop" : "library");
+      if (fit!.inUse) expect(shown.text).toMatch(/Calibrated on \d+ of the shop's measured lots/);
+      judged = true;
+    }
+    expect(judged, "the design check showed the latest refit's fit of its class").toBe(true);
     await h.shot(page, "design-check-calibrated");
     expect(consoleErrors).toEqual([]);
     await page.close();

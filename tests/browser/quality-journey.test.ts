@@ -88,6 +88,10 @@ describe("inspecting a lot and certifying it", () => {
     await page.goto(`${h.baseUrl}${new URL(qr!).pathname}`);
     await page.getByTestId("verification").waitFor();
     expect(await page.getByTestId("verification").textContent()).toMatch(/current revision/);
+    // every measured part it certifies, as the certificate lists them
+    const measured = Number((await page.getByTestId("verification").textContent())!.match(/(\d+) measured, \d+ failing/)![1]);
+    expect(measured).toBeGreaterThan(0);
+    expect(await page.getByTestId("certified-part").count()).toBe(measured);
     await h.shot(page, "verify-current");
     // the file itself, dropped on the page
     await page.getByLabel("Certificate PDF").setInputFiles({ name: "certificate.pdf", mimeType: "application/pdf", buffer: pdf });

@@ -43,7 +43,7 @@ const db = (figure: { attenuation_db: number; beyondLimit: boolean }) => (figure
 function CalibrationLine({ calibration }: { calibration: NonNullable<PredictionResult["calibration"]> }) {
   const day = new Date(calibration.fittedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
   return (
-    <p className="text-meta text-flux-700" data-testid="calibration-source" data-source={calibration.source}>
+    <p className="text-meta text-flux-700" data-testid="calibration-source" data-source={calibration.source} data-fit-id={calibration.fitId}>
       {calibration.source === "shop"
         ? `Calibrated on ${calibration.lots} of the shop's measured lots (fitted ${day}); the range is how far such lots fell from predictions made without them.`
         : `Library values: the shop's ${calibration.lots} measured lots of this kind do not yet improve on them (checked ${day}).`}
