@@ -90,7 +90,8 @@ export async function seedShopFloor(props: {
       if (step === "form" && r.drawStages) input.drawStagesDone = r.drawStages;
       if (step === "weld") input.weldInspection = { result: "pass", method: "visual" };
     }
-    await stepScanner({ actor: operator, input, sequelize, transaction, now: new Date(when.getTime() + clock++ * 60_000) });
+    // the demo's history: its finished jobs' lots were accepted by quality
+    await stepScanner({ actor: operator, input, sequelize, transaction, now: new Date(when.getTime() + clock++ * 60_000), lotDecided: true });
   };
   /** Scans the job up to `step` (and its components first); `until` "start" leaves that step started. */
   const walk = async (job: Job, jobs: Job[], step: StepKey, until: "start" | "complete", from: Date) => {

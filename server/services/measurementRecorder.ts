@@ -180,7 +180,7 @@ export async function completeVerify(props: { actor: Actor & { name: string }; l
   const station = `quality: lot ${lot.number} sample measured`;
   for (const job of jobs) {
     if (!job.started) await stepScanner({ actor, input: { code: job.code, step: "verify", action: "start", station }, sequelize, transaction, now });
-    await stepScanner({ actor, input: { code: job.code, step: "verify", action: "complete", station, note: "accepted under its sampling plan" }, sequelize, transaction, now });
+    await stepScanner({ actor, input: { code: job.code, step: "verify", action: "complete", station, note: "accepted under its sampling plan" }, sequelize, transaction, now, lotDecided: true });
   }
 }
 

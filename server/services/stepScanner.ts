@@ -42,9 +42,9 @@ u as (
 select v.*, s.id as moved_scan_id, s.created_at as moved_created_at from v left join s on true`,
 };
 
-/** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run). */
+/** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run, the lot's decision at verify). */
 const needsStepData = (step: StepKey, action: "start" | "complete", input: ScanInput) =>
-  step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || input.drawStagesDone !== undefined;
+  step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined;
 
 type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: Date | null };
 
@@ -83,6 +83,16 @@ export interface ScanOutcome {
   code: string;
 }
 
+interface ScanProps {
+  actor: Actor & { name: string };
+  input: ScanInput;
+  sequelize: Sequelize;
+  transaction?: Transaction;
+  now?: Date;
+  /** quality's decision on the lot (accepted under its plan, or by concession): only it completes verify */
+  lotDecided?: boolean;
+}
+
 const sameNumber = (a: number, b: number) => Math.abs(a - b) < 1e-6;
 const ATTEMPTS = 5;
 
@@ -96,7 +106,7 @@ const ATTEMPTS = 5;
  * match the job), the draws at form, the weld inspection at weld; completing the anneal links the
  * job to its lot's furnace run. Runs in the caller's transaction when given one (the demo seed).
  */
-export async function stepScanner(props: { actor: Actor & { name: string }; input: ScanInput; sequelize: Sequelize; transaction?: Transaction; now?: Date }): Promise<ScanOutcome> {
+export async function stepScanner(props: ScanProps): Promise<ScanOutcome> {
   for (let attempt = 1; ; attempt++) {
     const outcome = await attemptScan(props);
     if (outcome) return outcome;
@@ -104,7 +114,7 @@ export async function stepScanner(props: { actor: Actor & { name: string }; inpu
   }
 }
 
-async function attemptScan(props: { actor: Actor & { name: string }; input: ScanInput; sequelize: Sequelize; transaction?: Transaction; now?: Date }): Promise<ScanOutcome | null> {
+async function attemptScan(props: ScanProps): Promise<ScanOutcome | null> {
   const { actor, input, sequelize, transaction } = props;
   const now = props.now ?? new Date();
   const code = normalizeCode(input.code);
@@ -149,6 +159,9 @@ async function attemptScan(props: { actor: Actor & { name: string }; input: Scan
   const verdict = checkScan({ routing: job.routing, stepIndex: job.step_index, started }, step, input.action, what);
   if (verdict.kind === "refused") throw ConflictError(verdict.code, verdict.message);
   if (verdict.kind === "repeat") return repeatOf(job, verdict.stepIndex, input, sequelize, transaction);
+  if (step === "verify" && input.action === "complete" && !props.lotDecided) {
+    throw ConflictError("VERIFY_BY_INSPECTION", `Verify on ${job.code} completes by itself when quality accepts lot ${job.lot_number} from its measured sample; it is not completed by a scan.`);
+  }
   if (job.hold_reason) throw ConflictError("LOT_ON_HOLD", `Lot ${job.lot_number} is on hold: ${job.hold_reason} Only the planner can release it; leave ${job.code} where it is.`);
 
   const i = verdict.stepIndex;

@@ -4,6 +4,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { Job, Lot, Scan } from "../../server/models";
 import { buildTestApp } from "../support/app";
 import { ensureReferenceData } from "../support/ordering";
+import { buildLotAtVerify } from "../support/quality";
 import { buildHeat, buildReleasedOrder, completeData, customer, designs, scanThrough, staff, type Agent } from "../support/shop-floor";
 
 const app = buildTestApp();
@@ -286,5 +287,22 @@ describe("GET /api/jobs/:id and the lookup by code", { timeout: 30_000 }, () => 
     const job = (await Job.findByPk(jobs[0].id))!;
     expect(job.currentStep).toBe("anneal");
     expect(completeData(job, "form").drawStagesDone).toBe(job.routing[2].drawStages);
+  });
+
+  it("verify is started by a scan but completed only by quality's decision on the lot (409 for a scan, even by QA)", async () => {
+    const { jobs } = await buildLotAtVerify(app, { quantity: 5 });
+    const job = jobs.find((j) => j.routing[j.stepIndex]?.key === "verify")!;
+    for (const role of ["operator", "qa"] as const) {
+      const who = await staff(app, role);
+      const scan = (action: "start" | "complete") => who.agent.post("/api/scans").set("X-CSRF-Token", who.csrf).send({ code: job.code, step: "verify", action, station: "test bench" });
+      expect([200, 201]).toContain((await scan("start")).status);
+      const refused = await scan("complete");
+      expect(refused.status).toBe(409);
+      expect(refused.body.error.code).toBe("VERIFY_BY_INSPECTION");
+      expect(refused.body.error.message).toMatch(/when quality accepts lot/);
+    }
+    await job.reload();
+    expect(job.routing[job.stepIndex].key).toBe("verify");
+    expect(await Scan.count({ where: { jobId: job.id, step: "verify", action: "complete" } })).toBe(0);
   });
 });

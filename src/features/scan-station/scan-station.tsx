@@ -343,9 +343,13 @@ function JobAtStation({ job, projection, onMove }: { job: JobJson; projection: R
               {c}
             </StatusNote>
           ))}
-          <Button className="min-h-20 w-full text-h3" disabled={!job.abilities.scan} onClick={() => onMove(job, next.step, next.action)}>
-            {next.action === "start" ? "Start" : "Complete"} {stepLabels[next.step].toLowerCase()}
-          </Button>
+          {next.step === "verify" && next.action === "complete" ? (
+            <p className="text-lead" data-testid="verify-by-quality">Verify completes by itself when quality accepts the lot from its measured sample: leave {job.code} with quality.</p>
+          ) : (
+            <Button className="min-h-20 w-full text-h3" disabled={!job.abilities.scan} onClick={() => onMove(job, next.step, next.action)}>
+              {next.action === "start" ? "Start" : "Complete"} {stepLabels[next.step].toLowerCase()}
+            </Button>
+          )}
         </div>
       ) : (
         <StatusNote tone="ok" word="Finished">
