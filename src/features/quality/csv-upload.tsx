@@ -18,7 +18,7 @@ export function CsvUpload({ lotId }: { lotId: string }) {
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="Upload readings">
       <p className="text-meta text-flux-700">
-        A CSV with a header row: <code className="font-mono">{csvColumns.join(",")}</code> (the last two optional). Fields may carry their unit: 100 uT, 0.1 mT, 1 G, 5 mG, 80 A/m; a bare number is µT. The instrument is named as in the register.
+        A CSV with a header row: <code className="font-mono break-all">{csvColumns.join(",")}</code> (the last two optional). Fields may carry their unit: 100 uT, 0.1 mT, 1 G, 5 mG, 80 A/m; a bare number is µT. The instrument is named as in the register.
       </p>
       <label className="block font-semibold text-flux-900" htmlFor="readings-file">File of readings</label>
       <input id="readings-file" type="file" accept=".csv,text/csv" onChange={(e) => setFile(e.target.files?.[0] ?? null)} className="block text-body" />
