@@ -47,6 +47,8 @@ function CalibrationPanel({ i }: { i: InstrumentDetailJson }) {
     setOutcome(message);
     setOpen(null);
   };
+  // the laboratory it is at, or the one that calibrated it last
+  const lastLaboratory = i.calibrationLaboratory ?? i.calibrations.find((c) => c.laboratory)?.laboratory ?? null;
   const toggle = (action: Exclude<Action, null>) => {
     setOutcome(null);
     setOpen((o) => (o === action ? null : action));
@@ -88,7 +90,7 @@ function CalibrationPanel({ i }: { i: InstrumentDetailJson }) {
           <section className="space-y-3 border-t border-nickel-200 pt-4" aria-labelledby="back-heading">
             <h3 id="back-heading" className="font-semibold text-flux-900">Back from calibration</h3>
             <p className="text-meta text-flux-700">Upload the laboratory&apos;s new certificate and the next due date; the instrument goes back into service.</p>
-            <CalibrationRecordForm instrument={i} returning onDone={done} />
+            <CalibrationRecordForm instrument={i} returning lastLaboratory={lastLaboratory} onDone={done} />
           </section>
         )}
 
@@ -109,14 +111,14 @@ function CalibrationPanel({ i }: { i: InstrumentDetailJson }) {
             {open === "send" && (
               <section className="space-y-3 rounded-md border border-nickel-200 p-4" aria-labelledby="send-heading">
                 <h3 id="send-heading" className="font-semibold text-flux-900">Send out for calibration</h3>
-                <SendOutForm instrument={i} onDone={done} />
+                <SendOutForm instrument={i} lastLaboratory={lastLaboratory} onDone={done} />
               </section>
             )}
             {open === "record" && (
               <section className="space-y-3 rounded-md border border-nickel-200 p-4" aria-labelledby="record-heading">
                 <h3 id="record-heading" className="font-semibold text-flux-900">Record a calibration done here</h3>
                 <p className="text-meta text-flux-700">A calibration done in place, with its certificate; it sets the next due date.</p>
-                <CalibrationRecordForm instrument={i} returning={false} onDone={done} />
+                <CalibrationRecordForm instrument={i} returning={false} lastLaboratory={lastLaboratory} onDone={done} />
               </section>
             )}
           </div>

@@ -117,7 +117,7 @@ function Register() {
                 ),
               },
               { key: "kind", header: "Kind", cell: (i) => instrumentKindLabels[i.kind] },
-              { key: "serial", header: "Serial", className: "font-mono break-all", cell: (i) => i.serialNumber ?? "—" },
+              { key: "serial", header: "Serial", className: "font-mono whitespace-nowrap", cell: (i) => i.serialNumber ?? "—" },
               { key: "make", header: "Make", cell: (i) => i.make ?? "—" },
               { key: "figures", header: "Figures or range", cell: (i) => figuresWords(i) },
               { key: "status", header: "Status", cell: (i) => instrumentStatusLabels[i.status] },

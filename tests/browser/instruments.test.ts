@@ -64,7 +64,7 @@ describe("the instrument register", () => {
     await page.waitForURL(/kind=search-coil/);
     await expect.poll(() => row(page, "Helmholtz set HX-500").count()).toBe(0);
     await row(page, "Search coil SC-50").waitFor();
-    await page.getByLabel("Only those usable today").check();
+    await page.getByLabel("Only those usable today").click(); // the box follows the address, which changes a moment after the click
     await page.waitForURL(/usable=true/);
     await row(page, "Search coil SC-50").waitFor({ state: "detached" });
     await row(page, "Search coil SC-200").waitFor();
@@ -154,6 +154,14 @@ describe("the instrument register", () => {
     await record.waitFor();
     expect(await record.textContent()).toContain(nextDue);
     await h.shot(page, "instrument-back-from-calibration");
+
+    // a correction of its details, recorded in the history
+    await page.getByRole("button", { name: "Correct the details" }).click();
+    await page.getByLabel("Make and model").fill("single-axis fluxgate, bench unit");
+    await page.getByRole("button", { name: "Save the corrections" }).click();
+    await page.getByRole("status").filter({ hasText: "The corrections are saved" }).waitFor();
+    await page.getByText("single-axis fluxgate, bench unit").first().waitFor();
+    await page.getByTestId("instrument-history").getByText("Details changed: make and model").waitFor();
 
     // the certificate downloads as the very file uploaded
     const [download] = await Promise.all([page.waitForEvent("download"), record.getByRole("link", { name: /calibration-certificate\.pdf/ }).click()]);

@@ -32,9 +32,9 @@ function issuesOf(result: { success: boolean; error?: { issues: Array<{ path: Pr
  * Sending an instrument to the laboratory: where and when, then a confirmation (it cannot be used
  * for measurements until it is back with a new certificate).
  */
-export function SendOutForm({ instrument, onDone }: { instrument: InstrumentJson; onDone: (message: string) => void }) {
+export function SendOutForm({ instrument, lastLaboratory, onDone }: { instrument: InstrumentJson; lastLaboratory: string | null; onDone: (message: string) => void }) {
   const send = useSendToCalibration();
-  const [laboratory, setLaboratory] = useState(instrument.calibrationLaboratory ?? "");
+  const [laboratory, setLaboratory] = useState(lastLaboratory ?? "");
   const [sentOn, setSentOn] = useState(utcDay(new Date()));
   const [note, setNote] = useState("");
   const [asking, setAsking] = useState(false);
@@ -90,13 +90,13 @@ const recordFields = ["calibratedOn", "calibrationDue", "laboratory", "certifica
  * A calibration with its certificate (a PDF or an image): back from the laboratory (`returning`)
  * or done in place. Both set the next due date.
  */
-export function CalibrationRecordForm({ instrument, returning, onDone }: { instrument: InstrumentJson; returning: boolean; onDone: (message: string) => void }) {
+export function CalibrationRecordForm({ instrument, returning, lastLaboratory, onDone }: { instrument: InstrumentJson; returning: boolean; lastLaboratory: string | null; onDone: (message: string) => void }) {
   const back = useReturnFromCalibration();
   const inPlace = useRecordCalibration();
   const mutation = returning ? back : inPlace;
   const [calibratedOn, setCalibratedOn] = useState(utcDay(new Date()));
   const [calibrationDue, setCalibrationDue] = useState("");
-  const [laboratory, setLaboratory] = useState(instrument.calibrationLaboratory ?? "");
+  const [laboratory, setLaboratory] = useState(lastLaboratory ?? "");
   const [certificateNumber, setCertificateNumber] = useState("");
   const [file, setFile] = useState<File | null>(null);
   const [problems, setProblems] = useState<{ fields: Problems; message: string | null }>({ fields: {}, message: null });

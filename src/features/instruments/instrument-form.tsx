@@ -144,12 +144,12 @@ export function InstrumentForm({ instrument, onSaved, onCancel }: { instrument?:
           </SelectField>
         )}
         <TextField label="Name" hint="As the readings and the CSV name it, e.g. Search coil SC-300" error={errors.name?.message} {...register("name")} />
-        <TextField label="Serial number (optional)" error={errors.serialNumber?.message} {...register("serialNumber")} />
-        <TextField label="Make and model (optional)" error={errors.make?.message} {...register("make")} />
-        <TextField label="Range (optional)" hint="What it covers, in words: ±100 µT, DC to 1 kHz" error={errors.range?.message} {...register("range")} />
         {shown.turns && <ControlledUnitInput control={control} errors={errors} name="turns" label={shown.turns} scale={plainScale} />}
         {shown.area && <ControlledUnitInput control={control} errors={errors} name="area_mm2" label="Area of one turn" scale={squareMillimetres} hint="The mean area the turns enclose" />}
         {shown.radius && <ControlledUnitInput control={control} errors={errors} name="radius_mm" label="Coil radius" scale={millimetres} hint="Equal to the spacing of the pair" />}
+        <TextField label="Serial number (optional)" error={errors.serialNumber?.message} {...register("serialNumber")} />
+        <TextField label="Make and model (optional)" error={errors.make?.message} {...register("make")} />
+        <TextField label="Range (optional)" hint="What it covers, in words: ±100 µT, DC to 1 kHz" error={errors.range?.message} {...register("range")} />
         <TextField label={editing ? "Calibration due (a correction)" : "Calibration due"} type="date" hint="The last day the current certificate covers" error={errors.calibrationDue?.message} {...register("calibrationDue")} />
         {!editing && <TextField label="Last calibrated on (optional)" type="date" error={errors.lastCalibratedOn?.message} {...register("lastCalibratedOn")} />}
         <div className="sm:col-span-2">
