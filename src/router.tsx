@@ -1,6 +1,6 @@
 import type { ComponentType } from "react";
 import type { QueryClient } from "@tanstack/react-query";
-import { createBrowserRouter, type LoaderFunction, type RouteObject, type ShouldRevalidateFunction } from "react-router-dom";
+import { createBrowserRouter, redirect, type LoaderFunction, type RouteObject, type ShouldRevalidateFunction } from "react-router-dom";
 import { authKeys, meQueryOptions } from "./api/auth";
 import { setUnauthorizedHandler } from "./api/client";
 import { queryClient } from "./api/query-client";
@@ -88,6 +88,9 @@ export const routes: RouteObject[] = [
           { path: paths.shipping.path, lazy: page(() => import("./pages/shipping")) },
           { path: paths.qualityLots.path, lazy: page(() => import("./pages/quality-lots")) },
           { path: paths.qualityLot.path, lazy: page(() => import("./pages/quality-lot")) },
+          { path: paths.quality.path, loader: () => redirect(paths.qualityLots.href()) },
+          { path: paths.instruments.path, lazy: page(() => import("./pages/quality-instruments")) },
+          { path: paths.instrument.path, lazy: page(() => import("./pages/quality-instrument")) },
           { path: paths.certificates.path, lazy: page(() => import("./pages/certificates")) },
           { path: paths.verify.path, lazy: page(() => import("./pages/verify")) },
           { path: paths.notFound.path, element: <NotFoundContent /> },

@@ -57,6 +57,11 @@ export function presentCalibration(c: InstrumentCalibration, people: Map<string,
   };
 }
 
+// the fields of a correction as the instrument's page names them
+const fieldWords: Record<string, string> = {
+  name: "name", serialNumber: "serial number", make: "make and model", range: "range", turns: "turns", area_mm2: "area of one turn", radius_mm: "coil radius", notes: "notes",
+};
+
 function historyDetail(e: Event): string | null {
   const d = e.data as Record<string, unknown>;
   switch (e.action) {
@@ -66,7 +71,7 @@ function historyDetail(e: Event): string | null {
     case "instrument.calibration-recorded":
       return typeof d.calibrationDue === "string" ? `calibrated ${String(d.calibratedOn)}, next due ${d.calibrationDue}` : null;
     case "instrument.updated":
-      return Array.isArray(d.fields) ? `changed: ${d.fields.join(", ")}` : null;
+      return Array.isArray(d.fields) ? d.fields.map((f) => (f === "calibrationDue" && typeof d.calibrationDue === "string" ? `calibration due date, now ${d.calibrationDue}` : (fieldWords[String(f)] ?? String(f)))).join(", ") : null;
     case "instrument.reminder-sent":
       return typeof d.calibrationDue === "string" ? `due ${d.calibrationDue}` : null;
     default:

@@ -1,10 +1,10 @@
 import { Op, type Transaction } from "sequelize";
-import { daysUntilDue, utcDay } from "../../shared/quality/instruments";
+import { CALIBRATION_REMINDER_DAYS, daysUntilDue, utcDay } from "../../shared/quality/instruments";
 import type { Mailer } from "../jobs/mailer";
 import { Instrument, User, recordEvent } from "../models";
 import { calibrationDueMail } from "./mail-texts";
 
-export const CALIBRATION_REMINDER_DAYS = 14;
+export { CALIBRATION_REMINDER_DAYS };
 
 /**
  * Instruments in service whose calibration falls due within 14 days (or has already passed) get one
@@ -38,7 +38,7 @@ export async function instrumentDueReminder(props: { mailer: Mailer; appUrl: str
       await props.mailer.enqueue(
         calibrationDueMail({
           to: people.map((p) => p.email).join(", "), instrumentName: instrument.name, serialNumber: instrument.serialNumber, calibrationDue: instrument.calibrationDue,
-          daysLeft: daysUntilDue(instrument, today), link: `${props.appUrl}/instruments/${instrument.id}`,
+          daysLeft: daysUntilDue(instrument, today), link: `${props.appUrl}/quality/instruments/${instrument.id}`,
         }),
         transaction,
       );

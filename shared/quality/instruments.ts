@@ -2,6 +2,9 @@
 // calibration) and its calibration is not past due. The due date is the last day it may be used.
 // Days are calendar days written YYYY-MM-DD (UTC), compared as text.
 
+/** A reminder mail goes out this many days before a due date; the register flags the same window. */
+export const CALIBRATION_REMINDER_DAYS = 14;
+
 export type InstrumentStatus = "in-service" | "in-calibration";
 
 export interface InstrumentCalibrationState {

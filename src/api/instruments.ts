@@ -1,4 +1,5 @@
 import { queryOptions, useMutation, useQueryClient } from "@tanstack/react-query";
+import { instrumentKinds } from "../../shared/schemas/instrument";
 import type {
   CalibrationRecordInput, InstrumentCreateInput, InstrumentDetailJson, InstrumentJson, InstrumentKind, InstrumentSendInput, InstrumentUpdateInput,
 } from "../../shared/schemas/instrument";
@@ -10,6 +11,12 @@ export interface InstrumentFilters {
   kind?: InstrumentKind;
   /** only those usable today (in service, not past due) */
   usable?: boolean;
+}
+
+/** The register's filters as its address holds them (unknown values are ignored): ?kind=search-coil&usable=true. */
+export function instrumentFiltersFrom(search: URLSearchParams): InstrumentFilters {
+  const kind = instrumentKinds.find((k) => k === search.get("kind"));
+  return { ...(kind ? { kind } : {}), ...(search.get("usable") === "true" ? { usable: true } : {}) };
 }
 
 export const instrumentKeys = {

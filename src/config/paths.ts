@@ -93,6 +93,19 @@ export const paths = {
   shipping: { path: "/floor/shipping", href: () => "/floor/shipping" },
   qualityLots: { path: "/quality/lots", href: (stage?: string) => (stage && stage !== "to-measure" ? `/quality/lots?stage=${encode(stage)}` : "/quality/lots") },
   qualityLot: { path: "/quality/lots/:id", href: (id: string) => `/quality/lots/${encode(id)}` },
+  // the quality pages as one place (the planner's menu has one link to them)
+  quality: { path: "/quality", href: () => "/quality" },
+  instruments: {
+    path: "/quality/instruments",
+    href: (filters?: { kind?: string; usable?: boolean }) => {
+      const search = new URLSearchParams();
+      if (filters?.kind) search.set("kind", filters.kind);
+      if (filters?.usable) search.set("usable", "true");
+      const query = search.toString();
+      return query ? `/quality/instruments?${query}` : "/quality/instruments";
+    },
+  },
+  instrument: { path: "/quality/instruments/:id", href: (id: string) => `/quality/instruments/${encode(id)}` },
   certificates: { path: "/certificates", href: () => "/certificates" },
   verify: { path: "/verify/:digest?", href: (digest?: string) => (digest ? `/verify/${encode(digest)}` : "/verify") },
   notFound: { path: "*", href: () => "/not-found" },

@@ -17,6 +17,7 @@ import { paths } from "../config/paths";
 import { ClassFitPanel } from "../features/calibration/class-fit-panel";
 import { classWords, when } from "../features/calibration/words";
 import { requireRole, warm } from "../lib/guards";
+import { QualityNav } from "../features/quality/quality-nav";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   await requireRole(queryClient, request, ["qa", "admin"]);
@@ -49,6 +50,7 @@ export function Component() {
   const data = overview.data;
   return (
     <>
+      <QualityNav />
       <PageHeader
         eyebrow="Quality · calibration"
         title="Predictions calibrated by measured lots"

@@ -12,6 +12,7 @@ import { ControlChartPair } from "../features/calibration/control-chart";
 import { classWords, db, day } from "../features/calibration/words";
 import { requireRole, warm } from "../lib/guards";
 import { RUN_RULES } from "../../shared/calibration/control-chart";
+import { QualityNav } from "../features/quality/quality-nav";
 
 export const makeLoader = (queryClient: QueryClient) => async ({ request }: LoaderFunctionArgs) => {
   await requireRole(queryClient, request, ["qa", "admin"]);
@@ -25,6 +26,7 @@ export function Component() {
   const charts = useQuery(controlChartsQueryOptions);
   return (
     <>
+      <QualityNav />
       <PageHeader
         eyebrow="Quality · control charts"
         title="Attenuation margin, lot by lot"

@@ -8,6 +8,7 @@ import { ResponsiveTable } from "../components/ui/responsive-table";
 import { Loading } from "../components/ui/spinner";
 import { paths } from "../config/paths";
 import { requireRole, warm } from "../lib/guards";
+import { QualityNav } from "../features/quality/quality-nav";
 
 const stages: Array<{ value: QueueStage; label: string }> = [
   { value: "to-measure", label: "To measure" },
@@ -38,6 +39,7 @@ export function Component() {
   const pages = list.data ? Math.max(1, Math.ceil(list.data.total / list.data.pageSize)) : 1;
   return (
     <>
+      <QualityNav />
       <PageHeader title="Lots to inspect" lead="Annealed lots wait here for their sample to be measured; accepted lots for their certificate." />
       <nav aria-label="Lot stages" className="mb-4 flex flex-wrap gap-2">
         {stages.map((s) => (

@@ -1,6 +1,6 @@
 import type { Page } from "playwright-core";
 import { describe, expect, it } from "vitest";
-import { Design, Order, Quote, User } from "../../server/models";
+import { Design, Instrument, Order, Quote, User } from "../../server/models";
 import { DEMO_PASSWORD, useBrowser } from "../support/browser";
 
 // Every page there is, as each role finds it, at the sizes its people use: a laptop 1366 × 900,
@@ -83,6 +83,8 @@ const PAGES: Record<Role, Array<{ path: string | ((page: Page) => Promise<string
     { path: "/quality/lots?stage=all", name: "quality-lots", ready: listOrEmpty("quality-lots", /no lots at this stage/i) },
     { path: firstQualityLot, name: "quality-lot", ready: (p) => p.getByTestId("sample-progress").or(p.getByText(/acceptance is discontinued/i)).first().waitFor() },
     { path: "/certificates", name: "certificates", ready: listOrEmpty("certificates-table", /no certificates yet/i) },
+    { path: "/quality/instruments", name: "instruments", ready: (p) => p.getByTestId("instruments").waitFor() },
+    { path: async () => `/quality/instruments/${(await Instrument.findOne({ where: { name: "Helmholtz set HX-500" } }))!.id}`, name: "instrument-helmholtz", ready: (p) => p.getByTestId("instrument-history").waitFor() },
   ],
   admin: [
     { path: "/", name: "home", ready: (p) => p.getByRole("heading", { level: 1, name: /welcome/i }).waitFor() },
@@ -98,6 +100,7 @@ const PAGES: Record<Role, Array<{ path: string | ((page: Page) => Promise<string
     { path: "/find-a-design", name: "find-a-design", ready: (p) => p.getByTestId("no-search-yet").waitFor() },
     { path: "/quality/calibration", name: "calibration", ready: (p) => p.getByTestId("latest-run").waitFor() },
     { path: "/quality/control-charts", name: "control-charts", ready: (p) => p.locator("[data-group]").first().waitFor() },
+    { path: "/quality/instruments", name: "instruments", ready: (p) => p.getByTestId("instruments").waitFor() },
     { path: "/orders", name: "orders", ready: (p) => p.getByTestId("orders-table").waitFor() },
     { path: async () => `/orders/${await demoOrderId("paid")}`, name: "order-paid", ready: (p) => p.getByTestId("refund-form").waitFor() },
     { path: "/quotes", name: "quotes", ready: (p) => p.getByTestId("quotes-table").waitFor() },

@@ -75,6 +75,13 @@ describe("navigation per role", () => {
     expect(labels({ role: "admin" })).toEqual(expect.arrayContaining(["Planning", "Users", "Account"]));
   });
 
+  it("the instrument register: its own link for the quality inspector, the planner's one quality link leads to it", () => {
+    expect(labels({ role: "qa" })).toEqual(expect.arrayContaining(["Lots to inspect", "Instruments", "Calibration", "Control charts"]));
+    expect(navItemsFor({ role: "admin" }).find((i) => i.label === "Quality")?.to).toBe(paths.quality.href());
+    expect(labels({ role: "admin" })).not.toContain("Control charts");
+    for (const role of ["customer", "operator"] as const) expect(labels({ role })).not.toContain("Instruments");
+  });
+
   it("shows user management and sign-out-only links to the right people", () => {
     for (const role of ["customer", "operator", "qa"] as const) expect(labels({ role })).not.toContain("Users");
     for (const role of ["customer", "operator", "qa", "admin"] as const) expect(labels({ role })).not.toContain("Sign in");

@@ -28,8 +28,10 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
   ];
   // the design advisor: customers start there, the planner answers their questions with it
   const findADesign: NavItem = { label: "Find a design", to: paths.findADesign.href() };
-  // calibrated predictions and control charts: the quality inspectors' and the planner's
+  // the instrument register, calibrated predictions and control charts: the quality inspectors'
+  // (one link each); the planner has one link to the quality pages, which link to each other
   const quality: NavItem[] = [
+    { label: "Instruments", to: paths.instruments.href() },
     { label: "Calibration", to: paths.calibration.href() },
     { label: "Control charts", to: paths.controlCharts.href() },
   ];
@@ -37,7 +39,7 @@ export function navItemsFor(user: Pick<User, "role"> | null): NavItem[] {
     case "customer":
       return [home, findADesign, ...tools, { label: "Designs", to: paths.designs.href() }, { label: "Quotes", to: paths.quotes.href() }, { label: "Orders", to: paths.orders.href() }, { label: "Certificates", to: paths.certificates.href() }, account];
     case "admin":
-      return [home, { label: "Orders", to: paths.orders.href() }, ...floorFor("admin"), { label: "Lots to inspect", to: paths.qualityLots.href() }, ...quality, findADesign, ...tools, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
+      return [home, { label: "Orders", to: paths.orders.href() }, ...floorFor("admin"), { label: "Quality", to: paths.quality.href() }, findADesign, ...tools, { label: "Users", to: paths.adminUsers.href() }, { label: "Shop rates", to: paths.adminShopRates.href() }, { label: "Materials", to: paths.adminMaterials.href() }, account];
     case "qa":
       return [home, { label: "Lots to inspect", to: paths.qualityLots.href() }, { label: "Certificates", to: paths.certificates.href() }, ...floorFor("qa"), ...quality, ...tools, account];
     case "operator":

@@ -16,6 +16,7 @@ const flatBlank: Area = { title: "Flat blank", text: "The blank a can or box is 
 const findADesign: Area = { title: "Find a design", text: "From the space, the field and the attenuation you need to the designs the shop can make that meet it, priced, with the one we would choose.", link: { to: paths.findADesign.href(), label: "Find a design" } };
 const calibration: Area = { title: "Calibrated predictions", text: "Each kind of shield fitted to the shop's measured lots, and how much closer that brings the predictions.", link: { to: paths.calibration.href(), label: "See the calibration" } };
 const controlCharts: Area = { title: "Control charts", text: "Each lot's attenuation margin per alloy and route, the run rules and the process capability.", link: { to: paths.controlCharts.href(), label: "See the charts" } };
+const instruments: Area = { title: "Instruments", text: "The test instruments, their calibration certificates and due dates: which are out, overdue or due soon.", link: { to: paths.instruments.href(), label: "Open the instruments" } };
 const account: Area = { title: "Your account", text: "Your name as others see it, and your password.", link: { to: paths.account.href(), label: "Open your account" } };
 
 // What each role's home holds: the pages that exist first, with their links; then, as plain notes,
@@ -52,8 +53,8 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       designCheck,
       flatBlank,
       account,
-      { title: "Lots waiting for inspection", text: "Sampling plan per lot, measurements entered so far, accept or reject." },
-      { title: "Instruments and calibration", text: "Which instruments are in calibration and which are due or overdue." },
+      { title: "Lots waiting for inspection", text: "Sampling plan per lot, measurements entered so far, accept or reject.", link: { to: paths.qualityLots.href(), label: "Open the lots" } },
+      instruments,
       calibration,
       controlCharts,
     ],
@@ -66,6 +67,7 @@ const plans: Record<Role, { lead: string; areas: Area[]; comingWith: string }> =
       { title: "Materials", text: "The material library the predictions and blanks compute with, each value with its source.", link: { to: paths.adminMaterials.href(), label: "Edit materials" } },
       { title: "Users", text: "Invite customers and staff, change roles, deactivate, and see who has access.", link: { to: paths.adminUsers.href(), label: "Manage users" } },
       findADesign,
+      instruments,
       calibration,
       controlCharts,
       designCheck,

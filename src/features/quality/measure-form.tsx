@@ -1,4 +1,5 @@
 import { useRef, useState, type FormEvent } from "react";
+import { Link } from "react-router-dom";
 import type { InstrumentJson } from "../../api/instruments";
 import { blamesInputs, type ApiError } from "../../api/client";
 import { useRecordMeasurement } from "../../api/quality";
@@ -8,6 +9,7 @@ import { StatusNote } from "../../components/ui/status-note";
 import { quantityScale, unitOptions, UnitInput } from "../../components/ui/unit-input";
 import { fieldUnits, type FieldUnit } from "../../../shared/units";
 import type { LotQualityJson } from "../../../shared/schemas/quality";
+import { paths } from "../../config/paths";
 import { nextSerial } from "./serials";
 
 const probeKinds = new Set(["fluxgate-probe", "gaussmeter-probe", "search-coil"]);
@@ -54,7 +56,7 @@ export function MeasureForm({ lot, instruments }: { lot: LotQualityJson; instrum
         People with pacemakers or other implants keep out of the test area while the coils are energised. ICNIRP (2010) reference levels at 50/60 Hz: 1 mT for workers, 0.2 mT for the public.
         {highField && " The applied field set here is above the public level: keep visitors out of the area."}
       </StatusNote>
-      {usable.length === 0 && <StatusNote tone="danger">No probe or search coil is in calibration: calibrate one on the instruments register before measuring.</StatusNote>}
+      {usable.length === 0 && <StatusNote tone="danger">No probe or search coil is in calibration: calibrate one on the <Link className="underline" to={paths.instruments.href()}>instruments register</Link> before measuring.</StatusNote>}
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         <TextField label="Serial" name="serial" value={serial} onChange={(e) => setSerial(e.target.value)} error={fields.serial} autoComplete="off" />
         <UnitInput label="Field inside" name="insideField" value={inside} onValueChange={setInside} inputRef={insideRef} scale={quantityScale("flux", insideUnit)} error={fields.insideField_uT}
