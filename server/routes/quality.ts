@@ -25,6 +25,8 @@ import { loadLotInspection, lotProgress, lotSamplingPlan, notAnnealedReason, typ
 import { materialCatalog } from "../services/materialCatalog";
 import { measurementRecorder } from "../services/measurementRecorder";
 import { nonconformanceDecider } from "../services/nonconformanceDecider";
+import { referenceDataChanged } from "../services/referenceData";
+import { cachedVerification, rememberVerification } from "../services/verificationCache";
 
 const MEASUREMENTS = `
 select m.id, m.serial, m.round, m.frequency_hz, m.applied_field_ut, m.inside_field_ut, m.orientation, m.probe_position, m.instrument_id, i.name as instrument_name, i.kind as instrument_kind,
@@ -51,17 +53,23 @@ async function inspectLot(sequelize: Sequelize, id: unknown, actor: Actor): Prom
 /** Verification of issued certificates: public, read-only, before the session (no session row). */
 export function verifyPublicRouter({ sequelize, publicLimit }: AppDeps): Router {
   const router = Router();
-  const answer = async (column: "digest" | "pdf_sha256", value: string) => {
+  /** The answer's JSON: kept per digest (see verificationCache.ts), read from the database once. */
+  const answer = async (column: "digest" | "pdf_sha256", value: string): Promise<string> => {
     if (!DIGEST_PATTERN.test(value)) throw ValidationError({ digest: "a digest is 64 hexadecimal digits (SHA-256)" });
+    const key = `${column}:${value}`;
+    const kept = cachedVerification(key);
+    if (kept !== undefined) return kept;
     const [row] = await sequelize.query<VerificationRow>(`${VERIFY} where c.${column} = $1`, { bind: [value], type: QueryTypes.SELECT });
     if (!row) throw new AppError(404, "NOT_FOUND", "No certificate issued here has this digest: it is not one of ours, or it has been altered.");
-    return presentVerification(row);
+    const json = JSON.stringify(presentVerification(row));
+    rememberVerification(key, json);
+    return json;
   };
   router.get("/verify/file/:sha256", publicLimit, async (req, res) => {
-    res.set("Cache-Control", "no-store").json(await answer("pdf_sha256", String(req.params.sha256).toLowerCase()));
+    res.set("Cache-Control", "no-store").type("application/json").send(await answer("pdf_sha256", String(req.params.sha256).toLowerCase()));
   });
   router.get("/verify/:digest", publicLimit, async (req, res) => {
-    res.set("Cache-Control", "no-store").json(await answer("digest", String(req.params.digest).toLowerCase()));
+    res.set("Cache-Control", "no-store").type("application/json").send(await answer("digest", String(req.params.digest).toLowerCase()));
   });
   return router;
 }
@@ -220,6 +228,8 @@ export function qualityRouter(deps: AppDeps): Router {
       if (!current) throw NotFoundError("certificate");
       return certificateReviser({ actor: req.user!, certificate: current, reason: input.reason, sequelize, appUrl: config.appUrl, mailer, ip: ip(req), transaction });
     });
+    // the revision it supersedes is no longer current: every process's public answers forget it
+    await referenceDataChanged(sequelize, "certificates");
     res.status(201).json({ id: certificate.id, digest: certificate.digest, number: certificate.number, revision: certificate.revision, pdfUrl: `/api/certificates/${certificate.id}.pdf`, verifyUrl: `/verify/${certificate.digest}` });
   });
 

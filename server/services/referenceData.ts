@@ -4,13 +4,14 @@ import type { Sequelize } from "sequelize";
 import { invalidateBuildModel } from "./buildModelCatalog";
 import { invalidateMaterialCatalog } from "./materialCatalog";
 import { invalidateShopRatesCatalog } from "./shopRatesCatalog";
+import { invalidateVerifications } from "./verificationCache";
 
 // The reference data each process holds (materials, shop rates, the as-built model with the
-// calibration fits) is invalidated in every process of the shop's database when one of them
+// calibration fits, the public check's answers) is invalidated in every process of the shop's database when one of them
 // changes it: at once here, and through PostgreSQL's NOTIFY in the others. A calibration refit
 // run by another process's job worker then reaches this process's next prediction.
 
-export type ReferenceData = "materials" | "shop-rates" | "build-model";
+export type ReferenceData = "materials" | "shop-rates" | "build-model" | "certificates";
 
 const CHANNEL = "fluxwright_reference_data";
 
@@ -18,6 +19,7 @@ const invalidators: Record<ReferenceData, () => void> = {
   materials: invalidateMaterialCatalog,
   "shop-rates": invalidateShopRatesCatalog,
   "build-model": invalidateBuildModel,
+  certificates: invalidateVerifications,
 };
 
 const isReferenceData = (s: string): s is ReferenceData => Object.hasOwn(invalidators, s);

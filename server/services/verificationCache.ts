@@ -1,0 +1,15 @@
+// The public check's answers, serialised, per digest: an issued certificate never changes; only
+// whether it is the current revision does, when a revision supersedes it, and that clears this
+// in every process (referenceData.ts, "certificates"). Unknown digests are not kept.
+
+const MAX_ANSWERS = 1000;
+const answers = new Map<string, string>();
+
+export const cachedVerification = (key: string): string | undefined => answers.get(key);
+
+export function rememberVerification(key: string, json: string): void {
+  if (answers.size >= MAX_ANSWERS) answers.delete(answers.keys().next().value!); // oldest first
+  answers.set(key, json);
+}
+
+export const invalidateVerifications = (): void => answers.clear();
