@@ -54,14 +54,14 @@ async function inspectLot(sequelize: Sequelize, id: unknown, actor: Actor): Prom
 export function verifyPublicRouter({ sequelize, publicLimit }: AppDeps): Router {
   const router = Router();
   /** The answer's JSON: kept per digest (see verificationCache.ts), read from the database once. */
-  const answer = async (column: "digest" | "pdf_sha256", value: string): Promise<string> => {
+  const answer = async (column: "digest" | "pdf_sha256", value: string): Promise<Buffer> => {
     if (!DIGEST_PATTERN.test(value)) throw ValidationError({ digest: "a digest is 64 hexadecimal digits (SHA-256)" });
     const key = `${column}:${value}`;
     const kept = cachedVerification(key);
     if (kept !== undefined) return kept;
     const [row] = await sequelize.query<VerificationRow>(`${VERIFY} where c.${column} = $1`, { bind: [value], type: QueryTypes.SELECT });
     if (!row) throw new AppError(404, "NOT_FOUND", "No certificate issued here has this digest: it is not one of ours, or it has been altered.");
-    const json = JSON.stringify(presentVerification(row));
+    const json = Buffer.from(JSON.stringify(presentVerification(row)));
     rememberVerification(key, json);
     return json;
   };

@@ -3,11 +3,12 @@
 // in every process (referenceData.ts, "certificates"). Unknown digests are not kept.
 
 const MAX_ANSWERS = 1000;
-const answers = new Map<string, string>();
+// kept as bytes, so a repeat answer is sent without encoding its text again
+const answers = new Map<string, Buffer>();
 
-export const cachedVerification = (key: string): string | undefined => answers.get(key);
+export const cachedVerification = (key: string): Buffer | undefined => answers.get(key);
 
-export function rememberVerification(key: string, json: string): void {
+export function rememberVerification(key: string, json: Buffer): void {
   if (answers.size >= MAX_ANSWERS) answers.delete(answers.keys().next().value!); // oldest first
   answers.set(key, json);
 }
