@@ -13,7 +13,8 @@ import { Panel } from "../../components/ui/panel";
 import { QueryError } from "../../components/query-error";
 import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
-import { LateMark, Pager } from "./pager";
+import { LateMark } from "./late-mark";
+import { Pager } from "../../components/ui/list-controls";
 
 /** The URL's search for the board's job list: only what differs from the defaults. */
 export function boardSearch(f: Partial<JobFilters>): URLSearchParams {

@@ -17,7 +17,7 @@ import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { fixedUnitScale, UnitInput } from "../../components/ui/unit-input";
-import { Pager } from "./pager";
+import { Pager } from "../../components/ui/list-controls";
 
 export const waitingLotsFilters = () => lotFiltersFrom(new URLSearchParams({ status: "ready_for_anneal", sort: "dueDate", dir: "asc" }));
 export const runsFilters = (page = 1) => furnaceRunFiltersFrom(new URLSearchParams({ page: String(page) }));

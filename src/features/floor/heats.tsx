@@ -14,7 +14,7 @@ import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
 import { plainScale, quantityScale, UnitInput } from "../../components/ui/unit-input";
-import { Pager } from "./pager";
+import { Pager } from "../../components/ui/list-controls";
 
 const ACCEPT = "application/pdf,image/png,image/jpeg,image/tiff,image/webp,.pdf,.png,.jpg,.jpeg,.tif,.tiff,.webp";
 

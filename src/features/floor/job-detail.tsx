@@ -10,7 +10,7 @@ import { Panel } from "../../components/ui/panel";
 import { QueryError } from "../../components/query-error";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
-import { LateMark } from "./pager";
+import { LateMark } from "./late-mark";
 import { PrintLinks } from "./print-links";
 import { RoutingEditor } from "./routing-editor";
 

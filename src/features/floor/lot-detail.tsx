@@ -15,7 +15,7 @@ import { QueryError } from "../../components/query-error";
 import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
-import { LateMark } from "./pager";
+import { LateMark } from "./late-mark";
 import { PrintLinks } from "./print-links";
 
 export function LotDetail({ id }: { id: string }) {

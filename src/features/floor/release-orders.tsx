@@ -14,7 +14,8 @@ import { QueryError } from "../../components/query-error";
 import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
-import { LateMark, Pager } from "./pager";
+import { LateMark } from "./late-mark";
+import { Pager } from "../../components/ui/list-controls";
 
 export const paidOrdersFilters = () => orderFiltersFrom(new URLSearchParams({ status: "paid", sort: "requestedDate", dir: "asc" }));
 export const recentLotsFilters = (page = 1) => lotFiltersFrom(new URLSearchParams({ page: String(page) }));

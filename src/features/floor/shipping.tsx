@@ -13,7 +13,7 @@ import { Panel } from "../../components/ui/panel";
 import { QueryError } from "../../components/query-error";
 import { Loading } from "../../components/ui/spinner";
 import { StatusNote } from "../../components/ui/status-note";
-import { LateMark } from "./pager";
+import { LateMark } from "./late-mark";
 
 export const packedLotsFilters = () => lotFiltersFrom(new URLSearchParams({ status: "finished", sort: "dueDate", dir: "asc" }));
 
