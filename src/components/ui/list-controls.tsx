@@ -50,3 +50,68 @@ export function Pager({ page, pageSize, total, noun, label, onPage }: { page: nu
     </nav>
   );
 }
+
+const selectClass = "block min-h-touch rounded-md border border-nickel-400 bg-white px-3";
+
+/** A list's filter by one value (a status), "Any" first; the list's address keeps it. */
+export function ChoiceFilter({ id, label, value, options, onChange }: { id: string; label: string; value: string; options: ReadonlyArray<readonly [string, string]>; onChange: (value: string) => void }) {
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block font-semibold text-flux-900">
+        {label}
+      </label>
+      <select id={id} className={selectClass} value={value} onChange={(e) => onChange(e.target.value)}>
+        <option value="">Any</option>
+        {options.map(([key, text]) => (
+          <option key={key} value={key}>
+            {text}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+const latestFirst = (): [string, string] => [", highest or latest first", ", lowest or earliest first"];
+
+/** "Order by": each sortable column both ways, as one choice; the list's address keeps it. */
+export function SortChoice({ id, sorts, sort, dir, onChange, directions = latestFirst }: {
+  id: string;
+  sorts: Record<string, string>;
+  sort: string;
+  dir: string;
+  onChange: (sort: string, dir: string) => void;
+  /** what follows the column's name for descending and ascending */
+  directions?: (key: string) => [string, string];
+}) {
+  return (
+    <div className="space-y-1.5">
+      <label htmlFor={id} className="block font-semibold text-flux-900">
+        Order by
+      </label>
+      <select
+        id={id}
+        className={selectClass}
+        value={`${sort}:${dir}`}
+        onChange={(e) => {
+          const [s, d] = e.target.value.split(":");
+          onChange(s, d);
+        }}
+      >
+        {Object.entries(sorts).flatMap(([key, label]) => {
+          const [desc, asc] = directions(key);
+          return [
+            <option key={`${key}:desc`} value={`${key}:desc`}>
+              {label}
+              {desc}
+            </option>,
+            <option key={`${key}:asc`} value={`${key}:asc`}>
+              {label}
+              {asc}
+            </option>,
+          ];
+        })}
+      </select>
+    </div>
+  );
+}

@@ -7,7 +7,7 @@ import { designFiltersFrom, designsQueryOptions, useDeleteDesign, useDuplicateDe
 import { QueryError } from "../../components/query-error";
 import { Button, ButtonLink } from "../../components/ui/button";
 import { TextField } from "../../components/ui/field";
-import { Pager, SearchBox } from "../../components/ui/list-controls";
+import { Pager, SearchBox, SortChoice } from "../../components/ui/list-controls";
 import { Panel } from "../../components/ui/panel";
 import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
@@ -47,29 +47,7 @@ export function SavedDesigns() {
       }
     >
       <SearchBox label="Search by name" value={filters.q} onSearch={(q) => setParams({ q })}>
-        <div className="space-y-1.5">
-          <label htmlFor="design-sort" className="block font-semibold text-flux-900">
-            Order by
-          </label>
-          <select
-            id="design-sort"
-            className="block min-h-touch rounded-md border border-nickel-400 bg-white px-3"
-            value={`${filters.sort}:${filters.dir}`}
-            onChange={(e) => {
-              const [sort, dir] = e.target.value.split(":");
-              setParams({ sort, dir });
-            }}
-          >
-            {Object.entries(sorts).flatMap(([key, label]) => [
-              <option key={`${key}:desc`} value={`${key}:desc`}>
-                {label} {key === "name" ? "(Z–A)" : "(newest first)"}
-              </option>,
-              <option key={`${key}:asc`} value={`${key}:asc`}>
-                {label} {key === "name" ? "(A–Z)" : "(oldest first)"}
-              </option>,
-            ])}
-          </select>
-        </div>
+        <SortChoice id="design-sort" sorts={sorts} sort={filters.sort} dir={filters.dir} onChange={(sort, dir) => setParams({ sort, dir })} directions={(key) => (key === "name" ? [" (Z–A)", " (A–Z)"] : [" (newest first)", " (oldest first)"])} />
       </SearchBox>
 
       <div className="mb-4 flex flex-wrap items-center gap-3" role="group" aria-label="Compare designs">

@@ -4,7 +4,7 @@ import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type So
 import { orderStatuses, orderStatusLabels } from "../../../shared/schemas/order";
 import { orderFiltersFrom, ordersQueryOptions, type OrderSummaryJson } from "../../api/orders";
 import { QueryError } from "../../components/query-error";
-import { Pager, SearchBox } from "../../components/ui/list-controls";
+import { ChoiceFilter, Pager, SearchBox, SortChoice } from "../../components/ui/list-controls";
 import { Panel } from "../../components/ui/panel";
 import { ResponsiveTable, type Column } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
@@ -96,42 +96,8 @@ export function OrdersTable({ staff }: { staff: boolean }) {
   return (
     <Panel title={staff ? "All orders" : "Your organisation's orders"}>
       <SearchBox label={staff ? "Search by order, quote, purchase order or organisation" : "Search by order, quote or purchase order"} value={filters.q} onSearch={(q) => setParams({ q })}>
-        <div className="space-y-1.5">
-          <label htmlFor="order-status" className="block font-semibold text-flux-900">
-            Status
-          </label>
-          <select id="order-status" className="block min-h-touch rounded-md border border-nickel-400 bg-white px-3" value={filters.status} onChange={(e) => setParams({ status: e.target.value })}>
-            <option value="">Any</option>
-            {orderStatuses.map((s) => (
-              <option key={s} value={s}>
-                {orderStatusLabels[s]}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div className="space-y-1.5">
-          <label htmlFor="order-sort" className="block font-semibold text-flux-900">
-            Order by
-          </label>
-          <select
-            id="order-sort"
-            className="block min-h-touch rounded-md border border-nickel-400 bg-white px-3"
-            value={`${filters.sort}:${filters.dir}`}
-            onChange={(e) => {
-              const [sort, dir] = e.target.value.split(":");
-              setParams({ sort, dir });
-            }}
-          >
-            {Object.entries(sortLabels).flatMap(([key, label]) => [
-              <option key={`${key}:desc`} value={`${key}:desc`}>
-                {label}, highest or latest first
-              </option>,
-              <option key={`${key}:asc`} value={`${key}:asc`}>
-                {label}, lowest or earliest first
-              </option>,
-            ])}
-          </select>
-        </div>
+        <ChoiceFilter id="order-status" label="Status" value={filters.status} options={orderStatuses.map((s) => [s, orderStatusLabels[s]] as const)} onChange={(status) => setParams({ status })} />
+        <SortChoice id="order-sort" sorts={sortLabels} sort={filters.sort} dir={filters.dir} onChange={(sort, dir) => setParams({ sort, dir })} />
       </SearchBox>
       {orders.isPending ? (
         <Loading label="Loading orders…" />

@@ -4,7 +4,7 @@ import { quoteStatuses, quoteStatusLabels } from "../../../shared/schemas/quote"
 import { quoteFiltersFrom, quotesQueryOptions, type QuoteSummaryJson } from "../../api/quotes";
 import { QueryError } from "../../components/query-error";
 import { ButtonLink } from "../../components/ui/button";
-import { Pager, SearchBox } from "../../components/ui/list-controls";
+import { ChoiceFilter, Pager, SearchBox, SortChoice } from "../../components/ui/list-controls";
 import { Panel } from "../../components/ui/panel";
 import { ResponsiveTable } from "../../components/ui/responsive-table";
 import { Loading } from "../../components/ui/spinner";
@@ -33,42 +33,8 @@ export function QuotesList({ staff }: { staff: boolean }) {
       }
     >
       <SearchBox label={staff ? "Search by quote number, organisation or design" : "Search by quote number or design"} value={filters.q} onSearch={(q) => setParams({ q })}>
-        <div className="space-y-1.5">
-          <label htmlFor="quote-status" className="block font-semibold text-flux-900">
-            Status
-          </label>
-          <select id="quote-status" className="block min-h-touch rounded-md border border-nickel-400 bg-white px-3" value={filters.status} onChange={(e) => setParams({ status: e.target.value })}>
-            <option value="">Any</option>
-            {quoteStatuses.map((s) => (
-              <option key={s} value={s}>
-                {quoteStatusLabels[s]}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div className="space-y-1.5">
-          <label htmlFor="quote-sort" className="block font-semibold text-flux-900">
-            Order by
-          </label>
-          <select
-            id="quote-sort"
-            className="block min-h-touch rounded-md border border-nickel-400 bg-white px-3"
-            value={`${filters.sort}:${filters.dir}`}
-            onChange={(e) => {
-              const [sort, dir] = e.target.value.split(":");
-              setParams({ sort, dir });
-            }}
-          >
-            {Object.entries(sorts).flatMap(([key, label]) => [
-              <option key={`${key}:desc`} value={`${key}:desc`}>
-                {label}, highest or latest first
-              </option>,
-              <option key={`${key}:asc`} value={`${key}:asc`}>
-                {label}, lowest or earliest first
-              </option>,
-            ])}
-          </select>
-        </div>
+        <ChoiceFilter id="quote-status" label="Status" value={filters.status} options={quoteStatuses.map((s) => [s, quoteStatusLabels[s]] as const)} onChange={(status) => setParams({ status })} />
+        <SortChoice id="quote-sort" sorts={sorts} sort={filters.sort} dir={filters.dir} onChange={(sort, dir) => setParams({ sort, dir })} />
       </SearchBox>
       {quotes.isPending ? (
         <Loading label="Loading quotes…" />
