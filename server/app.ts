@@ -166,6 +166,15 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   station.get("/jobs/by-code/:code", ...stationChain, jobsRouter(deps));
   app.use("/api", station);
 
+  // Public reads with small fixed-shape answers (the sampling plan, the certificate check): the same
+  // page-security headers set from a list computed once, no request line (on-error still logs their
+  // failures), no body parser, no session; each route keeps `deps.publicLimit`. Everything else
+  // passes through untouched.
+  const publicReads = express.Router();
+  publicReads.use(["/sampling-plan", "/verify"], fixedHeaders(pageSecurity), quietLog(logger));
+  publicReads.use(samplingPublicRouter(deps), verifyPublicRouter(deps));
+  app.use("/api", publicReads);
+
   app.use(pageSecurity);
   const requestLog = pinoHttp({
     logger,
@@ -176,10 +185,10 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
   });
-  // The prediction and the sampling plan are asked for at every pause in typing: like health, no
+  // The prediction is asked for at every pause in typing: like health, no
   // request line (pino-http's per-request child logger costs more than the answer itself); on-error
   // still logs their failures.
-  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep", "/api/sampling-plan"]);
+  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep"]);
   app.use((req, res, next) => {
     if (!unlogged.has(req.path)) return requestLog(req, res, next);
     req.log = logger;
@@ -194,8 +203,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   api.use(blanksRouter(deps));
   api.use(materialsPublicRouter(deps));
   api.use(predictionsRouter(deps));
-  api.use(samplingPublicRouter(deps));
-  api.use(verifyPublicRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);

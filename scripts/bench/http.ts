@@ -17,7 +17,9 @@ const freePort = () =>
 
 export async function serve(kind: "app" | "bare"): Promise<{ url: string; child: ChildProcess }> {
   const port = await freePort();
-  const child = fork(path.join(here, "serve.ts"), [kind, String(port)], { execArgv: ["--import", "tsx"], stdio: "inherit" });
+  // BENCH_PROF=DIR writes the app server's CPU profile there when it stops (`node --cpu-prof`)
+  const profile = kind === "app" && process.env.BENCH_PROF ? ["--cpu-prof", `--cpu-prof-dir=${process.env.BENCH_PROF}`] : [];
+  const child = fork(path.join(here, "serve.ts"), [kind, String(port)], { execArgv: ["--import", "tsx", ...profile], stdio: "inherit" });
   await new Promise<void>((resolve, reject) => {
     child.once("message", () => resolve());
     child.once("exit", (code) => reject(new Error(`${kind} server exited with ${code}`)));

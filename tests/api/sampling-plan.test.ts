@@ -72,6 +72,17 @@ describe("GET /api/sampling-plan", () => {
     expect((await agent.get("/api/sampling-plan?lotSize=500&aql=1.0")).body).toMatchObject({ codeLetter: "H", sampleSize: 50 });
   });
 
+  it("the public reads (the plan, the certificate check, its 400 and 404) carry the same page-security headers as every other answer", async () => {
+    const general = await request(app).get("/api/materials");
+    const answers = [await get("?lotSize=500&aql=1.0"), await get("?lotSize=0&aql=1.0"), await request(app).get(`/api/verify/${"0".repeat(64)}`), await request(app).get("/api/verify/not-a-digest")];
+    expect(answers.map((a) => a.status)).toEqual([200, 400, 404, 400]);
+    for (const name of ["content-security-policy", "x-content-type-options", "x-frame-options", "referrer-policy", "cross-origin-opener-policy", "cross-origin-resource-policy", "strict-transport-security"]) {
+      for (const answer of answers) expect(answer.headers[name], name).toBe(general.headers[name]);
+    }
+    expect(general.headers["content-security-policy"]).toMatch(/default-src 'self'/);
+    for (const answer of answers) expect(answer.headers["x-powered-by"]).toBeUndefined();
+  });
+
   it("rate limited per address (429 in the error shape)", async () => {
     const limited = buildTestApp({ RATE_LIMIT_PUBLIC: "2" });
     const codes: number[] = [];
