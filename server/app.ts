@@ -43,7 +43,7 @@ import { settingsRouter } from "./routes/settings";
 import { webhooksRouter } from "./routes/webhooks";
 import { apiNotFound, onError } from "./middleware/on-error";
 import { createCsrf, publicRateLimit } from "./middleware/security";
-import { fixedHeaders, quietLog, stationSession } from "./middleware/station";
+import { fixedHeaders, quietLog, sessionUser } from "./middleware/short-chain";
 import { initModels } from "./models";
 import { authRouter } from "./routes/auth";
 import { blanksRouter } from "./routes/blanks";
@@ -151,20 +151,22 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const passport = createPassport();
   const csrf = createCsrf({ secret: config.SESSION_SECRET, secure });
 
-  // The scan station's two calls (a scan, the job looked up by its barcode), before the general
-  // chain: the same headers, session, user, CSRF and role checks with less work per request
-  // (middleware/station.ts); every other request on /api passes through untouched.
-  const stationChain = [
+  // The calls made most often by signed-in users (a scan and the job looked up by its barcode from
+  // the floor, a customer's new quote), before the general chain: the same headers, session, user,
+  // CSRF and role checks with less work per request (middleware/short-chain.ts); every other
+  // request on /api passes through untouched.
+  const shortChain = [
     fixedHeaders(pageSecurity),
     quietLog(logger),
     express.json({ limit: "200kb" }),
-    ...stationSession({ store, secret: config.SESSION_SECRET, cookieName: "fw.sid", cookie: sessionCookie, loadUser: signedInUser }),
+    ...sessionUser({ store, secret: config.SESSION_SECRET, cookieName: "fw.sid", cookie: sessionCookie, loadUser: signedInUser }),
     csrf.protect,
   ];
-  const station = express.Router();
-  station.post("/scans", ...stationChain, scansRouter(deps));
-  station.get("/jobs/by-code/:code", ...stationChain, jobsRouter(deps));
-  app.use("/api", station);
+  const frequent = express.Router();
+  frequent.post("/scans", ...shortChain, scansRouter(deps));
+  frequent.get("/jobs/by-code/:code", ...shortChain, jobsRouter(deps));
+  frequent.post("/quotes", ...shortChain, quotesRouter(deps));
+  app.use("/api", frequent);
 
   // Public reads with small fixed-shape answers (the sampling plan, the certificate check): the same
   // page-security headers set from a list computed once, no request line (on-error still logs their

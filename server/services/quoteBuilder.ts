@@ -1,9 +1,10 @@
-import { QueryTypes, type Transaction } from "sequelize";
+import type { Transaction } from "sequelize";
 import type { FabricatedPart, PriceBuildUp } from "../../shared/fabrication";
 import { predictShield, PredictionInputError, type PredictionInput, type PredictionResult } from "../../shared/physics";
 import { buildModelFrom, type BuildModel } from "../../shared/physics/build-model";
 import { constructionSettingsOf, type PriceList } from "../../shared/schemas/pricing";
 import { forFabrication, type QuoteBlank, type QuoteBlankPart, type QuoteConfiguration } from "../../shared/schemas/quote";
+import { prepared, type PreparedStatement } from "../db/prepared";
 import { ValidationError } from "../errors";
 import { Quote } from "../models";
 import type { Actor } from "../policies/utils";
@@ -55,7 +56,7 @@ export function priceAndPredict(props: { configuration: QuoteConfiguration; quan
 // The quote and its event in one statement (atomic on its own, no transaction round trips: quote
 // creation is the customer's most frequent write), and only if the price list it was priced with
 // is still the current one; otherwise nothing is written and the caller prices again.
-const INSERT_QUOTE = `
+const INSERT_QUOTE: PreparedStatement = { name: "quote-insert", text: `
 with head as (select id, version from price_lists order by version desc limit 1),
 q as (
   insert into quotes (number, organization_id, created_by_id, design_id, requoted_from_id, configuration, prediction, blank, price,
@@ -71,7 +72,7 @@ e as (
       'designId', q.design_id, 'requotedFromId', q.requoted_from_id),
     $20, $17
   from q)
-select id, number from q`;
+select id, number from q` };
 
 /**
  * Prices a configuration with the current shop rates and freezes it as a quote: the prediction
@@ -100,17 +101,14 @@ export async function quoteBuilder(props: {
     const priced = priceAndPredict({ configuration: props.configuration, quantity: props.quantity, priceList, catalog });
     const json = (x: unknown) => JSON.stringify(x);
     const expiresAt = new Date(now.getTime() + priceList.quoteValidityDays * DAY_MS);
-    const [row] = await Quote.sequelize!.query<{ id: string; number: number }>(INSERT_QUOTE, {
-      bind: [
-        props.organizationId, props.actor.id, props.designId ?? null, props.requotedFromId ?? null,
-        json(props.configuration), json(priced.prediction), json(priced.blank), json(priced.price),
-        props.quantity, priced.price.unitPrice_cents, priced.price.total_cents, priced.price.currency, priced.mass_kg,
-        priceList.leadTimeWorkingDays, priceList.quoteValidityDays, expiresAt, now,
-        rates.id, props.requotedFromId ? "quote.requoted" : "quote.created", props.ip,
-      ],
-      type: QueryTypes.SELECT,
-      transaction,
-    });
+    // a named statement: planned once per connection (see db/prepared.ts)
+    const [row] = await prepared<{ id: string; number: number }>(Quote.sequelize!, INSERT_QUOTE, [
+      props.organizationId, props.actor.id, props.designId ?? null, props.requotedFromId ?? null,
+      json(props.configuration), json(priced.prediction), json(priced.blank), json(priced.price),
+      props.quantity, priced.price.unitPrice_cents, priced.price.total_cents, priced.price.currency, priced.mass_kg,
+      priceList.leadTimeWorkingDays, priceList.quoteValidityDays, expiresAt, now,
+      rates.id, props.requotedFromId ? "quote.requoted" : "quote.created", props.ip,
+    ], transaction);
     // the row as written, from what was sent (the answers need not travel back and be parsed again)
     if (row)
       return Quote.build(

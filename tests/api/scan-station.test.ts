@@ -5,7 +5,7 @@ import { buildTestApp, TEST_PASSWORD } from "../support/app";
 import { ensureReferenceData } from "../support/ordering";
 import { buildReleasedOrder, customer, staff } from "../support/shop-floor";
 
-// The scan and the job lookup by barcode run on the station's short chain (server/middleware/station.ts),
+// The scan and the job lookup by barcode run on the station's short chain (server/middleware/short-chain.ts),
 // not the general one: these check it refuses exactly what the general chain refuses, and answers
 // with the same security headers and the rolling session cookie.
 

@@ -4,15 +4,16 @@ import type session from "express-session";
 import type { Logger } from "pino";
 import type { User } from "../models";
 
-// The scan station's short chain. A scan is a small JSON post that the floor sends hundreds of
-// times a minute, and the general chain (helmet computing its headers, pino-http's child logger,
-// express-session rebuilding, hashing and re-signing the session, passport's strategies) cost
-// several times the scan's own statement. These do the same checks with less work; the order of
-// the checks and every refusal stay those of the general chain.
+// The short chain for the calls made most often (a scan and the job looked up by its barcode, sent
+// hundreds of times a minute from the floor; a customer's quote, asked for at every change of a
+// design) and for public reads. The general chain (helmet computing its headers, pino-http's child
+// logger, express-session rebuilding, hashing and re-signing the session, passport's strategies)
+// cost several times such a call's own statement. These do the same checks with less work; the
+// order of the checks and every refusal stay those of the general chain.
 
 /**
  * The page-security headers helmet sets, computed once: with no nonce they are the same for every
- * answer, so the station sets the very same list without running helmet per request.
+ * answer, so the short chain sets the very same list without running helmet per request.
  */
 export function fixedHeaders(helmetMiddleware: RequestHandler): RequestHandler {
   const headers: Array<[string, string]> = [];
@@ -43,7 +44,7 @@ type StoreWithCache = session.Store & {
  * found). The session is never written here except its rolling expiry (the store writes it at most
  * once a minute) and the cookie's new expiry, as `rolling: true` does for the general chain.
  */
-export function stationSession(opts: {
+export function sessionUser(opts: {
   store: StoreWithCache;
   secret: string;
   cookieName: string;
