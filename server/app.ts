@@ -168,13 +168,15 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   frequent.post("/quotes", ...shortChain, quotesRouter(deps));
   app.use("/api", frequent);
 
-  // Public reads with small fixed-shape answers (the sampling plan, the certificate check): the same
-  // page-security headers set from a list computed once, no request line (on-error still logs their
-  // failures), no body parser, no session; each route keeps `deps.publicLimit`. Everything else
-  // passes through untouched.
+  // Public computations and reference reads asked for all the time (the prediction at every pause
+  // in typing, the sampling plan, the certificate check): the same page-security headers set from a
+  // list computed once, no request line (pino-http's per-request child logger costs more than the
+  // answer; on-error still logs their failures), no session; each route keeps `deps.publicLimit`.
+  // Everything else passes through untouched.
   const publicReads = express.Router();
-  publicReads.use(["/sampling-plan", "/verify"], fixedHeaders(pageSecurity), quietLog(logger));
-  publicReads.use(samplingPublicRouter(deps), verifyPublicRouter(deps));
+  publicReads.use(["/predictions", "/sampling-plan", "/verify"], fixedHeaders(pageSecurity), quietLog(logger));
+  publicReads.use("/predictions", express.json({ limit: "200kb" }));
+  publicReads.use(predictionsRouter(deps), samplingPublicRouter(deps), verifyPublicRouter(deps));
   app.use("/api", publicReads);
 
   app.use(pageSecurity);
@@ -187,15 +189,7 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
       res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
     },
   });
-  // The prediction is asked for at every pause in typing: like health, no
-  // request line (pino-http's per-request child logger costs more than the answer itself); on-error
-  // still logs their failures.
-  const unlogged = new Set(["/api/predictions", "/api/predictions/sweep"]);
-  app.use((req, res, next) => {
-    if (!unlogged.has(req.path)) return requestLog(req, res, next);
-    req.log = logger;
-    next();
-  });
+  app.use(requestLog);
 
   const api = express.Router();
   api.use(express.json({ limit: "200kb" }));
@@ -204,7 +198,6 @@ export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   // (no session row, no CSRF token); each of their routes takes `deps.publicLimit`. Add public routers here.
   api.use(blanksRouter(deps));
   api.use(materialsPublicRouter(deps));
-  api.use(predictionsRouter(deps));
 
   // Everything below knows the signed-in user; state changes by a signed-in user need the CSRF token.
   api.use(cookieParser(), sessionMiddleware, passport.initialize(), passport.session(), csrf.protect);

@@ -1,5 +1,6 @@
 import request from "supertest";
 import { describe, expect, it } from "vitest";
+import { contractPredictionExample } from "../../shared/schemas/contract-examples";
 import { buildTestApp, buildUser, signIn } from "../support/app";
 
 const app = buildTestApp({ RATE_LIMIT_PUBLIC: "0" });
@@ -72,10 +73,15 @@ describe("GET /api/sampling-plan", () => {
     expect((await agent.get("/api/sampling-plan?lotSize=500&aql=1.0")).body).toMatchObject({ codeLetter: "H", sampleSize: 50 });
   });
 
-  it("the public reads (the plan, the certificate check, its 400 and 404) carry the same page-security headers as every other answer", async () => {
+  it("the public reads (a prediction, the plan, the certificate check, their 400 and 404) carry the same page-security headers as every other answer", async () => {
     const general = await request(app).get("/api/materials");
-    const answers = [await get("?lotSize=500&aql=1.0"), await get("?lotSize=0&aql=1.0"), await request(app).get(`/api/verify/${"0".repeat(64)}`), await request(app).get("/api/verify/not-a-digest")];
-    expect(answers.map((a) => a.status)).toEqual([200, 400, 404, 400]);
+    const answers = [
+      await request(app).post("/api/predictions").send(contractPredictionExample),
+      await request(app).post("/api/predictions").set("content-type", "application/json").send("{not json"),
+      await get("?lotSize=500&aql=1.0"), await get("?lotSize=0&aql=1.0"),
+      await request(app).get(`/api/verify/${"0".repeat(64)}`), await request(app).get("/api/verify/not-a-digest"),
+    ];
+    expect(answers.map((a) => a.status)).toEqual([200, 400, 200, 400, 404, 400]);
     for (const name of ["content-security-policy", "x-content-type-options", "x-frame-options", "referrer-policy", "cross-origin-opener-policy", "cross-origin-resource-policy", "strict-transport-security"]) {
       for (const answer of answers) expect(answer.headers[name], name).toBe(general.headers[name]);
     }
