@@ -18,7 +18,7 @@
 
 import { FabricationInputError, type FabricatedPart } from "../fabrication";
 import type { BuildModel } from "../physics/build-model";
-import { predictShield, PredictionInputError, type MaterialLookup } from "../physics/predict";
+import { predictFigures, PredictionInputError, type MaterialLookup, type ShieldFigures } from "../physics/predict";
 import type { PriceList } from "../schemas/pricing";
 import { priceBuildUp } from "../fabrication/pricing";
 import type { Shortfall } from "../schemas/design-advice";
@@ -28,7 +28,7 @@ import { memoNest } from "./nest-memo";
 import { byPrice, frontFlags, RunningFront } from "./pareto";
 import {
   countDesigns, enumerateDesigns, formable, massOf, outsideSize, oversize, partsMemo, predictionInput, summaryOf,
-  type AdviceProblem, type Design, type DesignParts,
+  type AdviceMethod, type AdviceProblem, type Design, type DesignParts, type LayerOption,
 } from "./space";
 
 /** What the search reads of the shop: the library, the as-built model, the current shop rates and the margin rule. */
@@ -159,7 +159,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const rule = shop.minSaturationMargin;
   const total = countDesigns(problem);
   const stats: SearchStats = { designs: total, ruledOut: { tooBig: 0, tooHeavy: 0, cannotReach: 0, dominated: 0, notMade: 0 }, predicted: 0, priced: 0, notListed: 0, elapsed_ms: 0 };
-  const bounder = priceBounder(shop.priceList, NEST_GAP_MM, problem.quantity);
+  const bounder = priceBounder(shop.priceList, problem.quantity);
   const nest = memoNest();
   const currency = shop.priceList.currency;
   /** designs dealt with: ruled out, or worked out */
@@ -219,13 +219,14 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (!overweight.lightest || mass < overweight.lightest.mass) overweight.lightest = { item, parts: made.parts, mass };
       return "too-heavy";
     }
-    return { ...made, mass };
+    return { parts: made.parts, byLayer: made.byLayer, mass };
   };
-  const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
+  /** The design's figures; its band is worked out by `banded` (a design set aside on its figure alone never needs it). */
+  const figures = (item: Pending, mass_kg: number): Omit<EvaluatedDesign, "unitPrice_cents" | "band"> & { figures: ShieldFigures } | null => {
     let r;
     try {
       // the figures only: the sentences, warnings and losses are not read here
-      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel, { detail: false });
+      r = predictFigures(predictionInput(problem, item.design), shop.materials, shop.buildModel);
     } catch (err) {
       if (err instanceof PredictionInputError) return null;
       throw err;
@@ -239,22 +240,45 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     return {
       design: item.design,
       attenuation_db: r.attenuation_db,
-      band: { low_db: r.band.low_db, high_db: r.band.high_db },
-      ideal_db: r.ideal.attenuation_db,
+      ideal_db: r.ideal_db,
       currency,
       mass_kg,
       outside_mm: item.outside,
       layers,
       saturationMargin: smallest,
       keepsMargin: smallest === null || smallest >= rule,
+      figures: r,
     };
+  };
+  const banded = (f: NonNullable<ReturnType<typeof figures>>): Omit<EvaluatedDesign, "unitPrice_cents"> => {
+    const band = f.figures.band();
+    return {
+      design: f.design,
+      attenuation_db: f.attenuation_db,
+      band: { low_db: band.low_db, high_db: band.high_db },
+      ideal_db: f.ideal_db,
+      currency: f.currency,
+      mass_kg: f.mass_kg,
+      outside_mm: f.outside_mm,
+      layers: f.layers,
+      saturationMargin: f.saturationMargin,
+      keepsMargin: f.keepsMargin,
+    };
+  };
+  const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
+    const f = figures(item, mass_kg);
+    return f && banded(f);
   };
   const price = (parts: FabricatedPart[]): number => {
     stats.priced++;
     return priceBuildUp({ parts, quantity: problem.quantity, priceList: shop.priceList, nestGap_mm: NEST_GAP_MM, nest }).unitPrice_cents;
   };
-  /** strictly dominated by a design already worked out, and dearer than the cheapest listed */
-  const dominated = (e: Omit<EvaluatedDesign, "unitPrice_cents">, fit: { parts: FabricatedPart[]; byLayer: FabricatedPart[][] }): boolean => {
+  /**
+   * Strictly dominated by a design already worked out that meets the requirement, and dearer
+   * than the cheapest listed: off the front and unlisted whether it meets the requirement or not
+   * (and when it does not, a design meets it, so no nearest miss is asked for).
+   */
+  const dominated = (e: Pick<EvaluatedDesign, "keepsMargin" | "mass_kg" | "attenuation_db" | "design">, fit: { parts: FabricatedPart[]; byLayer: FabricatedPart[][] }): boolean => {
     if (!prune || cheapest.threshold === Infinity) return false;
     const rival = (e.keepsMargin ? keepFront : allFront).cheapestAsGood(e.mass_kg, e.attenuation_db);
     if (rival === Infinity) return false;
@@ -266,12 +290,17 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     return n > 1 && bounder.lower(fit.parts, slack) > bar;
   };
 
-  // the ceiling depends on the method, the layer count and the outermost alloy only
-  const ceilings = new Map<string, number>();
+  // the ceiling depends on the method, the layer count and the outermost alloy only: kept by
+  // method and outermost layer option, a slot per layer count
+  const ceilings = new Map<AdviceMethod, Map<LayerOption, number[]>>();
   const ceilingOf = (d: Design) => {
-    const key = `${d.method}|${d.layers.length}|${d.layers[d.layers.length - 1].material}`;
-    let c = ceilings.get(key);
-    if (c === undefined) ceilings.set(key, (c = lowEndCeiling_db(problem, d, shop.buildModel)));
+    let byOuter = ceilings.get(d.method);
+    if (!byOuter) ceilings.set(d.method, (byOuter = new Map()));
+    const outer = d.layers[d.layers.length - 1];
+    let byCount = byOuter.get(outer);
+    if (!byCount) byOuter.set(outer, (byCount = []));
+    let c = byCount[d.layers.length];
+    if (c === undefined) c = byCount[d.layers.length] = lowEndCeiling_db(problem, d, shop.buildModel);
     return c;
   };
 
@@ -289,17 +318,19 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       continue;
     }
     const { parts } = fit;
-    const e = predict(item, parts, fit.mass);
-    if (!e) {
+    const f = figures(item, fit.mass);
+    if (!f) {
       stats.ruledOut.notMade++;
       continue;
     }
-    if (e.band.low_db < required) {
-      if (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db) nearestMiss = { evaluated: e, parts };
+    // dominance reads the figure alone, so it comes before the band
+    if (dominated(f, fit)) {
+      stats.ruledOut.dominated++;
       continue;
     }
-    if (dominated(e, fit)) {
-      stats.ruledOut.dominated++;
+    const e = banded(f);
+    if (e.band.low_db < required) {
+      if (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db) nearestMiss = { evaluated: e, parts };
       continue;
     }
     const full: EvaluatedDesign = { ...e, unitPrice_cents: price(parts) };

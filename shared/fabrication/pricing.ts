@@ -57,8 +57,9 @@ export interface PriceInput {
 }
 
 /** Round half away from zero (Math.round rounds −0.5 toward +∞). */
-const roundCents = (x: number): number => Math.sign(x) * Math.round(Math.abs(x));
-const q3 = (x: number): number => Math.round(x * 1000) / 1000;
+export const roundCents = (x: number): number => Math.sign(x) * Math.round(Math.abs(x));
+/** A line's quantity as shown, to 0.001. */
+export const q3 = (x: number): number => Math.round(x * 1000) / 1000;
 const line = (key: string, label: string, quantity: number, unit_cents: number): PriceLine => ({ key, label, quantity, unit_cents, total_cents: roundCents(quantity * unit_cents) || 0 });
 
 const nestShape = (p: FabricatedPart): NestBlank =>

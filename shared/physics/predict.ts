@@ -394,19 +394,7 @@ export function predictShield(
   const detail = options.detail ?? true;
   const p = prepare(input, materials, build);
   const { ctx, layers, B0 } = p;
-  const s = settle(p);
-  const lnIdeal = idealLn(p, s);
-  const ideal = figure(lnIdeal);
-
-  const terms = termsFor(p, s.mus);
-  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
-  const lnWalls = Math.min(walls.ln, lnIdeal);
-  const wallAttenuation_db = figure(lnWalls).attenuation_db;
-  const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
-  const area = insideArea_mm2(p);
-  const lnHoles = holes.length ? -Math.log(holeLeak(holes, area)) : Infinity;
-  const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
-  const built = figure(lnBuilt);
+  const { s, ideal, terms, walls, wallAttenuation_db, holes, lnHoles, built } = worked(p, detail);
 
   const band = bandOf(p, s, terms, lnHoles, built.attenuation_db, ideal.attenuation_db);
 
@@ -429,7 +417,7 @@ export function predictShield(
 
   const layerResults: LayerResult[] = layers.map((l, i) => {
     const w = s.core.fields![i];
-    const peak = Math.min(w.peak * B0, 1e6);
+    const peak = wallPeak_T(s, i, B0);
     const d = skinDepth_m(l.rho, s.mus[i], ctx.f);
     return {
       index: l.index,
@@ -465,6 +453,67 @@ export function predictShield(
     estimate: true,
     ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
     ...(p.classFit?.calibration ? { calibration: p.classFit.calibration } : {}),
+  };
+}
+
+/** What the answer's figures are worked out from: the settled core, the ideal, the joints, the walls, the holes and the as-built figure. */
+interface Worked {
+  s: Settled;
+  ideal: Figure;
+  terms: JointTerms;
+  walls: ReturnType<typeof asBuiltFrom>;
+  wallAttenuation_db: number;
+  holes: HoleResult[];
+  lnHoles: number;
+  built: Figure;
+}
+
+function worked(p: Prepared, detail: boolean): Worked {
+  const s = settle(p);
+  const lnIdeal = idealLn(p, s);
+  const ideal = figure(lnIdeal);
+
+  const terms = termsFor(p, s.mus);
+  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
+  const lnWalls = Math.min(walls.ln, lnIdeal);
+  const wallAttenuation_db = figure(lnWalls).attenuation_db;
+  const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
+  const area = insideArea_mm2(p);
+  const lnHoles = holes.length ? -Math.log(holeLeak(holes, area)) : Infinity;
+  const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
+  return { s, ideal, terms, walls, wallAttenuation_db, holes, lnHoles, built: figure(lnBuilt) };
+}
+
+/** A layer's peak wall flux, T (the answer's wallFluxDensity_T). */
+const wallPeak_T = (s: Settled, i: number, B0: number): number => Math.min(s.core.fields![i].peak * B0, 1e6);
+
+/**
+ * The figures a search of many designs reads, with the band worked out only when asked for
+ * (a design the search sets aside on its figure alone never needs it). Each number is the one
+ * predictShield gives for the same input, by the same functions.
+ */
+export interface ShieldFigures {
+  /** predictShield's attenuation_db */
+  attenuation_db: number;
+  /** predictShield's ideal.attenuation_db */
+  ideal_db: number;
+  /** predictShield's layers: thickness, peak wall flux and saturation margin */
+  layers: { thickness_mm: number; wallFluxDensity_T: number; saturationMargin: number | null }[];
+  /** predictShield's band */
+  band(): PredictionResult["band"];
+}
+
+export function predictFigures(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): ShieldFigures {
+  const p = prepare(input, materials, build);
+  const w = worked(p, false);
+  return {
+    attenuation_db: w.built.attenuation_db,
+    ideal_db: w.ideal.attenuation_db,
+    layers: p.layers.map((l, i) => {
+      const peak = wallPeak_T(w.s, i, p.B0);
+      return { thickness_mm: l.t, wallFluxDensity_T: peak, saturationMargin: saturationMargin(l.sat, peak) };
+    }),
+    band: () => bandOf(p, w.s, w.terms, w.lnHoles, w.built.attenuation_db, w.ideal.attenuation_db),
   };
 }
 
