@@ -17,6 +17,7 @@
 // Designs are taken roughly cheapest first, so the ones that do the skipping come early.
 
 import { FabricationInputError, type FabricatedPart } from "../fabrication";
+import { besselMemo } from "../physics/bessel";
 import type { BuildModel } from "../physics/build-model";
 import { predictFigures, PredictionInputError, type MaterialLookup, type ShieldFigures } from "../physics/predict";
 import type { PriceList } from "../schemas/pricing";
@@ -161,6 +162,8 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const stats: SearchStats = { designs: total, ruledOut: { tooBig: 0, tooHeavy: 0, cannotReach: 0, dominated: 0, notMade: 0 }, predicted: 0, priced: 0, notListed: 0, elapsed_ms: 0 };
   const bounder = priceBounder(shop.priceList, problem.quantity);
   const nest = memoNest();
+  // the designs' walls stand at a few hundred radii: each wall's Bessel functions once per search
+  const bessel = besselMemo();
   const currency = shop.priceList.currency;
   /** designs dealt with: ruled out, or worked out */
   let done = 0;
@@ -226,7 +229,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     let r;
     try {
       // the figures only: the sentences, warnings and losses are not read here
-      r = predictFigures(predictionInput(problem, item.design), shop.materials, shop.buildModel);
+      r = predictFigures(predictionInput(problem, item.design), shop.materials, shop.buildModel, bessel);
     } catch (err) {
       if (err instanceof PredictionInputError) return null;
       throw err;

@@ -154,3 +154,22 @@ export function besselK(n: 0 | 1, z: Complex): Complex {
   const v = n === 0 ? new Complex(b.k0r, b.k0i) : new Complex(b.k1r, b.k1i);
   return v.mul(z.neg().exp());
 }
+
+/** scaledBessel01 or a memo of it. */
+export type Bessel01 = (zr: number, zi: number) => ScaledBessel;
+
+/**
+ * scaledBessel01 remembered by its argument, for one search of many designs: the walls of its
+ * designs stand at a few hundred radii, so the same arguments come back thousands of times.
+ * The values are scaledBessel01's own. Made per search and dropped with it.
+ */
+export function besselMemo(): Bessel01 {
+  const byRe = new Map<number, Map<number, ScaledBessel>>();
+  return (zr, zi) => {
+    let byIm = byRe.get(zr);
+    if (!byIm) byRe.set(zr, (byIm = new Map()));
+    let b = byIm.get(zi);
+    if (!b) byIm.set(zi, (b = scaledBessel01(zr, zi)));
+    return b;
+  };
+}

@@ -22,6 +22,7 @@ import {
   type CalibrationNote,
   type Construction,
 } from "./build-model";
+import { scaledBessel01, type Bessel01 } from "./bessel";
 import { skinDepth_m } from "./exact";
 import { holeLeak, holeResults, holeWarnings, type HoleInput, type HoleResult } from "./holes";
 import { INPUT_LIMITS, rangeProblem, REPORT_LIMIT_DB, type Range } from "./limits";
@@ -165,6 +166,8 @@ interface Prepared {
   model: BuildModel;
   /** the shop's fit of the design's class (outermost alloy, method, construction), when there is one */
   classFit?: BuildFit;
+  /** scaledBessel01, or a search's memo of it */
+  bessel: Bessel01;
 }
 
 interface Settled {
@@ -184,7 +187,7 @@ function check(field: string, what: string, value: unknown, range: Range): numbe
   return value as number;
 }
 
-function prepare(input: PredictionInput, materials: MaterialLookup, model: BuildModel): Prepared {
+function prepare(input: PredictionInput, materials: MaterialLookup, model: BuildModel, bessel: Bessel01 = scaledBessel01): Prepared {
   const lookup = lookupFn(materials);
   const shape = input.shape;
   if (shape !== "cylinder" && shape !== "box" && shape !== "sphere") throw new PredictionInputError("shape", "Shape must be cylinder, box or sphere.");
@@ -252,7 +255,7 @@ function prepare(input: PredictionInput, materials: MaterialLookup, model: Build
     if (h.collarLength_mm !== undefined) check(`holes.${i}.collarLength_mm`, "The collar length", h.collarLength_mm, INPUT_LIMITS.collarLength_mm);
   });
 
-  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model, ...(classFit ? { classFit } : {}) };
+  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model, ...(classFit ? { classFit } : {}), bessel };
 }
 
 /**
@@ -264,7 +267,7 @@ function settle(p: Prepared): Settled {
   const { ctx, layers, B0 } = p;
   let choice = chooseMu(p, layers.map(() => 0), false);
   let mus = choice.map((c) => c.mu_r);
-  let core = solveCore(ctx, layers, mus, true);
+  let core = solveCore(ctx, layers, mus, true, p.bessel);
   for (let pass = 1; pass < MAX_PASSES; pass++) {
     const next = chooseMu(p, core.fields!.map((w) => w.mean * B0), false);
     if (next.every((c, i) => Math.abs(c.mu_r - mus[i]) <= MU_SETTLED * mus[i])) {
@@ -273,7 +276,7 @@ function settle(p: Prepared): Settled {
     }
     choice = next;
     mus = next.map((c, i) => (pass === 1 ? c.mu_r : Math.sqrt(c.mu_r * mus[i])));
-    core = solveCore(ctx, layers, mus, true);
+    core = solveCore(ctx, layers, mus, true, p.bessel);
   }
   return { core, mus, sources: choice.map((c) => c.muSource), means: core.fields!.map((w) => w.mean * B0) };
 }
@@ -490,7 +493,8 @@ const wallPeak_T = (s: Settled, i: number, B0: number): number => Math.min(s.cor
 /**
  * The figures a search of many designs reads, with the band worked out only when asked for
  * (a design the search sets aside on its figure alone never needs it). Each number is the one
- * predictShield gives for the same input, by the same functions.
+ * predictShield gives for the same input, by the same functions; `bessel` is the search's
+ * besselMemo(), which gives scaledBessel01's own values.
  */
 export interface ShieldFigures {
   /** predictShield's attenuation_db */
@@ -503,8 +507,8 @@ export interface ShieldFigures {
   band(): PredictionResult["band"];
 }
 
-export function predictFigures(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL): ShieldFigures {
-  const p = prepare(input, materials, build);
+export function predictFigures(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL, bessel?: Bessel01): ShieldFigures {
+  const p = prepare(input, materials, build, bessel);
   const w = worked(p, false);
   return {
     attenuation_db: w.built.attenuation_db,

@@ -11,7 +11,7 @@ import {
 } from "../../shared/advisor";
 import { blanksKey, memoNest } from "../../shared/advisor/nest-memo";
 import { defaultPriceList, nestBlanks, partsForDesign, priceBuildUp, type DesignConfig, type NestBlank } from "../../shared/fabrication";
-import { DEFAULT_BUILD_MODEL, materialLibrary, predictFigures, predictShield } from "../../shared/physics";
+import { besselMemo, DEFAULT_BUILD_MODEL, materialLibrary, predictFigures, predictShield } from "../../shared/physics";
 import { designAdviceRequestSchema, MAX_SEARCH_DESIGNS, type DesignAdviceRequestInput } from "../../shared/schemas/design-advice";
 import { predictionRequestSchema } from "../../shared/schemas/prediction";
 import { designConfigurationSchema } from "../../shared/schemas/price-estimate";
@@ -369,14 +369,16 @@ describe("design advisor: the space and the answer", { timeout: 30_000 }, () => 
     }
   });
 
-  it("the search's figures, band asked for last, are predictShield's own for every design of random requirements", () => {
+  it("the search's figures, band asked for last and Bessel functions remembered, are predictShield's own for every design of random requirements", () => {
     fc.assert(
       fc.property(requirement, (r) => {
         const problem = problemFromArbitrary(r);
+        // one memo of the Bessel functions for the whole space, as a search keeps it
+        const bessel = besselMemo();
         for (const d of [...enumerateDesigns(problem)].filter((x) => formable(problem, x)).slice(0, 40)) {
           const input = predictionInput(problem, d);
           const full = predictShield(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL);
-          const f = predictFigures(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL);
+          const f = predictFigures(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL, bessel);
           expect(f.attenuation_db).toBe(full.attenuation_db);
           expect(f.ideal_db).toBe(full.ideal.attenuation_db);
           expect(f.layers).toEqual(full.layers.map((l) => ({ thickness_mm: l.thickness_mm, wallFluxDensity_T: l.wallFluxDensity_T, saturationMargin: l.saturationMargin })));
