@@ -109,8 +109,10 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
     for (const sheet of pl.stockSheets) {
       if (sheet.materialId !== materialId || Math.abs(sheet.thickness_mm - thickness_mm) > 1e-6) continue;
       if (!blanks) {
+        // each part's shape once, listed as often as it is cut (nesting only reads the list)
+        const shapes = group.map(nestShape);
         blanks = [];
-        for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+        for (let a = 0; a < assemblies; a++) for (let j = 0; j < group.length; j++) for (let n = 0; n < group[j].quantityPerAssembly; n++) blanks.push(shapes[j]);
       }
       const r = nest(blanks, sheet, { gap_mm: gap });
       if (r.unplaced.length > 0 || r.sheetsNeeded === 0) continue;
