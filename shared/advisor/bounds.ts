@@ -46,9 +46,10 @@ export interface PriceBounder {
    * for this list); `slack` is slackFor(the design's layers). `parts` may be all of the
    * design's parts, or some of them: the unnested subtotal only grows as parts are added (each
    * line's quantity is a sum over the parts, every rate is ≥ 0), so part of a design bounds the
-   * whole. A part list seen before (the same array) is not priced again.
+   * whole. A part list seen before (the same array) is not priced again; `remember: false`
+   * for a list that will not come again (a whole design's).
    */
-  lower(parts: FabricatedPart[], slack: number): number;
+  lower(parts: FabricatedPart[], slack: number, remember?: boolean): number;
 }
 
 export function priceBounder(priceList: PriceList, quantity: number): PriceBounder {
@@ -59,7 +60,8 @@ export function priceBounder(priceList: PriceList, quantity: number): PriceBound
   const d = discountFor(quantity, priceList) / 100;
   const unnested = unnestedSubtotal(priceList, quantity);
   const subtotals = new WeakMap<FabricatedPart[], number>();
-  const subtotalOf = (parts: FabricatedPart[]) => {
+  const subtotalOf = (parts: FabricatedPart[], remember: boolean) => {
+    if (!remember) return unnested(parts);
     let sub = subtotals.get(parts);
     if (sub === undefined) subtotals.set(parts, (sub = unnested(parts)));
     return sub;
@@ -79,11 +81,11 @@ export function priceBounder(priceList: PriceList, quantity: number): PriceBound
       });
       return slack;
     },
-    lower(parts, slack) {
+    lower(parts, slack, remember = true) {
       if (creditAbovePrice) return -Infinity;
       // exact = sub + round(sub·m) − round((sub + round(sub·m))·d) ≥ sub·(1 + m)(1 − d) − 1,
       // and the unit price round(exact / quantity) is a whole number ≥ exact / quantity − 0.5.
-      const exact = (subtotalOf(parts) - slack) * (1 + m) * (1 - d) - 1;
+      const exact = (subtotalOf(parts, remember) - slack) * (1 + m) * (1 - d) - 1;
       return Math.ceil(exact / quantity - 0.5 - 1e-9);
     },
   };

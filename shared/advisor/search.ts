@@ -290,7 +290,8 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     const slack = bounder.slackFor(e.design.layers);
     // one layer's parts alone often settle it (their bound is kept for the next design with that layer)
     for (let i = n - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], slack) > bar) return true;
-    return n > 1 && bounder.lower(fit.parts, slack) > bar;
+    // the whole design's parts come once: not kept
+    return n > 1 && bounder.lower(fit.parts, slack, false) > bar;
   };
 
   // the ceiling depends on the method, the layer count and the outermost alloy only: kept by

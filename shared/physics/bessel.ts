@@ -164,12 +164,15 @@ export type Bessel01 = (zr: number, zi: number) => ScaledBessel;
  * The values are scaledBessel01's own. Made per search and dropped with it.
  */
 export function besselMemo(): Bessel01 {
-  const byRe = new Map<number, Map<number, ScaledBessel>>();
+  // by the real part, then a short list by the imaginary part (a wall's argument is r/δ·(1 + j):
+  // one imaginary part for each real part)
+  interface Entry { zi: number; value: ScaledBessel; next: Entry | null }
+  const byRe = new Map<number, Entry>();
   return (zr, zi) => {
-    let byIm = byRe.get(zr);
-    if (!byIm) byRe.set(zr, (byIm = new Map()));
-    let b = byIm.get(zi);
-    if (!b) byIm.set(zi, (b = scaledBessel01(zr, zi)));
-    return b;
+    const first = byRe.get(zr);
+    for (let e: Entry | null = first ?? null; e; e = e.next) if (e.zi === zi) return e.value;
+    const value = scaledBessel01(zr, zi);
+    byRe.set(zr, { zi, value, next: first ?? null });
+    return value;
   };
 }
