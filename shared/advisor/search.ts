@@ -14,7 +14,8 @@
 //   never the recommendation; and when that bound is also above the listCheapest-th price
 //   found so far (a price that only falls as the search goes on), so it is not among the
 //   cheapest either.
-// Designs are taken roughly cheapest first, so the ones that do the skipping come early.
+// Designs are taken cheapest first by their price without nesting, so the ones that do the
+// skipping come early (the order changes only how much is skipped, never the answer).
 
 import { FabricationInputError, type FabricatedPart } from "../fabrication";
 import { besselMemo } from "../physics/bessel";
@@ -23,7 +24,7 @@ import { predictFigures, PredictionInputError, type MaterialLookup, type ShieldF
 import type { PriceList } from "../schemas/pricing";
 import { priceBuildUp } from "../fabrication/pricing";
 import type { Shortfall } from "../schemas/design-advice";
-import { lowEndCeiling_db, priceBounder } from "./bounds";
+import { lowEndCeiling_db, priceBounder, unnestedSubtotal } from "./bounds";
 import { lacksSentence, noRecommendationReason, recommendationReason } from "./explain";
 import { memoNest } from "./nest-memo";
 import { byPrice, frontFlags, RunningFront } from "./pareto";
@@ -108,8 +109,11 @@ export interface AdviceProgress {
 interface Pending {
   design: Design;
   outside: Record<string, number>;
-  /** material cost of the walls, roughly: only the order of the search */
+  /** material cost of the walls, roughly: the order of the designs that cannot reach the requirement */
   cost: number;
+  /** the parts (null: the shop cannot make them) and their price without nesting: the order of the search */
+  made?: DesignParts | null;
+  rank: number;
 }
 
 /** The walls' material cost, roughly (area × thickness × density × price): the search's order. */
@@ -168,6 +172,30 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   /** designs dealt with: ruled out, or worked out */
   let done = 0;
 
+  const layerParts = partsMemo(problem);
+
+  const partsOf = (design: Design): DesignParts | null => {
+    try {
+      return layerParts(design);
+    } catch (err) {
+      if (err instanceof FabricationInputError) return null;
+      throw err;
+    }
+  };
+  // the ceiling depends on the method, the layer count and the outermost alloy only: kept by
+  // method and outermost layer option, a slot per layer count
+  const ceilings = new Map<AdviceMethod, Map<LayerOption, number[]>>();
+  const ceilingOf = (d: Design) => {
+    let byOuter = ceilings.get(d.method);
+    if (!byOuter) ceilings.set(d.method, (byOuter = new Map()));
+    const outer = d.layers[d.layers.length - 1];
+    let byCount = byOuter.get(outer);
+    if (!byCount) byOuter.set(outer, (byCount = []));
+    let c = byCount[d.layers.length];
+    if (c === undefined) c = byCount[d.layers.length] = lowEndCeiling_db(problem, d, shop.buildModel);
+    return c;
+  };
+
   // 1. The space, with the exact checks that need no engine: formable, and the outside size.
   const pending: Pending[] = [];
   let leastOversize: { design: Design; outside: Record<string, number>; excess: number } | null = null;
@@ -187,9 +215,17 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (!leastOversize || excess < leastOversize.excess) leastOversize = { design, outside, excess };
       continue;
     }
-    pending.push({ design, outside, cost: roughCost(problem, design) });
+    pending.push({ design, outside, cost: roughCost(problem, design), rank: 0 });
   }
-  pending.sort((a, b) => a.cost - b.cost || a.design.order - b.design.order);
+  // cheapest first by the price without nesting (every line of the price but the scrap), so the
+  // designs that do the skipping come early; the ones that cannot reach the requirement need no parts
+  const unnested = unnestedSubtotal(shop.priceList, problem.quantity);
+  for (const item of pending) {
+    if (ceilingOf(item.design) < required) continue;
+    item.made = partsOf(item.design);
+    item.rank = item.made ? unnested(item.made.parts) : Infinity;
+  }
+  pending.sort((a, b) => a.rank - b.rank || a.cost - b.cost || a.design.order - b.design.order);
   done = seen - pending.length;
   yield { done, total };
 
@@ -203,19 +239,9 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   let nearestMiss: { evaluated: Omit<EvaluatedDesign, "unitPrice_cents">; parts: FabricatedPart[] } | null = null;
   /** the lightest design over the largest mass (set from the closures below, hence a holder) */
   const overweight: { lightest: { item: Pending; parts: FabricatedPart[]; mass: number } | null } = { lightest: null };
-  const layerParts = partsMemo(problem);
-
-  const partsOf = (design: Design): DesignParts | null => {
-    try {
-      return layerParts(design);
-    } catch (err) {
-      if (err instanceof FabricationInputError) return null;
-      throw err;
-    }
-  };
   /** the parts of a design that fits within the largest mass, or why not */
   const fitting = (item: Pending): { parts: FabricatedPart[]; byLayer: FabricatedPart[][]; mass: number } | "not-made" | "too-heavy" => {
-    const made = partsOf(item.design);
+    const made = item.made !== undefined ? item.made : partsOf(item.design);
     if (!made) return "not-made";
     const mass = massOf(made.parts);
     if (problem.maxMass_kg !== undefined && mass > problem.maxMass_kg) {
@@ -292,20 +318,6 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     for (let i = n - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], slack) > bar) return true;
     // the whole design's parts come once: not kept
     return n > 1 && bounder.lower(fit.parts, slack, false) > bar;
-  };
-
-  // the ceiling depends on the method, the layer count and the outermost alloy only: kept by
-  // method and outermost layer option, a slot per layer count
-  const ceilings = new Map<AdviceMethod, Map<LayerOption, number[]>>();
-  const ceilingOf = (d: Design) => {
-    let byOuter = ceilings.get(d.method);
-    if (!byOuter) ceilings.set(d.method, (byOuter = new Map()));
-    const outer = d.layers[d.layers.length - 1];
-    let byCount = byOuter.get(outer);
-    if (!byCount) byOuter.set(outer, (byCount = []));
-    let c = byCount[d.layers.length];
-    if (c === undefined) c = byCount[d.layers.length] = lowEndCeiling_db(problem, d, shop.buildModel);
-    return c;
   };
 
   for (const item of pending) {
@@ -409,7 +421,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       const e = predict(item, parts);
       if (e) closest = describeClosest({ ...e, unitPrice_cents: price(parts) }, shortfallOf(e, {}, mass - problem.maxMass_kg!));
     } else if (leastOversize) {
-      const item: Pending = { design: leastOversize.design, outside: leastOversize.outside, cost: 0 };
+      const item: Pending = { design: leastOversize.design, outside: leastOversize.outside, cost: 0, rank: 0 };
       const parts = partsOf(item.design)?.parts;
       const e = parts && predict(item, parts);
       if (parts && e) {
