@@ -13,7 +13,8 @@
 //   keeps the margin, if this one does): it is then strictly dominated, so off the front, and
 //   never the recommendation; and when that bound is also above the listCheapest-th price
 //   found so far (a price that only falls as the search goes on), so it is not among the
-//   cheapest either.
+//   cheapest either. The test reads the figure, not the band, so it comes first: a design set
+//   aside by it is off the answer whether it meets the requirement or not, and never needs its band.
 // Designs are taken cheapest first by their price without nesting, so the ones that do the
 // skipping come early (the order changes only how much is skipped, never the answer).
 
@@ -307,17 +308,12 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
    * than the cheapest listed: off the front and unlisted whether it meets the requirement or not
    * (and when it does not, a design meets it, so no nearest miss is asked for).
    */
-  const dominated = (e: Pick<EvaluatedDesign, "keepsMargin" | "mass_kg" | "attenuation_db" | "design">, fit: { parts: FabricatedPart[]; byLayer: FabricatedPart[][] }): boolean => {
-    if (!prune || cheapest.threshold === Infinity) return false;
-    const rival = (e.keepsMargin ? keepFront : allFront).cheapestAsGood(e.mass_kg, e.attenuation_db);
-    if (rival === Infinity) return false;
-    const bar = Math.max(rival, cheapest.threshold);
-    const n = e.design.layers.length;
-    const slack = bounder.slackFor(e.design.layers);
-    // one layer's parts alone often settle it (their bound is kept for the next design with that layer)
-    for (let i = n - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], slack) > bar) return true;
-    // the whole design's parts come once: not kept
-    return n > 1 && bounder.lower(fit.parts, slack, false) > bar;
+  const dominated = (e: Pick<EvaluatedDesign, "keepsMargin" | "mass_kg" | "attenuation_db" | "design">, fit: { parts: FabricatedPart[] }): boolean => {
+    const threshold = cheapest.threshold;
+    if (!prune || threshold === Infinity) return false;
+    // the whole design's bound (its parts come once: not kept); the cheap test first, then the front
+    const bound = bounder.lower(fit.parts, bounder.slackFor(e.design.layers), false);
+    return bound > threshold && (e.keepsMargin ? keepFront : allFront).anyAsGoodBelow(e.mass_kg, e.attenuation_db, bound);
   };
 
   for (const item of pending) {
