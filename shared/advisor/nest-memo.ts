@@ -8,8 +8,11 @@ import type { StockSheet } from "../schemas/pricing";
 
 type Nested = Pick<NestResult, "unplaced" | "sheetsNeeded" | "utilisation">;
 
-const sameBlank = (a: NestBlank, b: NestBlank) =>
-  a.kind === "disc" ? b.kind === "disc" && a.diameter_mm === b.diameter_mm : b.kind === "rectangle" && a.length_mm === b.length_mm && a.width_mm === b.width_mm;
+const sameBlank = (a: NestBlank, b: NestBlank) => {
+  // a price build-up lists each part's shape object as often as it is cut
+  if (a === b) return true;
+  return a.kind === "disc" ? b.kind === "disc" && a.diameter_mm === b.diameter_mm : b.kind === "rectangle" && a.length_mm === b.length_mm && a.width_mm === b.width_mm;
+};
 
 const blankKey = (b: NestBlank) => (b.kind === "disc" ? `d${b.diameter_mm}` : `r${b.length_mm}x${b.width_mm}`);
 

@@ -56,6 +56,16 @@ export class RunningFront {
     return best;
   }
 
+  /**
+   * Whether a design seen so far is no heavier than `mass_kg`, at least `attenuation_db` and
+   * priced below `price_cents` (cheapestAsGood(mass_kg, attenuation_db) < price_cents, without
+   * looking further once one is found).
+   */
+  anyAsGoodBelow(mass_kg: number, attenuation_db: number, price_cents: number): boolean {
+    for (const y of this.members) if (y.unitPrice_cents < price_cents && y.mass_kg <= mass_kg && y.attenuation_db >= attenuation_db) return true;
+    return false;
+  }
+
   get size(): number {
     return this.members.length;
   }

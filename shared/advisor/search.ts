@@ -13,22 +13,25 @@
 //   keeps the margin, if this one does): it is then strictly dominated, so off the front, and
 //   never the recommendation; and when that bound is also above the listCheapest-th price
 //   found so far (a price that only falls as the search goes on), so it is not among the
-//   cheapest either.
-// Designs are taken roughly cheapest first, so the ones that do the skipping come early.
+//   cheapest either. The test reads the figure, not the band, so it comes first: a design set
+//   aside by it is off the answer whether it meets the requirement or not, and never needs its band.
+// Designs are taken cheapest first by their price without nesting, so the ones that do the
+// skipping come early (the order changes only how much is skipped, never the answer).
 
 import { FabricationInputError, type FabricatedPart } from "../fabrication";
+import { besselMemo } from "../physics/bessel";
 import type { BuildModel } from "../physics/build-model";
-import { predictShield, PredictionInputError, type MaterialLookup } from "../physics/predict";
+import { predictFigures, PredictionInputError, type MaterialLookup, type ShieldFigures } from "../physics/predict";
 import type { PriceList } from "../schemas/pricing";
 import { priceBuildUp } from "../fabrication/pricing";
 import type { Shortfall } from "../schemas/design-advice";
-import { lowEndCeiling_db, priceBounder } from "./bounds";
+import { lowEndCeiling_db, priceBounder, unnestedSubtotal } from "./bounds";
 import { lacksSentence, noRecommendationReason, recommendationReason } from "./explain";
 import { memoNest } from "./nest-memo";
 import { byPrice, frontFlags, RunningFront } from "./pareto";
 import {
   countDesigns, enumerateDesigns, formable, massOf, outsideSize, oversize, partsMemo, predictionInput, summaryOf,
-  type AdviceProblem, type Design, type DesignParts,
+  type AdviceMethod, type AdviceProblem, type Design, type DesignParts, type LayerOption,
 } from "./space";
 
 /** What the search reads of the shop: the library, the as-built model, the current shop rates and the margin rule. */
@@ -107,8 +110,11 @@ export interface AdviceProgress {
 interface Pending {
   design: Design;
   outside: Record<string, number>;
-  /** material cost of the walls, roughly: only the order of the search */
+  /** material cost of the walls, roughly: the order of the designs that cannot reach the requirement */
   cost: number;
+  /** the parts (null: the shop cannot make them) and their price without nesting: the order of the search */
+  made?: DesignParts | null;
+  rank: number;
 }
 
 /** The walls' material cost, roughly (area × thickness × density × price): the search's order. */
@@ -159,11 +165,37 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   const rule = shop.minSaturationMargin;
   const total = countDesigns(problem);
   const stats: SearchStats = { designs: total, ruledOut: { tooBig: 0, tooHeavy: 0, cannotReach: 0, dominated: 0, notMade: 0 }, predicted: 0, priced: 0, notListed: 0, elapsed_ms: 0 };
-  const bounder = priceBounder(shop.priceList, NEST_GAP_MM, problem.quantity);
+  const bounder = priceBounder(shop.priceList, problem.quantity);
   const nest = memoNest();
+  // the designs' walls stand at a few hundred radii: each wall's Bessel functions once per search
+  const bessel = besselMemo();
   const currency = shop.priceList.currency;
   /** designs dealt with: ruled out, or worked out */
   let done = 0;
+
+  const layerParts = partsMemo(problem);
+
+  const partsOf = (design: Design): DesignParts | null => {
+    try {
+      return layerParts(design);
+    } catch (err) {
+      if (err instanceof FabricationInputError) return null;
+      throw err;
+    }
+  };
+  // the ceiling depends on the method, the layer count and the outermost alloy only: kept by
+  // method and outermost layer option, a slot per layer count
+  const ceilings = new Map<AdviceMethod, Map<LayerOption, number[]>>();
+  const ceilingOf = (d: Design) => {
+    let byOuter = ceilings.get(d.method);
+    if (!byOuter) ceilings.set(d.method, (byOuter = new Map()));
+    const outer = d.layers[d.layers.length - 1];
+    let byCount = byOuter.get(outer);
+    if (!byCount) byOuter.set(outer, (byCount = []));
+    let c = byCount[d.layers.length];
+    if (c === undefined) c = byCount[d.layers.length] = lowEndCeiling_db(problem, d, shop.buildModel);
+    return c;
+  };
 
   // 1. The space, with the exact checks that need no engine: formable, and the outside size.
   const pending: Pending[] = [];
@@ -184,9 +216,17 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       if (!leastOversize || excess < leastOversize.excess) leastOversize = { design, outside, excess };
       continue;
     }
-    pending.push({ design, outside, cost: roughCost(problem, design) });
+    pending.push({ design, outside, cost: roughCost(problem, design), rank: 0 });
   }
-  pending.sort((a, b) => a.cost - b.cost || a.design.order - b.design.order);
+  // cheapest first by the price without nesting (every line of the price but the scrap), so the
+  // designs that do the skipping come early; the ones that cannot reach the requirement need no parts
+  const unnested = unnestedSubtotal(shop.priceList, problem.quantity);
+  for (const item of pending) {
+    if (ceilingOf(item.design) < required) continue;
+    item.made = partsOf(item.design);
+    item.rank = item.made ? unnested(item.made.parts) : Infinity;
+  }
+  pending.sort((a, b) => a.rank - b.rank || a.cost - b.cost || a.design.order - b.design.order);
   done = seen - pending.length;
   yield { done, total };
 
@@ -200,32 +240,23 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
   let nearestMiss: { evaluated: Omit<EvaluatedDesign, "unitPrice_cents">; parts: FabricatedPart[] } | null = null;
   /** the lightest design over the largest mass (set from the closures below, hence a holder) */
   const overweight: { lightest: { item: Pending; parts: FabricatedPart[]; mass: number } | null } = { lightest: null };
-  const layerParts = partsMemo(problem);
-
-  const partsOf = (design: Design): DesignParts | null => {
-    try {
-      return layerParts(design);
-    } catch (err) {
-      if (err instanceof FabricationInputError) return null;
-      throw err;
-    }
-  };
   /** the parts of a design that fits within the largest mass, or why not */
   const fitting = (item: Pending): { parts: FabricatedPart[]; byLayer: FabricatedPart[][]; mass: number } | "not-made" | "too-heavy" => {
-    const made = partsOf(item.design);
+    const made = item.made !== undefined ? item.made : partsOf(item.design);
     if (!made) return "not-made";
     const mass = massOf(made.parts);
     if (problem.maxMass_kg !== undefined && mass > problem.maxMass_kg) {
       if (!overweight.lightest || mass < overweight.lightest.mass) overweight.lightest = { item, parts: made.parts, mass };
       return "too-heavy";
     }
-    return { ...made, mass };
+    return { parts: made.parts, byLayer: made.byLayer, mass };
   };
-  const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
+  /** The design's figures; its band is worked out by `banded` (a design set aside on its figure alone never needs it). */
+  const figures = (item: Pending, mass_kg: number): Omit<EvaluatedDesign, "unitPrice_cents" | "band"> & { figures: ShieldFigures } | null => {
     let r;
     try {
       // the figures only: the sentences, warnings and losses are not read here
-      r = predictShield(predictionInput(problem, item.design), shop.materials, shop.buildModel, { detail: false });
+      r = predictFigures(predictionInput(problem, item.design), shop.materials, shop.buildModel, bessel);
     } catch (err) {
       if (err instanceof PredictionInputError) return null;
       throw err;
@@ -239,40 +270,50 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
     return {
       design: item.design,
       attenuation_db: r.attenuation_db,
-      band: { low_db: r.band.low_db, high_db: r.band.high_db },
-      ideal_db: r.ideal.attenuation_db,
+      ideal_db: r.ideal_db,
       currency,
       mass_kg,
       outside_mm: item.outside,
       layers,
       saturationMargin: smallest,
       keepsMargin: smallest === null || smallest >= rule,
+      figures: r,
     };
+  };
+  const banded = (f: NonNullable<ReturnType<typeof figures>>): Omit<EvaluatedDesign, "unitPrice_cents"> => {
+    const band = f.figures.band();
+    return {
+      design: f.design,
+      attenuation_db: f.attenuation_db,
+      band: { low_db: band.low_db, high_db: band.high_db },
+      ideal_db: f.ideal_db,
+      currency: f.currency,
+      mass_kg: f.mass_kg,
+      outside_mm: f.outside_mm,
+      layers: f.layers,
+      saturationMargin: f.saturationMargin,
+      keepsMargin: f.keepsMargin,
+    };
+  };
+  const predict = (item: Pending, parts: FabricatedPart[], mass_kg = massOf(parts)): Omit<EvaluatedDesign, "unitPrice_cents"> | null => {
+    const f = figures(item, mass_kg);
+    return f && banded(f);
   };
   const price = (parts: FabricatedPart[]): number => {
     stats.priced++;
     return priceBuildUp({ parts, quantity: problem.quantity, priceList: shop.priceList, nestGap_mm: NEST_GAP_MM, nest }).unitPrice_cents;
   };
-  /** strictly dominated by a design already worked out, and dearer than the cheapest listed */
-  const dominated = (e: Omit<EvaluatedDesign, "unitPrice_cents">, fit: { parts: FabricatedPart[]; byLayer: FabricatedPart[][] }): boolean => {
-    if (!prune || cheapest.threshold === Infinity) return false;
-    const rival = (e.keepsMargin ? keepFront : allFront).cheapestAsGood(e.mass_kg, e.attenuation_db);
-    if (rival === Infinity) return false;
-    const bar = Math.max(rival, cheapest.threshold);
-    const n = e.design.layers.length;
-    const slack = bounder.slackFor(e.design.layers);
-    // one layer's parts alone often settle it (their bound is kept for the next design with that layer)
-    for (let i = n - 1; i >= 0; i--) if (bounder.lower(fit.byLayer[i], slack) > bar) return true;
-    return n > 1 && bounder.lower(fit.parts, slack) > bar;
-  };
-
-  // the ceiling depends on the method, the layer count and the outermost alloy only
-  const ceilings = new Map<string, number>();
-  const ceilingOf = (d: Design) => {
-    const key = `${d.method}|${d.layers.length}|${d.layers[d.layers.length - 1].material}`;
-    let c = ceilings.get(key);
-    if (c === undefined) ceilings.set(key, (c = lowEndCeiling_db(problem, d, shop.buildModel)));
-    return c;
+  /**
+   * Strictly dominated by a design already worked out that meets the requirement, and dearer
+   * than the cheapest listed: off the front and unlisted whether it meets the requirement or not
+   * (and when it does not, a design meets it, so no nearest miss is asked for).
+   */
+  const dominated = (e: Pick<EvaluatedDesign, "keepsMargin" | "mass_kg" | "attenuation_db" | "design">, fit: { parts: FabricatedPart[] }): boolean => {
+    const threshold = cheapest.threshold;
+    if (!prune || threshold === Infinity) return false;
+    // the whole design's bound (its parts come once: not kept); the cheap test first, then the front
+    const bound = bounder.lower(fit.parts, bounder.slackFor(e.design.layers), false);
+    return bound > threshold && (e.keepsMargin ? keepFront : allFront).anyAsGoodBelow(e.mass_kg, e.attenuation_db, bound);
   };
 
   for (const item of pending) {
@@ -289,17 +330,19 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       continue;
     }
     const { parts } = fit;
-    const e = predict(item, parts, fit.mass);
-    if (!e) {
+    const f = figures(item, fit.mass);
+    if (!f) {
       stats.ruledOut.notMade++;
       continue;
     }
-    if (e.band.low_db < required) {
-      if (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db) nearestMiss = { evaluated: e, parts };
+    // dominance reads the figure alone, so it comes before the band
+    if (dominated(f, fit)) {
+      stats.ruledOut.dominated++;
       continue;
     }
-    if (dominated(e, fit)) {
-      stats.ruledOut.dominated++;
+    const e = banded(f);
+    if (e.band.low_db < required) {
+      if (!nearestMiss || e.band.low_db > nearestMiss.evaluated.band.low_db) nearestMiss = { evaluated: e, parts };
       continue;
     }
     const full: EvaluatedDesign = { ...e, unitPrice_cents: price(parts) };
@@ -374,7 +417,7 @@ export function* adviseSteps(problem: AdviceProblem, shop: AdviceShop, options: 
       const e = predict(item, parts);
       if (e) closest = describeClosest({ ...e, unitPrice_cents: price(parts) }, shortfallOf(e, {}, mass - problem.maxMass_kg!));
     } else if (leastOversize) {
-      const item: Pending = { design: leastOversize.design, outside: leastOversize.outside, cost: 0 };
+      const item: Pending = { design: leastOversize.design, outside: leastOversize.outside, cost: 0, rank: 0 };
       const parts = partsOf(item.design)?.parts;
       const e = parts && predict(item, parts);
       if (parts && e) {

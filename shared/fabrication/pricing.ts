@@ -57,8 +57,9 @@ export interface PriceInput {
 }
 
 /** Round half away from zero (Math.round rounds −0.5 toward +∞). */
-const roundCents = (x: number): number => Math.sign(x) * Math.round(Math.abs(x));
-const q3 = (x: number): number => Math.round(x * 1000) / 1000;
+export const roundCents = (x: number): number => Math.sign(x) * Math.round(Math.abs(x));
+/** A line's quantity as shown, to 0.001. */
+export const q3 = (x: number): number => Math.round(x * 1000) / 1000;
 const line = (key: string, label: string, quantity: number, unit_cents: number): PriceLine => ({ key, label, quantity, unit_cents, total_cents: roundCents(quantity * unit_cents) || 0 });
 
 const nestShape = (p: FabricatedPart): NestBlank =>
@@ -108,8 +109,10 @@ export function priceBuildUp(input: PriceInput): PriceBuildUp {
     for (const sheet of pl.stockSheets) {
       if (sheet.materialId !== materialId || Math.abs(sheet.thickness_mm - thickness_mm) > 1e-6) continue;
       if (!blanks) {
+        // each part's shape once, listed as often as it is cut (nesting only reads the list)
+        const shapes = group.map(nestShape);
         blanks = [];
-        for (let a = 0; a < assemblies; a++) for (const p of group) for (let n = 0; n < p.quantityPerAssembly; n++) blanks.push(nestShape(p));
+        for (let a = 0; a < assemblies; a++) for (let j = 0; j < group.length; j++) for (let n = 0; n < group[j].quantityPerAssembly; n++) blanks.push(shapes[j]);
       }
       const r = nest(blanks, sheet, { gap_mm: gap });
       if (r.unplaced.length > 0 || r.sheetsNeeded === 0) continue;

@@ -154,3 +154,25 @@ export function besselK(n: 0 | 1, z: Complex): Complex {
   const v = n === 0 ? new Complex(b.k0r, b.k0i) : new Complex(b.k1r, b.k1i);
   return v.mul(z.neg().exp());
 }
+
+/** scaledBessel01 or a memo of it. */
+export type Bessel01 = (zr: number, zi: number) => ScaledBessel;
+
+/**
+ * scaledBessel01 remembered by its argument, for one search of many designs: the walls of its
+ * designs stand at a few hundred radii, so the same arguments come back thousands of times.
+ * The values are scaledBessel01's own. Made per search and dropped with it.
+ */
+export function besselMemo(): Bessel01 {
+  // by the real part, then a short list by the imaginary part (a wall's argument is r/δ·(1 + j):
+  // one imaginary part for each real part)
+  interface Entry { zi: number; value: ScaledBessel; next: Entry | null }
+  const byRe = new Map<number, Entry>();
+  return (zr, zi) => {
+    const first = byRe.get(zr);
+    for (let e: Entry | null = first ?? null; e; e = e.next) if (e.zi === zi) return e.value;
+    const value = scaledBessel01(zr, zi);
+    byRe.set(zr, { zi, value, next: first ?? null });
+    return value;
+  };
+}

@@ -11,7 +11,7 @@
 // so walls hundreds of skin depths thick, and many of them, give finite results.
 
 import { c, type Complex } from "./complex";
-import { scaledBessel01 } from "./bessel";
+import { scaledBessel01, type Bessel01 } from "./bessel";
 
 export const MU0 = 4e-7 * Math.PI;
 
@@ -100,11 +100,11 @@ function staticBasis(geom: Geometry, r: number, mu: number): Basis {
 }
 
 /** Wall basis scaled by e^-kr (growing solution) and e^kr (decaying one). */
-function acBasis(geom: Geometry, k: Z, r: number, mu: number): Basis {
+function acBasis(geom: Geometry, k: Z, r: number, mu: number, bessel: Bessel01): Basis {
   const x = scl(k, r);
   const ix = inv(x);
   if (geom === "cylinder") {
-    const b = scaledBessel01(x.re, x.im);
+    const b = bessel(x.re, x.im);
     const i0 = z(b.i0r, b.i0i), i1 = z(b.i1r, b.i1i), k0 = z(b.k0r, b.k0i), k1 = z(b.k1r, b.k1i);
     const di1 = sub(i0, mul(i1, ix)); // I1' = I0 − I1/x
     const dk1 = sub(scl(k0, -1), mul(k1, ix)); // K1' = −K0 − K1/x
@@ -185,7 +185,7 @@ function faceB(geom: Geometry, st: State, r: number, mu: number): number {
   return geom === "cylinder" ? Math.max(mu * abs(st.h), abs(st.f) / r) : Math.max((mu * abs(st.h)) / r, (2 * abs(st.f)) / r);
 }
 
-function solve(geom: Geometry, shells: Shell[], frequency_hz: number, withWalls = false): ExactResult {
+function solve(geom: Geometry, shells: Shell[], frequency_hz: number, withWalls = false, bessel: Bessel01 = scaledBessel01): ExactResult {
   if (shells.length === 0) return { S: c(1), shieldingFactor: 1, attenuation_db: 0, ...(withWalls ? { walls: [] } : {}) };
   for (let i = 0; i < shells.length; i++) {
     const s = shells[i];
@@ -217,7 +217,7 @@ function solve(geom: Geometry, shells: Shell[], frequency_hz: number, withWalls 
       const k = z(1 / delta, 1 / delta);
       const t = s.thickness_m;
       // c2 carries e^{-2kt}; the common e^{kt} becomes log growth plus a phase
-      step(st, acBasis(geom, k, a, s.mu_r), acBasis(geom, k, b, s.mu_r), exp(scl(k, -2 * t)));
+      step(st, acBasis(geom, k, a, s.mu_r, bessel), acBasis(geom, k, b, s.mu_r, bessel), exp(scl(k, -2 * t)));
       st.log += k.re * t;
       const rot = z(Math.cos(k.im * t), Math.sin(k.im * t));
       st.f = mul(st.f, rot);
@@ -263,7 +263,10 @@ export function sphericalShieldingFactor(shells: Shell[], frequency_hz: number, 
   return solve("sphere", shells, frequency_hz, withWalls);
 }
 
-/** Exact multilayer long cylinder, field across the axis; shells innermost first. `withWalls`: each wall's field too. */
-export function cylindricalShieldingFactor(shells: Shell[], frequency_hz: number, withWalls = false): ExactResult {
-  return solve("cylinder", shells, frequency_hz, withWalls);
+/**
+ * Exact multilayer long cylinder, field across the axis; shells innermost first. `withWalls`:
+ * each wall's field too. `bessel`: a search's memo of scaledBessel01 (the same values).
+ */
+export function cylindricalShieldingFactor(shells: Shell[], frequency_hz: number, withWalls = false, bessel: Bessel01 = scaledBessel01): ExactResult {
+  return solve("cylinder", shells, frequency_hz, withWalls, bessel);
 }

@@ -6,5 +6,5 @@ export * from "./saturation";
 export * from "./limits";
 export * from "./build-model";
 export * from "./predict";
-export { scaledBessel01, besselI, besselK } from "./bessel";
+export { scaledBessel01, besselI, besselK, besselMemo, type Bessel01 } from "./bessel";
 export { Complex } from "./complex";

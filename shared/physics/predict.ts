@@ -22,6 +22,7 @@ import {
   type CalibrationNote,
   type Construction,
 } from "./build-model";
+import { scaledBessel01, type Bessel01 } from "./bessel";
 import { skinDepth_m } from "./exact";
 import { holeLeak, holeResults, holeWarnings, type HoleInput, type HoleResult } from "./holes";
 import { INPUT_LIMITS, rangeProblem, REPORT_LIMIT_DB, type Range } from "./limits";
@@ -165,6 +166,8 @@ interface Prepared {
   model: BuildModel;
   /** the shop's fit of the design's class (outermost alloy, method, construction), when there is one */
   classFit?: BuildFit;
+  /** scaledBessel01, or a search's memo of it */
+  bessel: Bessel01;
 }
 
 interface Settled {
@@ -184,7 +187,7 @@ function check(field: string, what: string, value: unknown, range: Range): numbe
   return value as number;
 }
 
-function prepare(input: PredictionInput, materials: MaterialLookup, model: BuildModel): Prepared {
+function prepare(input: PredictionInput, materials: MaterialLookup, model: BuildModel, bessel: Bessel01 = scaledBessel01): Prepared {
   const lookup = lookupFn(materials);
   const shape = input.shape;
   if (shape !== "cylinder" && shape !== "box" && shape !== "sphere") throw new PredictionInputError("shape", "Shape must be cylinder, box or sphere.");
@@ -252,7 +255,7 @@ function prepare(input: PredictionInput, materials: MaterialLookup, model: Build
     if (h.collarLength_mm !== undefined) check(`holes.${i}.collarLength_mm`, "The collar length", h.collarLength_mm, INPUT_LIMITS.collarLength_mm);
   });
 
-  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model, ...(classFit ? { classFit } : {}) };
+  return { ctx, layers, method, construction, state: input.state ?? "annealed", B0: amplitude_uT * 1e-6, holes, model, ...(classFit ? { classFit } : {}), bessel };
 }
 
 /**
@@ -264,7 +267,7 @@ function settle(p: Prepared): Settled {
   const { ctx, layers, B0 } = p;
   let choice = chooseMu(p, layers.map(() => 0), false);
   let mus = choice.map((c) => c.mu_r);
-  let core = solveCore(ctx, layers, mus, true);
+  let core = solveCore(ctx, layers, mus, true, p.bessel);
   for (let pass = 1; pass < MAX_PASSES; pass++) {
     const next = chooseMu(p, core.fields!.map((w) => w.mean * B0), false);
     if (next.every((c, i) => Math.abs(c.mu_r - mus[i]) <= MU_SETTLED * mus[i])) {
@@ -273,7 +276,7 @@ function settle(p: Prepared): Settled {
     }
     choice = next;
     mus = next.map((c, i) => (pass === 1 ? c.mu_r : Math.sqrt(c.mu_r * mus[i])));
-    core = solveCore(ctx, layers, mus, true);
+    core = solveCore(ctx, layers, mus, true, p.bessel);
   }
   return { core, mus, sources: choice.map((c) => c.muSource), means: core.fields!.map((w) => w.mean * B0) };
 }
@@ -394,19 +397,7 @@ export function predictShield(
   const detail = options.detail ?? true;
   const p = prepare(input, materials, build);
   const { ctx, layers, B0 } = p;
-  const s = settle(p);
-  const lnIdeal = idealLn(p, s);
-  const ideal = figure(lnIdeal);
-
-  const terms = termsFor(p, s.mus);
-  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
-  const lnWalls = Math.min(walls.ln, lnIdeal);
-  const wallAttenuation_db = figure(lnWalls).attenuation_db;
-  const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
-  const area = insideArea_mm2(p);
-  const lnHoles = holes.length ? -Math.log(holeLeak(holes, area)) : Infinity;
-  const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
-  const built = figure(lnBuilt);
+  const { s, ideal, terms, walls, wallAttenuation_db, holes, lnHoles, built } = worked(p, detail);
 
   const band = bandOf(p, s, terms, lnHoles, built.attenuation_db, ideal.attenuation_db);
 
@@ -429,7 +420,7 @@ export function predictShield(
 
   const layerResults: LayerResult[] = layers.map((l, i) => {
     const w = s.core.fields![i];
-    const peak = Math.min(w.peak * B0, 1e6);
+    const peak = wallPeak_T(s, i, B0);
     const d = skinDepth_m(l.rho, s.mus[i], ctx.f);
     return {
       index: l.index,
@@ -465,6 +456,68 @@ export function predictShield(
     estimate: true,
     ...(s.core.boxEstimates ? { boxEstimates: s.core.boxEstimates } : {}),
     ...(p.classFit?.calibration ? { calibration: p.classFit.calibration } : {}),
+  };
+}
+
+/** What the answer's figures are worked out from: the settled core, the ideal, the joints, the walls, the holes and the as-built figure. */
+interface Worked {
+  s: Settled;
+  ideal: Figure;
+  terms: JointTerms;
+  walls: ReturnType<typeof asBuiltFrom>;
+  wallAttenuation_db: number;
+  holes: HoleResult[];
+  lnHoles: number;
+  built: Figure;
+}
+
+function worked(p: Prepared, detail: boolean): Worked {
+  const s = settle(p);
+  const lnIdeal = idealLn(p, s);
+  const ideal = figure(lnIdeal);
+
+  const terms = termsFor(p, s.mus);
+  const walls = asBuiltFrom(s.core, terms, NOMINAL, detail);
+  const lnWalls = Math.min(walls.ln, lnIdeal);
+  const wallAttenuation_db = figure(lnWalls).attenuation_db;
+  const holes = holeResults(p.holes, wallAttenuation_db, collarRoot(p, s.mus));
+  const area = insideArea_mm2(p);
+  const lnHoles = holes.length ? -Math.log(holeLeak(holes, area)) : Infinity;
+  const lnBuilt = Math.min(lnCombine([lnWalls, lnHoles]), lnIdeal);
+  return { s, ideal, terms, walls, wallAttenuation_db, holes, lnHoles, built: figure(lnBuilt) };
+}
+
+/** A layer's peak wall flux, T (the answer's wallFluxDensity_T). */
+const wallPeak_T = (s: Settled, i: number, B0: number): number => Math.min(s.core.fields![i].peak * B0, 1e6);
+
+/**
+ * The figures a search of many designs reads, with the band worked out only when asked for
+ * (a design the search sets aside on its figure alone never needs it). Each number is the one
+ * predictShield gives for the same input, by the same functions; `bessel` is the search's
+ * besselMemo(), which gives scaledBessel01's own values.
+ */
+export interface ShieldFigures {
+  /** predictShield's attenuation_db */
+  attenuation_db: number;
+  /** predictShield's ideal.attenuation_db */
+  ideal_db: number;
+  /** predictShield's layers: thickness, peak wall flux and saturation margin */
+  layers: { thickness_mm: number; wallFluxDensity_T: number; saturationMargin: number | null }[];
+  /** predictShield's band */
+  band(): PredictionResult["band"];
+}
+
+export function predictFigures(input: PredictionInput, materials: MaterialLookup = materialLibrary, build: BuildModel = DEFAULT_BUILD_MODEL, bessel?: Bessel01): ShieldFigures {
+  const p = prepare(input, materials, build, bessel);
+  const w = worked(p, false);
+  return {
+    attenuation_db: w.built.attenuation_db,
+    ideal_db: w.ideal.attenuation_db,
+    layers: p.layers.map((l, i) => {
+      const peak = wallPeak_T(w.s, i, p.B0);
+      return { thickness_mm: l.t, wallFluxDensity_T: peak, saturationMargin: saturationMargin(l.sat, peak) };
+    }),
+    band: () => bandOf(p, w.s, w.terms, w.lnHoles, w.built.attenuation_db, w.ideal.attenuation_db),
   };
 }
 

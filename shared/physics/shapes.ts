@@ -3,6 +3,7 @@
 // Cylinders across the field and spheres are exact (complex Bessel); a closed can along its axis,
 // a box and open ends are the thin-wall estimates of domain.md, with the exact solutions' AC gain.
 
+import { scaledBessel01, type Bessel01 } from "./bessel";
 import { Complex, c, capMagnitude } from "./complex";
 import {
   cylindricalShieldingFactor,
@@ -121,8 +122,8 @@ export function scaleCore(ctx: ShapeCtx, core: Core, layers: GeometryLayer[], mu
   return { ...core, lnClosed, lnSingle, ...(per ? { nest: { per, ratios: core.nest!.ratios } } : {}) };
 }
 
-/** The seamless core for the given μ per layer; `withFields` also gives each wall's field. */
-export function solveCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[], withFields: boolean): Core {
+/** The seamless core for the given μ per layer; `withFields` also gives each wall's field; `bessel`: a search's memo of scaledBessel01. */
+export function solveCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[], withFields: boolean, bessel: Bessel01 = scaledBessel01): Core {
   const { shape, f } = ctx;
   if (shape === "sphere") {
     const r = sphericalShieldingFactor(shells(layers, mus, (l) => l.a), f, withFields);
@@ -131,7 +132,7 @@ export function solveCore(ctx: ShapeCtx, layers: GeometryLayer[], mus: number[],
   if (shape === "box") return boxCore(ctx, layers, mus, withFields);
   if (ctx.orientation === "axial") return axialCore(ctx, layers, mus, withFields);
 
-  const r = cylindricalShieldingFactor(shells(layers, mus, (l) => l.a), f, withFields);
+  const r = cylindricalShieldingFactor(shells(layers, mus, (l) => l.a), f, withFields, bessel);
   const lnSingle = layers.map((l, i) => lnSingleKaden(ctx, l, mus[i]));
   const core: Core = { lnClosed: r.attenuation_db / LN10_20, openLeak: 0, method: "exact multilayer cylinder (Bessel), transverse field", fields: r.walls, lnSingle };
   if (ctx.ends === "open") {

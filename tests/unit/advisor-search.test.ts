@@ -7,11 +7,11 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   adviceProblemFor, adviseDesigns, attenuationCeiling_db, configurationOf, lowEndCeiling_db, countDesigns, designConfig, enumerateDesigns, formable,
-  massOf, partsMemo, predictionInput, priceBounder, type AdviceProblem, type AdviceShop,
+  massOf, partsMemo, predictionInput, priceBounder, unnestedSubtotal, type AdviceProblem, type AdviceShop,
 } from "../../shared/advisor";
 import { blanksKey, memoNest } from "../../shared/advisor/nest-memo";
 import { defaultPriceList, nestBlanks, partsForDesign, priceBuildUp, type DesignConfig, type NestBlank } from "../../shared/fabrication";
-import { DEFAULT_BUILD_MODEL, materialLibrary, predictShield } from "../../shared/physics";
+import { besselMemo, DEFAULT_BUILD_MODEL, materialLibrary, predictFigures, predictShield } from "../../shared/physics";
 import { designAdviceRequestSchema, MAX_SEARCH_DESIGNS, type DesignAdviceRequestInput } from "../../shared/schemas/design-advice";
 import { predictionRequestSchema } from "../../shared/schemas/prediction";
 import { designConfigurationSchema } from "../../shared/schemas/price-estimate";
@@ -281,7 +281,7 @@ describe("design advisor: the bounds cannot drop a winner [derived]", { timeout:
             ...(sheets ? {} : { stockSheets: [] }),
           };
           const problem = problemFromArbitrary(r);
-          const bound = priceBounder(priceList, 3, problem.quantity);
+          const bound = priceBounder(priceList, problem.quantity);
           const partsOf = partsMemo(problem);
           for (const d of designs(problem).slice(0, 30)) {
             const { parts, byLayer } = partsOf(d);
@@ -293,6 +293,24 @@ describe("design advisor: the bounds cannot drop a winner [derived]", { timeout:
           }
         },
       ),
+      { numRuns: 40 },
+    );
+  });
+
+  it("the bound's unnested subtotal is priceBuildUp's own, to the cent, for every list and design", () => {
+    fc.assert(
+      fc.property(requirement, fc.integer({ min: 0, max: 60 }), fc.boolean(), (r, marginPercent, scrapCredit) => {
+        const priceList: PriceList = { ...defaultPriceList, marginPercent, scrapCredit };
+        const unnested: PriceList = { ...priceList, stockSheets: [], fallbackUtilisation: 1 };
+        const problem = problemFromArbitrary(r);
+        const subtotal = unnestedSubtotal(priceList, problem.quantity);
+        const partsOf = partsMemo(problem);
+        for (const d of designs(problem).slice(0, 30)) {
+          const { parts, byLayer } = partsOf(d);
+          expect(subtotal(parts)).toBe(priceBuildUp({ parts, quantity: problem.quantity, priceList: unnested, nestGap_mm: 3 }).subtotal_cents);
+          for (const own of byLayer) expect(subtotal(own)).toBe(priceBuildUp({ parts: own, quantity: problem.quantity, priceList: unnested, nestGap_mm: 3 }).subtotal_cents);
+        }
+      }),
       { numRuns: 40 },
     );
   });
@@ -349,6 +367,26 @@ describe("design advisor: the space and the answer", { timeout: 30_000 }, () => 
       const figures = (r: typeof full) => ({ ...r, warnings: [], asBuilt: { ...r.asBuilt, summary: "", losses: [] }, layers: r.layers.map((l) => ({ ...l, muReason: "" })) });
       expect(figures(bare)).toEqual(figures(full));
     }
+  });
+
+  it("the search's figures, band asked for last and Bessel functions remembered, are predictShield's own for every design of random requirements", () => {
+    fc.assert(
+      fc.property(requirement, (r) => {
+        const problem = problemFromArbitrary(r);
+        // one memo of the Bessel functions for the whole space, as a search keeps it
+        const bessel = besselMemo();
+        for (const d of [...enumerateDesigns(problem)].filter((x) => formable(problem, x)).slice(0, 40)) {
+          const input = predictionInput(problem, d);
+          const full = predictShield(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL);
+          const f = predictFigures(input, (id) => byId.get(id), DEFAULT_BUILD_MODEL, bessel);
+          expect(f.attenuation_db).toBe(full.attenuation_db);
+          expect(f.ideal_db).toBe(full.ideal.attenuation_db);
+          expect(f.layers).toEqual(full.layers.map((l) => ({ thickness_mm: l.thickness_mm, wallFluxDensity_T: l.wallFluxDensity_T, saturationMargin: l.saturationMargin })));
+          expect(f.band()).toEqual(full.band);
+        }
+      }),
+      { numRuns: 30 },
+    );
   });
 
   const can = (over: Partial<DesignAdviceRequestInput> = {}): DesignAdviceRequestInput =>
