@@ -94,8 +94,8 @@ export interface ScanRow {
   operator_name: string | null;
   idempotency_key: string | null;
   data: Record<string, unknown>;
-  scanned_at: Date;
-  created_at: Date;
+  scanned_at: Date | string;
+  created_at: Date | string;
 }
 
 export function presentScanEvent(s: ScanRow, code: string): ScanEventJson {

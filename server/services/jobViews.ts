@@ -1,5 +1,5 @@
 import type { Sequelize, Transaction } from "sequelize";
-import { prepared } from "../db/prepared";
+import { jsonRows, prepared } from "../db/prepared";
 import type { JobPartJson } from "../../shared/schemas/jobs";
 import type { PartRole, RoutingStep, ScanAction } from "../../shared/shop-floor/routing";
 
@@ -27,9 +27,10 @@ export interface JobView {
   weld_length_mm: number;
   routing: RoutingStep[];
   step_index: number;
-  step_started_at: Date | null;
+  /** ISO text (the view is read as json rows) */
+  step_started_at: string | null;
   due_date: string;
-  completed_at: Date | null;
+  completed_at: string | null;
   heat_id: string | null;
   heat_number: string | null;
   furnace_run_id: string | null;
@@ -72,8 +73,8 @@ left join furnace_runs lfr on lfr.id = l.furnace_run_id
 left join jobs a on a.id = j.assembly_job_id${p.joins ? `\n${p.joins}` : ""}
 where ${p.where}`;
 
-const BY_ID = { name: "job-view-by-id", text: jobViewSql({ where: "j.id = $1" }) };
-const BY_CODE = { name: "job-view-by-code", text: jobViewSql({ where: "j.code = $1" }) };
+const BY_ID = { name: "job-view-by-id", text: jsonRows(jobViewSql({ where: "j.id = $1" })), jsonRows: true } as const;
+const BY_CODE = { name: "job-view-by-code", text: jsonRows(jobViewSql({ where: "j.code = $1" })), jsonRows: true } as const;
 
 /** One job by id or by the code in its barcode; null when there is none. */
 export async function loadJobView(sequelize: Sequelize, by: { id: string } | { code: string }, transaction?: Transaction): Promise<JobView | null> {

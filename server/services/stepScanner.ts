@@ -3,7 +3,7 @@ import type { ScanData, ScanInput } from "../../shared/schemas/scans";
 import { MAX_OFFLINE_AGE_DAYS } from "../../shared/schemas/scans";
 import { normalizeCode, parseStepBarcode } from "../../shared/shop-floor/codes";
 import { checkScan, stepLabels, type StepKey } from "../../shared/shop-floor/routing";
-import { prepared } from "../db/prepared";
+import { jsonRows, prepared } from "../db/prepared";
 import { AppError, ConflictError, ValidationError } from "../errors";
 import type { Actor } from "../policies/utils";
 import type { ScanRow } from "../presenters/jobs";
@@ -39,14 +39,15 @@ u as (
     updated_at = now()
   from s where j.id = s.job_id
   returning j.id)
-select v.*, s.id as moved_scan_id, s.created_at as moved_created_at from v left join s on true`,
-};
+${jsonRows("select v.*, s.id as moved_scan_id, s.created_at as moved_created_at from v left join s on true")}`,
+  jsonRows: true,
+} as const;
 
 /** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run, the lot's decision at verify). */
 const needsStepData = (step: StepKey, action: "start" | "complete", input: ScanInput) =>
   step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined;
 
-type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: Date | null };
+type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: string | null };
 
 // The event and the job's move in one statement (one transaction of its own, or the caller's),
 // only from the state the scan was checked against ($16, $17). From each state of a job exactly
@@ -234,8 +235,8 @@ function moved(job: ReadJob, i: number, input: ScanInput, actor: Actor & { name:
   return {
     ...view,
     step_index: next,
-    step_started_at: complete ? null : at,
-    completed_at: next >= job.routing.length ? at : null,
+    step_started_at: complete ? null : at.toISOString(),
+    completed_at: next >= job.routing.length ? at.toISOString() : null,
     ...(heat ? { heat_id: heat.id, heat_number: heat.number } : {}),
     ...(furnaceRunId ? { furnace_run_id: furnaceRunId, furnace_run_number: job.lot_furnace_run_number } : {}),
     scans: [...job.scans, { stepIndex: i, action: input.action, at: at.toISOString(), station: input.station, operatorId: actor.id, operatorName: actor.name }],
