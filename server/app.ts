@@ -74,7 +74,7 @@ export interface FluxwrightApp extends Express {
 export function createApp(options: CreateAppOptions = {}): FluxwrightApp {
   const config = options.config ?? loadConfig();
   const logger = options.logger ?? pino({ level: config.LOG_LEVEL ?? (config.NODE_ENV === "test" ? "silent" : "info") });
-  const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL);
+  const sequelize = options.sequelize ?? getSequelize(config.DATABASE_URL, config.DB_POOL_MAX);
   initModels(sequelize);
   // Mail and scheduled work go through the job queue in PostgreSQL (started in the background).
   const jobs = createJobQueue({ config, logger, queues: [mailQueueDefinition(config.MAIL_RETRY_DELAY_SECONDS), quoteReminderQueueDefinition, instrumentReminderQueueDefinition, calibrationRefitQueueDefinition] });

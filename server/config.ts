@@ -12,6 +12,8 @@ const envSchema = z.object({
   HOST: z.string().default("127.0.0.1"),
   APP_URL: z.string().url().optional(),
   DATABASE_URL: z.string().default("postgres://postgres@127.0.0.1:54329/fluxwright"),
+  /** the app's database connections; default twice the cores and one (server/db/sequelize.ts) */
+  DB_POOL_MAX: z.coerce.number().int().min(2).max(200).optional(),
   SESSION_SECRET: z.string().min(16).default("fluxwright-development-secret-change-me"),
   SMTP_HOST: z.string().default("127.0.0.1"),
   SMTP_PORT: z.coerce.number().int().default(4125),
