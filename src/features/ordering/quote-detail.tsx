@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { Link, useNavigate } from "react-router-dom";
 import { useQuery } from "@tanstack/react-query";
 import { designSummary } from "../../../shared/schemas/design";
@@ -22,15 +23,18 @@ function blankText(b: QuoteBlankPart["blank"]): string {
   return b.kind === "disc" ? `disc Ø ${mm(b.diameter_mm)}` : `${b.kind} ${+b.length_mm.toPrecision(5)} × ${mm(b.width_mm)}`;
 }
 
+/** Draws the quoted design (the page passes the design check's cross-section). */
+type DrawingOf = (configuration: QuoteJson["configuration"]) => ReactNode;
+
 /** One quote: what is priced, the frozen prediction and blanks, every price line, validity; PDF, order or re-quote. */
-export function QuoteDetail({ id }: { id: string }) {
+export function QuoteDetail({ id, drawing }: { id: string; drawing?: DrawingOf }) {
   const quote = useQuery(quoteQueryOptions(id));
   if (quote.isPending) return <Loading label="Loading the quote…" />;
   if (quote.isError) return <QueryError error={quote.error} onRetry={() => void quote.refetch()} what="the quote" />;
-  return <QuoteView q={quote.data} />;
+  return <QuoteView q={quote.data} drawing={drawing} />;
 }
 
-function QuoteView({ q }: { q: QuoteJson }) {
+function QuoteView({ q, drawing }: { q: QuoteJson; drawing?: DrawingOf }) {
   const requote = useRequote();
   const navigate = useNavigate();
   const c = q.configuration;
@@ -116,6 +120,7 @@ function QuoteView({ q }: { q: QuoteJson }) {
             Field {c.field.amplitude_uT} µT at {c.field.frequency_hz} Hz, {c.field.orientation}; {c.state}.{c.holes?.length ? ` ${c.holes.length} cable hole${c.holes.length === 1 ? "" : "s"}.` : ""}
             {q.mass_kg !== null ? ` Mass about ${q.mass_kg.toFixed(3)} kg per shield.` : ""}
           </p>
+          {drawing && <div className="mt-4">{drawing(c)}</div>}
           {q.designId && (
             <p className="mt-2 text-meta text-flux-600">
               From a saved design. <Link className="underline underline-offset-4" to={paths.designs.href()}>Your designs</Link>
