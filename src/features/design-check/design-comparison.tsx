@@ -3,7 +3,6 @@ import { Link } from "react-router-dom";
 import { useQueries, useQuery } from "@tanstack/react-query";
 import { predictionRequestSchema, type PredictionRequest } from "../../../shared/schemas/prediction";
 import { designComparisonQueryOptions, type DesignComparisonJson } from "../../api/designs";
-import { materialsQueryOptions } from "../../api/materials";
 import { sweepQueryOptions } from "../../api/predictions";
 import { PanelBoundary } from "../../components/error-boundary";
 import { QueryError } from "../../components/query-error";
@@ -19,7 +18,7 @@ import { useDebounced } from "../../lib/use-debounced";
 import { AttenuationChart, SERIES_STYLE, type ChartSeries } from "./attenuation-chart";
 import { SWEEP_FROM_HZ, SWEEP_TO_HZ } from "../../../shared/schemas/prediction";
 import { Cautions } from "./cautions";
-import { CrossSection } from "./cross-section";
+import { ConfigurationDrawing } from "./configuration-drawing";
 import { openHref } from "./saved-designs";
 
 type Item = DesignComparisonJson["items"][number];
@@ -35,7 +34,6 @@ export function DesignComparison({ ids }: { ids: string[] }) {
   const [quantity, setQuantity] = useState<number | null>(10);
   const asked = useDebounced(quantity !== null && Number.isInteger(quantity) && quantity >= 1 ? quantity : 1, 300);
   const compared = useQuery(designComparisonQueryOptions(ids, asked));
-  const materials = useQuery(materialsQueryOptions);
   const items = compared.data?.items ?? [];
   const requests = items.map(predictionOf);
   const range = { from_hz: SWEEP_FROM_HZ, to_hz: SWEEP_TO_HZ };
@@ -120,15 +118,12 @@ export function DesignComparison({ ids }: { ids: string[] }) {
       <PanelBoundary name="the cross-sections">
         <Panel title="Cross-sections">
           <div className="grid grid-cols-1 gap-6 md:grid-cols-2 xl:grid-cols-3">
-            {items.map((item, i) => {
-              const r = requests[i];
-              return (
-                <figure key={item.design.id} className="min-w-0 space-y-2">
-                  <figcaption className="font-semibold text-flux-900">{item.design.name}</figcaption>
-                  {r ? <CrossSection request={r} materials={materials.data ?? []} /> : <p className="text-flux-600">No drawing for this design.</p>}
-                </figure>
-              );
-            })}
+            {items.map((item) => (
+              <figure key={item.design.id} className="min-w-0 space-y-2">
+                <figcaption className="font-semibold text-flux-900">{item.design.name}</figcaption>
+                <ConfigurationDrawing configuration={item.design.configuration} fallback={<p className="text-flux-600">No drawing for this design.</p>} />
+              </figure>
+            ))}
           </div>
         </Panel>
       </PanelBoundary>
