@@ -32,6 +32,7 @@ node --import tsx server/cli/seed.ts
 for program in "${STAND_INS[@]}"; do
   node --import tsx "$program" & children+=($!)
 done
-NODE_ENV=development tool tsx watch server/index.ts & children+=($!)
+# one process, so a change restarts it at once
+NODE_ENV=development WEB_CONCURRENCY=${WEB_CONCURRENCY:-1} tool tsx watch server/index.ts & children+=($!)
 tool vite --host 127.0.0.1 & children+=($!)
 wait -n "${children[@]}"

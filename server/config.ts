@@ -1,3 +1,4 @@
+import { availableParallelism } from "node:os";
 import path from "node:path";
 import { z } from "zod";
 import { projectRoot } from "./project-root";
@@ -12,7 +13,9 @@ const envSchema = z.object({
   HOST: z.string().default("127.0.0.1"),
   APP_URL: z.string().url().optional(),
   DATABASE_URL: z.string().default("postgres://postgres@127.0.0.1:54329/fluxwright"),
-  /** the app's database connections; default twice the cores and one (server/db/sequelize.ts) */
+  /** server processes (server/cluster.ts); default one per core, 1 serves from a single process */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
+  /** each server process's database connections; default its share of twice the cores and one (server/db/sequelize.ts) */
   DB_POOL_MAX: z.coerce.number().int().min(2).max(200).optional(),
   SESSION_SECRET: z.string().min(16).default("fluxwright-development-secret-change-me"),
   SMTP_HOST: z.string().default("127.0.0.1"),
@@ -38,7 +41,7 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
 });
 
-export type Config = z.infer<typeof envSchema> & { appUrl: string; paymentsUrl: string; production: boolean; schedules: boolean };
+export type Config = z.infer<typeof envSchema> & { appUrl: string; paymentsUrl: string; production: boolean; schedules: boolean; workers: number };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.parse(env);
@@ -48,5 +51,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     paymentsUrl: parsed.PAYMENTS_URL ?? `http://127.0.0.1:${parsed.PAYMENTS_PORT}`,
     schedules: parsed.JOB_SCHEDULES ?? parsed.NODE_ENV !== "test",
     production: parsed.NODE_ENV === "production",
+    workers: parsed.WEB_CONCURRENCY ?? availableParallelism(),
   };
 }

@@ -1,21 +1,8 @@
 // POST /api/design-advice against the running app, signed in as the demo customer: the default
 // search (three alloys at four gauges, one to three layers, the four standard gap steps, drawn
 // and rolled), the issue's own requirement. Target: at most 1.5 s an answer.
-import { fork } from "node:child_process";
-import { createServer } from "node:net";
-import path from "node:path";
-import { fileURLToPath } from "node:url";
+import { serve } from "./http";
 import type { BenchRow } from "./types";
-
-const here = path.dirname(fileURLToPath(import.meta.url));
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
 
 /** No constraints: the shop's magnetic alloys at its advisor gauges, its gap steps, 1–3 layers, both methods. */
 export const defaultSearch = {
@@ -27,13 +14,7 @@ export const defaultSearch = {
 };
 
 export async function benchAdvisorRoute(): Promise<BenchRow[]> {
-  const port = await freePort();
-  const child = fork(path.join(here, "serve.ts"), ["app", String(port)], { execArgv: ["--import", "tsx"], stdio: "inherit" });
-  await new Promise<void>((resolve, reject) => {
-    child.once("message", () => resolve());
-    child.once("exit", (code) => reject(new Error(`app server exited with ${code}`)));
-  });
-  const url = `http://127.0.0.1:${port}`;
+  const { url, child } = await serve("app");
   const cookies = new Map<string, string>();
   const call = async (method: string, p: string, body?: unknown, csrf?: string) => {
     const headers: Record<string, string> = { accept: "application/json", cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join("; ") };

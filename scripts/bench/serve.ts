@@ -1,18 +1,51 @@
 // A server for the HTTP benchmarks, in its own process so the load generator does not share its CPU.
-// `serve.ts app PORT` serves Fluxwright; `serve.ts bare PORT` a bare Express JSON route for comparison.
+// `serve.ts app PORT` serves Fluxwright through its production entry (server/index.ts: one worker
+// process per core, or WEB_CONCURRENCY); `serve.ts bare PORT` a bare Express JSON route for
+// comparison, in as many worker processes, so a ratio compares like with like. Tells its parent
+// "ready" once every worker listens.
+import cluster from "node:cluster";
 import express from "express";
+import { loadConfig } from "../../server/config";
 
 const [kind, port] = process.argv.slice(2);
-if (kind === "bare") {
+const { workers } = loadConfig();
+const clustered = workers > 1;
+
+if (cluster.isPrimary) {
+  let listening = 0;
+  const ready = () => ++listening === (clustered ? workers : 1) && process.send?.("ready");
+  if (clustered) cluster.on("listening", ready);
+  if (kind === "bare" && clustered) for (let i = 0; i < workers; i++) cluster.fork();
+  if (kind === "bare" && !clustered) bare().listen(Number(port), "127.0.0.1", ready);
+  if (kind === "app") {
+    process.env.PORT = port;
+    process.env.HOST = "127.0.0.1";
+    // a single process (WEB_CONCURRENCY=1) says nothing when it listens: ask it
+    if (!clustered) void untilAnswered(`http://127.0.0.1:${port}/api/health`).then(ready);
+    await import("../../server/index");
+  }
+  // Exit cleanly on a signal, so `node --cpu-prof` can write its profile (the app's entry stops its own workers).
+  if (kind === "bare") for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => process.exit(0));
+} else if (kind === "bare") {
+  bare().listen(Number(port), "127.0.0.1");
+  for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => process.exit(0));
+} else {
+  await import("../../server/index");
+}
+
+// A bench that dies (or is stopped) does not leave its server behind: the IPC channel closing is the sign.
+if (cluster.isPrimary) process.on("disconnect", () => process.kill(process.pid, "SIGTERM"));
+
+function bare() {
   const app = express();
   app.get("/bare", (_req, res) => res.json({ status: "ok" }));
   app.post("/bare", express.json(), (_req, res) => res.json({ status: "ok" }));
-  app.listen(Number(port), "127.0.0.1", () => process.send?.("ready"));
-} else {
-  const { createApp } = await import("../../server/app");
-  const app = createApp();
-  app.listen(Number(port), "127.0.0.1", () => process.send?.("ready"));
+  return app;
 }
 
-// Exit cleanly on a signal, so `node --cpu-prof` can write its profile.
-for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => process.exit(0));
+async function untilAnswered(url: string) {
+  for (;;) {
+    if (await fetch(url).then((r) => r.ok, () => false)) return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+}

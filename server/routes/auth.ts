@@ -41,7 +41,7 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     res.json({ user: presentUser(req.user!) });
   });
 
-  router.post("/login", ...signInRateLimits(config.RATE_LIMIT_SIGN_IN), async (req, res) => {
+  router.post("/login", ...signInRateLimits("sign-in", config.RATE_LIMIT_SIGN_IN), async (req, res) => {
     const input = parseInput(loginSchema, req.body);
     const user = await new Promise<User | false>((resolve, reject) => {
       req.body = input;
@@ -71,7 +71,7 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
   // per address) and mails the owner every time, instead of the silent, free 409 it replaces.
   // The page reads the session after registering and, when nobody is signed in, says to check
   // the mail — which is true for the address's owner, the only one who can read it.
-  router.post("/register", mailRateLimit(30), async (req, res) => {
+  router.post("/register", mailRateLimit("register", 30), async (req, res) => {
     const input = parseInput(registerSchema, req.body);
     const registration = await sequelize.transaction((transaction) => userRegisterer({ input, ip: req.ip ?? null, transaction }));
     if (registration.kind === "existing") {
@@ -102,7 +102,7 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     res.json({ user: presentUser(user) });
   });
 
-  router.post("/password-reset/request", mailRateLimit(20), async (req, res) => {
+  router.post("/password-reset/request", mailRateLimit("password-reset", 20), async (req, res) => {
     const { email } = parseInput(passwordResetRequestSchema, req.body);
     const reset = await sequelize.transaction((transaction) => passwordResetRequester({ email, ip: req.ip ?? null, transaction }));
     if (reset) mailer.send(passwordResetMail({ to: email, link: `${config.appUrl}/reset-password/${reset.token}`, expiresAt: reset.expiresAt }));
@@ -129,7 +129,7 @@ export function authRouter(deps: AppDeps & { passport: PassportStatic; generateC
     res.json({ user: presentUser(user) });
   });
 
-  router.post("/password", requireUser, ...signInRateLimits(config.RATE_LIMIT_SIGN_IN), async (req, res) => {
+  router.post("/password", requireUser, ...signInRateLimits("password-change", config.RATE_LIMIT_SIGN_IN), async (req, res) => {
     const input = parseInput(passwordChangeSchema, req.body);
     await sequelize.transaction((transaction) => passwordChanger({ actorId: req.user!.id, input, ip: req.ip ?? null, transaction }));
     res.status(204).end();

@@ -14,7 +14,7 @@ const SEARCHES_PER_MINUTE = 60;
  */
 export function designAdviceRouter(_deps: AppDeps): Router {
   const router = Router();
-  const limit = perUserRateLimit(SEARCHES_PER_MINUTE, "Too many design searches; wait a minute and try again.");
+  const limit = perUserRateLimit("design-advice", SEARCHES_PER_MINUTE, "Too many design searches; wait a minute and try again.");
   router.post("/design-advice", requireUser, limit, async (req, res) => {
     const request = parseInput(designAdviceRequestSchema, req.body);
     // the asker may leave (a new search replaces this one): stop working for nobody

@@ -1,50 +1,19 @@
-// The server process killed with SIGKILL in the middle of a burst of scans, then started again:
+// The server's processes (the primary and every worker) killed with SIGKILL in the middle of a burst of scans, then started again:
 // every scan it answered 201 or 200 is in the database, and the scans it never answered, sent
 // again with the same idempotency keys, are recorded exactly once. A real process (the compiled
 // server, as deployed), a real kill.
-import { spawn, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
-import { createServer } from "node:net";
-import path from "node:path";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Scan } from "../../server/models";
 import { TEST_PASSWORD, buildTestApp } from "../support/app";
+import { groupAlive, startCompiledServer, type CompiledServer } from "../support/compiled-server";
 import { ensureReferenceData } from "../support/ordering";
 import { buildHeat, buildReleasedOrder, completeData, staff } from "../support/shop-floor";
 import type { Job } from "../../server/models";
 
 const app = buildTestApp();
-const root = path.resolve(import.meta.dirname, "../..");
-const entry = path.join(root, "build/server/index.js");
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const { port } = s.address() as { port: number };
-      s.close(() => resolve(port));
-    });
-  });
-
-async function startServer(port: number): Promise<ChildProcess> {
-  let output = "";
-  const child = spawn(process.execPath, [entry], {
-    cwd: root,
-    // a job queue of its own: a process killed mid-mail must not leave another test file's mail in flight
-    env: {
-      PATH: process.env.PATH, NODE_ENV: "production", PORT: String(port), DATABASE_URL: process.env.DATABASE_URL, SMTP_PORT: String(inject("smtpPort")),
-      LOG_LEVEL: "warn", JOB_SCHEDULES: "0", JOB_QUEUE_PREFIX: "crash-test.",
-    },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
-  child.stdout!.on("data", (d) => (output += d));
-  child.stderr!.on("data", (d) => (output += d));
-  for (let i = 0; i < 150; i++) {
-    if (child.exitCode !== null) throw new Error(`the server exited with ${child.exitCode}:\n${output}`);
-    if (await fetch(`http://127.0.0.1:${port}/api/health`).then((r) => r.ok, () => false)) return child;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`the server did not answer:\n${output}`);
-}
+const start = (port?: number) =>
+  // a job queue of its own: a process killed mid-mail must not leave another test file's mail in flight
+  startCompiledServer({ JOB_SCHEDULES: "0", JOB_QUEUE_PREFIX: "crash-test." }, port);
 
 /** Signs in over HTTP; the session lives in PostgreSQL, so it outlives the process. */
 async function session(base: string, email: string): Promise<{ cookie: string; csrf: string }> {
@@ -71,14 +40,13 @@ interface Planned {
 }
 
 describe("a scan burst through a SIGKILL", () => {
-  let child: ChildProcess | undefined;
+  let server: CompiledServer | undefined;
   beforeAll(ensureReferenceData);
   afterAll(() => {
-    if (child && child.exitCode === null) child.kill("SIGKILL");
+    server?.killAll();
   });
 
   it("every scan answered 201 or 200 is stored; the unanswered ones, sent again, are recorded once", { timeout: 120_000 }, async () => {
-    if (!existsSync(entry)) throw new Error("build/server/index.js is missing: run `npm run build` (npm test does).");
     const heat = await buildHeat();
     const jobs: Job[] = [];
     for (let i = 0; i < 6; i++) jobs.push(...(await buildReleasedOrder(app)).jobs);
@@ -97,9 +65,8 @@ describe("a scan burst through a SIGKILL", () => {
       }
     });
 
-    const port = await freePort();
-    const base = `http://127.0.0.1:${port}`;
-    child = await startServer(port);
+    server = await start();
+    const { base, port } = server;
     const auth = await session(base, operator.user.email);
     const post = (p: Planned) =>
       fetch(`${base}/api/scans`, {
@@ -121,7 +88,7 @@ describe("a scan burst through a SIGKILL", () => {
           answered.set(p.key, { status: res.status, eventId: body.event!.id });
           if (answered.size >= killAfter && !killed) {
             killed = true;
-            child!.kill("SIGKILL");
+            server!.killAll();
           }
         } catch (err) {
           if (!killed) throw err;
@@ -131,8 +98,10 @@ describe("a scan burst through a SIGKILL", () => {
     };
     await Promise.all(lanes.map(runLane));
     expect(killed).toBe(true);
-    await new Promise((r) => (child!.exitCode !== null || child!.signalCode ? r(null) : child!.once("exit", r)));
-    expect(child.signalCode).toBe("SIGKILL");
+    expect(await server.exited()).toBe("SIGKILL");
+    // no worker lives on to answer what is sent next
+    for (let i = 0; i < 50 && groupAlive(server); i++) await new Promise((r) => setTimeout(r, 100));
+    expect(groupAlive(server)).toBe(false);
 
     // every answered scan is in the database, under its key
     expect(answered.size).toBeGreaterThanOrEqual(killAfter);
@@ -143,7 +112,7 @@ describe("a scan burst through a SIGKILL", () => {
     }
 
     // started again, the whole plan is sent once more: answered scans are repeats, the rest land once
-    child = await startServer(port);
+    server = await start(port);
     for (const lane of lanes) {
       for (const p of lane) {
         const res = await post(p);
@@ -155,6 +124,6 @@ describe("a scan burst through a SIGKILL", () => {
     const rows = await Scan.findAll({ where: { jobId: jobs.map((j) => j.id) } });
     expect(rows).toHaveLength(all.length);
     expect(new Set(rows.map((r) => `${r.jobId}:${r.stepIndex}:${r.action}`)).size).toBe(all.length);
-    child.kill("SIGTERM");
+    server.child.kill("SIGTERM");
   });
 });
