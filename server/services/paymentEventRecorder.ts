@@ -43,7 +43,9 @@ interface TriageItem {
 /**
  * One statement for a batch of events: each is recorded once unless it was seen before, or it
  * names a checkout session the app knows (those need the transaction). Answers, per event,
- * whether it was seen and what was recorded.
+ * whether it was seen and what was recorded. One batch in flight per process: with a worker per
+ * core the workers' batches already overlap, and larger batches cost PostgreSQL less per event
+ * (0.44–0.46 of bare Express against 0.37–0.44 with two per process, two workers on two cores).
  */
 const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null }>(async (items) => {
   const rows = await WebhookEvent.sequelize!.query<{ id: string; seen: boolean; recorded: string | null }>(
@@ -64,7 +66,7 @@ const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null
     },
   );
   return rows.map((r) => ({ seen: r.seen, recorded: r.recorded }));
-});
+}, { maxInFlight: 1 });
 
 /**
  * The answer for the events that need no transaction: a replay (already recorded), a type the app
