@@ -1,3 +1,4 @@
+import pg from "pg";
 import PgBoss from "pg-boss";
 import type { Logger } from "pino";
 import type { Transaction } from "sequelize";
@@ -59,7 +60,9 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
       if (stopped) throw new Error("the job queue was stopped before it started");
       try {
         await boss.start();
-        for (const q of props.queues) await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+        await oneProcessAtATime(config.DATABASE_URL, async () => {
+          for (const q of props.queues) await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+        });
         return;
       } catch (err) {
         if (attempt === 0) logger.error({ err }, "the job queue could not start; retrying every 5 s");
@@ -117,4 +120,20 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
       await boss.stop({ graceful: true, wait: true, timeout: 5000 }).catch((err) => logger.warn({ err }, "job queue stop"));
     },
   };
+}
+
+/**
+ * Runs `work` while holding a PostgreSQL advisory lock that every app process asks for: pg-boss's
+ * createQueue deadlocks when two processes create the same queues at once, as the server's workers
+ * do when they start together. The lock lives on a connection of its own and ends with it.
+ */
+async function oneProcessAtATime(databaseUrl: string, work: () => Promise<void>): Promise<void> {
+  const client = new pg.Client({ connectionString: databaseUrl, application_name: "fluxwright-jobs-setup" });
+  await client.connect();
+  try {
+    await client.query("select pg_advisory_lock(hashtext('fluxwright.job-queue-setup'))");
+    await work();
+  } finally {
+    await client.end().catch(() => {});
+  }
 }

@@ -29,8 +29,10 @@ describe("the server's worker processes", () => {
   let server: CompiledServer;
 
   beforeAll(async () => {
-    // two failed sign-ins per account per quarter hour, so the third is refused
-    server = await startCompiledServer({ WEB_CONCURRENCY: "2", RATE_LIMIT_SIGN_IN: "2", JOB_SCHEDULES: "0", JOB_QUEUE_PREFIX: "workers-test." });
+    // two failed sign-ins per account per quarter hour, so the third is refused; queues of a new name
+    // and the schedules on, as in production, so both workers set the same queues up at once (without
+    // the lock in server/jobs/queue.ts, one start in four here ended in a deadlock)
+    server = await startCompiledServer({ WEB_CONCURRENCY: "2", RATE_LIMIT_SIGN_IN: "2", JOB_QUEUE_PREFIX: `workers-${Date.now()}.` });
   });
 
   afterAll(() => server?.killAll());
@@ -54,6 +56,12 @@ describe("the server's worker processes", () => {
     expect(await until(() => server.workers().length === 2 && !server.workers().includes(victim))).toBe(true);
     for (let i = 0; i < 4; i++) expect(await call(server.base, "/api/health")).toBe(200);
     expect(server.output()).toMatch(/a server worker stopped; starting another in its place/);
+  });
+
+  it("starts the job queue in every worker without a clash (they create the same queues at once)", async () => {
+    // each worker logs "the job queue could not start" when its setup fails; pg-boss's queue creation deadlocked when two ran together
+    await new Promise((r) => setTimeout(r, 1500));
+    expect(server.output()).not.toMatch(/could not start|deadlock/);
   });
 
   it("stops every worker, then itself, on SIGTERM", async () => {
