@@ -23,22 +23,22 @@ export function superviseWorkers(opts: { workers: number; env: WorkerEnv; logger
   const { workers, env, logger, url } = opts;
   new ClusterMemoryStorePrimary().init();
   const running = new Map<Worker, { index: number; startedAt: number }>();
-  let stopping = false;
+  /** the primary's exit code once it is stopping */
+  let stopping: number | null = null;
   let quickDeaths = 0;
   let listening = 0;
 
-  const fork = (index: number) => running.set(cluster.fork({ ...env(index), FLUXWRIGHT_WORKER: String(index) }), { index, startedAt: Date.now() });
+  const fork = (index: number) => running.set(cluster.fork(env(index)), { index, startedAt: Date.now() });
 
   const stop = (code: number) => {
-    if (stopping) return;
-    stopping = true;
+    if (stopping !== null) return;
+    stopping = code;
     if (!running.size) process.exit(code);
     for (const worker of running.keys()) worker.process.kill("SIGTERM");
     setTimeout(() => {
       for (const worker of running.keys()) worker.process.kill("SIGKILL");
       process.exit(code);
     }, STOP_GRACE_MS).unref();
-    cluster.on("exit", () => running.size === 0 && process.exit(code));
   };
 
   cluster.on("listening", () => {
@@ -47,7 +47,11 @@ export function superviseWorkers(opts: { workers: number; env: WorkerEnv; logger
   cluster.on("exit", (worker, code, signal) => {
     const started = running.get(worker);
     running.delete(worker);
-    if (stopping || !started) return;
+    if (stopping !== null) {
+      if (!running.size) process.exit(stopping);
+      return;
+    }
+    if (!started) return;
     quickDeaths = Date.now() - started.startedAt < QUICK_DEATH_MS ? quickDeaths + 1 : 0;
     if (quickDeaths >= CRASH_LOOP) {
       logger.fatal({ worker: started.index, code, signal }, `${CRASH_LOOP} server workers in a row stopped within ${QUICK_DEATH_MS / 1000} s of their start; stopping (see the messages above)`);
