@@ -10,10 +10,11 @@ import type { ScanRow } from "../presenters/jobs";
 import { jobViewSql, type JobView } from "./jobViews";
 
 // The job as its page shows it (the answer's job, without a second read), the scan already
-// recorded under the idempotency key if any, and — when the scan carries no step data and is the
-// job's plain next move ($9) — that move itself: the event inserted and the job moved in the same
-// statement, so most scans cost one round trip. Whatever else (a repeat, a refusal, a step that
-// needs its data checked) comes back as the read alone, and the code below decides.
+// recorded under the idempotency key if any, and — when the scan is the job's plain next move ($9)
+// with no step data but the draws done at form ($10, checked here against the draws planned) —
+// that move itself: the event inserted and the job moved in the same statement, so most scans cost
+// one round trip. Whatever else (a repeat, a refusal, a step whose data the code checks) comes back
+// as the read alone, and the code below decides.
 const SCAN = {
   name: "scan-read-or-move",
   text: `
@@ -28,6 +29,7 @@ s as (
   from v
   where $9::boolean and v.key_job_id is null and v.hold_reason is null and v.completed_at is null
     and v.routing -> v.step_index ->> 'key' = $3 and (v.step_started_at is null) = ($4 = 'start')
+    and ($10::int is null or (v.routing -> v.step_index ->> 'drawStages')::int between 1 and $10::int)
   on conflict (job_id, step_index, action) do nothing
   returning id, job_id, step, action, station, operator_id, idempotency_key, data, scanned_at, created_at),
 u as (
@@ -43,9 +45,13 @@ ${jsonRows("select v.*, s.id as moved_scan_id, s.created_at as moved_created_at 
   jsonRows: true,
 } as const;
 
+/** Completing form with the draws done: the one step datum the scan's statement checks itself (against the draws planned). */
+const formWithDraws = (step: StepKey, action: "start" | "complete", input: ScanInput) => step === "form" && action === "complete" && input.drawStagesDone !== undefined;
+
 /** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run, the lot's decision at verify). */
 const needsStepData = (step: StepKey, action: "start" | "complete", input: ScanInput) =>
-  step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined;
+  !formWithDraws(step, action, input) &&
+  (step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined);
 
 type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: string | null };
 
@@ -130,11 +136,14 @@ async function attemptScan(props: ScanProps): Promise<ScanOutcome | null> {
   const key = input.idempotencyKey ?? null;
   const scannedAt = stationTime(input.scannedAt, now);
   const plainData: ScanData = input.note ? { note: input.note } : {};
+  const draws = formWithDraws(step, input.action, input);
+  // what the statement records when it moves the job: the note, and the draws at form
+  const movedData: ScanData = draws ? { ...plainData, drawStagesDone: input.drawStagesDone, ...(input.processAnnealsDone !== undefined ? { processAnnealsDone: input.processAnnealsDone } : {}) } : plainData;
 
   let job: ReadJob | undefined;
   try {
     [job] = await prepared<ReadJob>(sequelize, SCAN, [
-      code, key, step, input.action, input.station, actor.id, JSON.stringify(plainData), scannedAt, !needsStepData(step, input.action, input),
+      code, key, step, input.action, input.station, actor.id, JSON.stringify(movedData), scannedAt, !needsStepData(step, input.action, input), draws ? input.drawStagesDone : null,
     ], transaction);
   } catch (err) {
     if (isKeyTaken(err)) throw keyReused();
@@ -146,7 +155,7 @@ async function attemptScan(props: ScanProps): Promise<ScanOutcome | null> {
     const i = job.step_index;
     const scan: ScanRow = {
       id: job.moved_scan_id, job_id: job.id, step, action: input.action, station: input.station, operator_id: actor.id, operator_name: actor.name,
-      idempotency_key: key, data: plainData as Record<string, unknown>, scanned_at: scannedAt, created_at: job.moved_created_at!,
+      idempotency_key: key, data: movedData as Record<string, unknown>, scanned_at: scannedAt, created_at: job.moved_created_at!,
     };
     return { repeat: false, scan, job: moved(job, i, input, actor, scannedAt, null, null), code: job.code };
   }

@@ -183,7 +183,7 @@ describe("POST /api/scans: step data", { timeout: 30_000 }, () => {
     expect(res.body.error.code).toBe("ALREADY_RECORDED");
   });
 
-  it("forming a drawn can records the draws done: missing is 400, fewer than planned 409", async () => {
+  it("forming a drawn can records the draws done: missing is 400, fewer than planned 409 and the job stays at form", async () => {
     const { jobs } = await buildReleasedOrder(app);
     const job = jobs[0];
     const op = await staff(app, "operator");
@@ -199,9 +199,16 @@ describe("POST /api/scans: step data", { timeout: 30_000 }, () => {
       expect(res.status).toBe(409);
       expect(res.body.error.code).toBe("DRAWS_MISSING");
     }
-    res = await scan(op, { code: job.code, step: "form", action: "complete", drawStagesDone: planned });
+    await job.reload();
+    expect(job.routing[job.stepIndex].key).toBe("form");
+    expect(await Scan.count({ where: { jobId: job.id, step: "form", action: "complete" } })).toBe(0);
+    res = await scan(op, { code: job.code, step: "form", action: "complete", drawStagesDone: planned, processAnnealsDone: planned - 1 });
     expect(res.status).toBe(201);
-    expect(res.body.event.data.drawStagesDone).toBe(planned);
+    expect(res.body.event.data).toMatchObject({ drawStagesDone: planned, processAnnealsDone: planned - 1 });
+    expect(res.body.job.steps.find((s: { key: string }) => s.key === "form").status).toBe("completed");
+    // what the answer says is what was recorded
+    const [recorded] = await Scan.findAll({ where: { jobId: job.id, step: "form", action: "complete" } });
+    expect(recorded.data).toMatchObject({ drawStagesDone: planned, processAnnealsDone: planned - 1 });
   });
 
   it("welding waits for the end caps, needs its inspection, and a failed weld is not completed", async () => {
