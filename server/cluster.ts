@@ -19,26 +19,9 @@ const CRASH_LOOP = 3;
 /** Time the workers get to finish their requests and close their connections on a stop. */
 const STOP_GRACE_MS = 15_000;
 
-/**
- * Each worker's young generation: 32 MB semi-spaces instead of V8's 16. Under the floor's load a
- * young-generation collection pauses a worker for several milliseconds (it copies what is still in
- * flight into old-space pages, which a virtual machine faults in one by one); with twice the room it
- * comes half as often, so fewer than one job lookup in a hundred meets one (lookup p99 7, 7, 7 and
- * 6 ms against 10, 10, 7 and 6 ms in alternating runs on this machine). Costs up to 32 MB more per
- * worker. A flag given to node itself (or in NODE_OPTIONS) wins.
- */
-export const YOUNG_GENERATION_FLAG = "--max-semi-space-size=32";
-
-/** The node flags a worker starts with: the primary's own, and the young generation's size unless set. */
-export function workerExecArgv(execArgv: readonly string[], nodeOptions = ""): string[] {
-  const given = [...execArgv, ...nodeOptions.split(/\s+/)].some((flag) => /^--max[-_]semi[-_]space[-_]size\b/.test(flag));
-  return given ? [...execArgv] : [...execArgv, YOUNG_GENERATION_FLAG];
-}
-
 export function superviseWorkers(opts: { workers: number; env: WorkerEnv; logger: Logger; url: string }): void {
   const { workers, env, logger, url } = opts;
   new ClusterMemoryStorePrimary().init();
-  cluster.setupPrimary({ execArgv: workerExecArgv(process.execArgv, process.env.NODE_OPTIONS) });
   const running = new Map<Worker, { index: number; startedAt: number }>();
   /** the primary's exit code once it is stopping */
   let stopping: number | null = null;
