@@ -41,7 +41,10 @@ async function certifyLot(number: string) {
     for (const [i, a] of [48.2, 48.9, 47.6, 48.4, 48.8].entries())
       await sequelize.query("insert into measured_part_records (lot_id, serial, frequency_hz, applied_field_ut, attenuation_db) values ($1, $2, 60, 50, $3)", { transaction, bind: [row.lot_id, `${number}-0${i + 1}`, a] });
     const [qa] = await sequelize.query<{ id: string }>("select id from users where email = 'qa@demo.test'", { type: QueryTypes.SELECT, transaction });
-    await queueCalibrationRefit(jobs, { actorId: qa.id, reason: `certificate of lot ${number}` }, transaction);
+    // forced: other test files certify lots into the same database and queue refits of their own, and
+    // one of those may fit this lot first; an unforced refit would then find nothing new and record no
+    // run under this certificate's reason (in the full suite the wait below then ran out)
+    await queueCalibrationRefit(jobs, { actorId: qa.id, reason: `certificate of lot ${number}`, force: true }, transaction);
   });
 }
 
