@@ -2,6 +2,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import { z } from "zod";
 import { documentNumber } from "../../shared/schemas/documents";
 import { batched } from "../db/batcher";
+import { prepared } from "../db/prepared";
 import type { Mailer } from "../jobs/mailer";
 import { CheckoutSession, Order, Payment, Quote, User, WebhookEvent, recordEvent } from "../models";
 import { invoiceIssuer } from "./invoiceIssuer";
@@ -40,16 +41,12 @@ interface TriageItem {
   sessionId: string;
 }
 
-/**
- * One statement for a batch of events: each is recorded once unless it was seen before, or it
- * names a checkout session the app knows (those need the transaction). Answers, per event,
- * whether it was seen and what was recorded. One batch in flight per process: with a worker per
- * core the workers' batches already overlap, and larger batches cost PostgreSQL less per event
- * (0.44–0.46 of bare Express against 0.37–0.44 with two per process, two workers on two cores).
- */
-const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null }>(async (items) => {
-  const rows = await WebhookEvent.sequelize!.query<{ id: string; seen: boolean; recorded: string | null }>(
-    `with input as (
+// A named statement: one text whatever the batch's size (the events come as arrays), so PostgreSQL
+// plans it once per connection; sent unnamed, parsing and planning it cost more than running it
+// (perf: 14 % of the machine against 7.5 % for its execution under the webhook bench).
+const TRIAGE = {
+  name: "payment-event-triage",
+  text: `with input as (
        select * from unnest($1::text[], $2::text[], $3::text[], $4::jsonb[], $5::bool[], $6::text[]) as t(id, type, outcome, payload, always, session_id)),
      existing as (select w.id from webhook_events w where w.id in (select id from input)),
      ins as (
@@ -60,11 +57,19 @@ const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null
        on conflict (id) do nothing
        returning id, outcome)
      select i.id, i.id in (select id from existing) as seen, (select outcome from ins where ins.id = i.id limit 1) as recorded from input i`,
-    {
-      bind: [items.map((i) => i.id), items.map((i) => i.type), items.map((i) => i.outcome), items.map((i) => i.payload), items.map((i) => i.always), items.map((i) => i.sessionId)],
-      type: QueryTypes.SELECT,
-    },
-  );
+} as const;
+
+/**
+ * One statement for a batch of events: each is recorded once unless it was seen before, or it
+ * names a checkout session the app knows (those need the transaction). Answers, per event,
+ * whether it was seen and what was recorded. One batch in flight per process: with a worker per
+ * core the workers' batches already overlap, and larger batches cost PostgreSQL less per event
+ * (0.44–0.46 of bare Express against 0.37–0.44 with two per process, two workers on two cores).
+ */
+const triageBatch = batched<TriageItem, { seen: boolean; recorded: string | null }>(async (items) => {
+  const rows = await prepared<{ id: string; seen: boolean; recorded: string | null }>(WebhookEvent.sequelize!, TRIAGE, [
+    items.map((i) => i.id), items.map((i) => i.type), items.map((i) => i.outcome), items.map((i) => i.payload), items.map((i) => i.always), items.map((i) => i.sessionId),
+  ]);
   return rows.map((r) => ({ seen: r.seen, recorded: r.recorded }));
 }, { maxInFlight: 1 });
 
