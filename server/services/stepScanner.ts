@@ -48,10 +48,17 @@ ${jsonRows("select v.*, s.id as moved_scan_id, s.created_at as moved_created_at 
 /** Completing form with the draws done: the one step datum the scan's statement checks itself (against the draws planned). */
 const formWithDraws = (step: StepKey, action: "start" | "complete", input: ScanInput) => step === "form" && action === "complete" && input.drawStagesDone !== undefined;
 
-/** Scans that carry step data the code checks (heat, draws, weld inspection, components, furnace run, the lot's decision at verify). */
+/** Scans that carry step data the code checks (heat, missing draws, weld inspection, components, furnace run, the lot's decision at verify). */
 const needsStepData = (step: StepKey, action: "start" | "complete", input: ScanInput) =>
-  !formWithDraws(step, action, input) &&
-  (step === "material" || step === "weld" || (step === "form" && action === "complete") || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined);
+  step === "form" && action === "complete"
+    ? input.drawStagesDone === undefined
+    : step === "material" || step === "weld" || (step === "anneal" && action === "complete") || (step === "verify" && action === "complete") || input.drawStagesDone !== undefined;
+
+/** The draws done at form (and the process anneals between them), as a scan records them. */
+const drawsData = (input: ScanInput): ScanData => ({
+  drawStagesDone: input.drawStagesDone,
+  ...(input.processAnnealsDone !== undefined ? { processAnnealsDone: input.processAnnealsDone } : {}),
+});
 
 type ReadJob = JobView & { key_job_id: string | null; key_step: string | null; key_action: string | null; moved_scan_id: string | null; moved_created_at: string | null };
 
@@ -138,7 +145,7 @@ async function attemptScan(props: ScanProps): Promise<ScanOutcome | null> {
   const plainData: ScanData = input.note ? { note: input.note } : {};
   const draws = formWithDraws(step, input.action, input);
   // what the statement records when it moves the job: the note, and the draws at form
-  const movedData: ScanData = draws ? { ...plainData, drawStagesDone: input.drawStagesDone, ...(input.processAnnealsDone !== undefined ? { processAnnealsDone: input.processAnnealsDone } : {}) } : plainData;
+  const movedData: ScanData = draws ? { ...plainData, ...drawsData(input) } : plainData;
 
   let job: ReadJob | undefined;
   try {
@@ -195,8 +202,7 @@ async function attemptScan(props: ScanProps): Promise<ScanOutcome | null> {
     if (input.drawStagesDone < routingStep.drawStages) {
       throw ConflictError("DRAWS_MISSING", `${capital(what)} needs ${routingStep.drawStages} draws${routingStep.processAnneals ? ` with ${routingStep.processAnneals} process anneal${routingStep.processAnneals === 1 ? "" : "s"} between them` : ""}; ${input.drawStagesDone} recorded. Finish the draws before completing form.`);
     }
-    data.drawStagesDone = input.drawStagesDone;
-    if (input.processAnnealsDone !== undefined) data.processAnnealsDone = input.processAnnealsDone;
+    Object.assign(data, drawsData(input));
   }
   if (step === "weld" && input.action === "start") {
     const waiting = await sequelize.query<{ code: string }>(`select code from jobs where assembly_job_id = $1 and completed_at is null order by seq`, { bind: [job.id], type: QueryTypes.SELECT, transaction });
