@@ -4,6 +4,7 @@ source "$(dirname "$0")/lib/common.sh"
 cd "$ROOT"
 ensure_node_modules
 ensure_postgres_binaries
+ensure_wrk
 port=${BENCH_PGPORT:-54359}
 while (echo >"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do port=$((port + 1)); done
 PGROOT=$(pg_root_for "bench-$port")

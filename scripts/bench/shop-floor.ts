@@ -4,14 +4,17 @@
 // and the floor board's statement.
 import autocannon from "autocannon";
 import { execFileSync } from "node:child_process";
-import { readFileSync, readdirSync } from "node:fs";
-import { loadavg } from "node:os";
+import { mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
+import { loadavg, tmpdir } from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
 import pg from "pg";
 import { Sequelize } from "sequelize";
 import { floorBoard } from "../../server/services/floorBoard";
 import { serve } from "./http";
 import type { BenchRow } from "./types";
 
+const here = path.dirname(fileURLToPath(import.meta.url));
 const JOBS = 100_000;
 const SCANS = 1_000_000;
 const JOBS_PER_LOT = 5;
@@ -154,43 +157,34 @@ async function signIn(base: string, email: string): Promise<{ cookie: string; cs
 }
 
 /**
- * Scans per second: ten stations, each moving its own jobs on (blank start and complete, form
- * start and complete with its draws, clean start and complete); every answer must be a new event.
+ * Scans per second: ten stations, each job moved on (blank start and complete, form start and
+ * complete with its draws, clean start and complete), driven by wrk (scans.lua). wrk is C, as
+ * pgbench's own client is: both load generators take their share of the same two cores, and
+ * autocannon's JavaScript client took 0.15–0.45 ms of CPU per scan, a tenth of the machine, that a
+ * station on the floor never costs the server. Every answer must be a new event: wrk counts the
+ * answers that were not 2xx, and the events recorded must be as many as the answers (a repeat,
+ * answered 200, records nothing).
  */
-async function scanRate(base: string, sessions: Array<{ cookie: string; csrf: string }>, codes: () => string, seconds: number): Promise<number> {
-  const steps: Array<[string, "start" | "complete", Record<string, unknown>]> = [
-    ["blank", "start", {}], ["blank", "complete", {}], ["form", "start", {}], ["form", "complete", { drawStagesDone: 2 }], ["clean", "start", {}], ["clean", "complete", {}],
-  ];
-  let next = 0;
-  let refused = "";
-  const result = await autocannon({
-    url: `${base}/api/scans`,
-    connections: 10,
-    duration: seconds,
-    requests: steps.map(([step, action, data], i) => ({
-      method: "POST" as const,
-      setupRequest: (req: autocannon.Request, context: object) => {
-        const ctx = context as { code?: string; session?: { cookie: string; csrf: string } };
-        if (i === 0) {
-          ctx.code = codes();
-          ctx.session = sessions[next++ % sessions.length];
-        }
-        return {
-          ...req,
-          body: JSON.stringify({ code: ctx.code, step, action, station: "bench station", ...data }),
-          headers: { "content-type": "application/json", cookie: ctx.session!.cookie, "x-csrf-token": ctx.session!.csrf },
-        };
-      },
-      onResponse: (status: number, body: string) => {
-        if (status !== 201 && !refused) refused = `${status} ${body.slice(0, 300)}`;
-      },
-    })),
-  });
-  const created = Number(result.statusCodeStats?.["201"]?.count ?? 0);
-  if (result.errors > 0 || created !== result.requests.total) {
-    throw new Error(`scans: ${result.requests.total} sent, ${created} new events, ${result.errors} errors: ${JSON.stringify(result.statusCodeStats)}; first refusal: ${refused}`);
+async function scanRate(base: string, sessions: Array<{ cookie: string; csrf: string }>, codes: (n: number) => string[], seconds: number, db: pg.Client): Promise<number> {
+  const dir = mkdtempSync(path.join(tmpdir(), "fluxwright-scans-"));
+  try {
+    const input = path.join(dir, "input.txt");
+    // more jobs than ten stations move in the time here (6 scans a job, 1 500 scans/s; 6 000 wait)
+    writeFileSync(input, [...sessions.map((s) => `${s.cookie}\t${s.csrf}`), ...codes(Math.ceil((1500 * seconds) / 6))].join("\n") + "\n");
+    const recorded = async () => (await db.query<{ n: number }>(`select count(*)::int as n from scans where station = 'bench station'`)).rows[0].n;
+    const before = await recorded();
+    const out = execFileSync("wrk", ["-t2", "-c10", `-d${seconds}s`, "-s", path.join(here, "scans.lua"), `${base}/api/scans`, "--", input, "2"], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
+    const events = (await recorded()) - before;
+    const answers = JSON.parse(out.trim().split("\n").pop()!) as { requests: number; notOk: number; socketErrors: number; ranOut: boolean };
+    if (answers.ranOut) throw new Error(`scans: the stations ran out of jobs before the ${seconds} s were over; give them more`);
+    // wrk's own check request (see scans.lua) may be one answer without an event
+    if (answers.notOk > 0 || answers.socketErrors > 0 || events < answers.requests - 1) {
+      throw new Error(`scans: ${answers.requests} answers, ${answers.notOk} not 2xx, ${answers.socketErrors} socket errors, ${events} new events recorded:\n${out}`);
+    }
+    return Math.min(answers.requests, events) / seconds;
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
   }
-  return result.requests.total / seconds;
 }
 
 export async function benchShopFloor(seconds = 3, rounds = 3): Promise<BenchRow[]> {
@@ -247,14 +241,15 @@ export async function benchShopFloor(seconds = 3, rounds = 3): Promise<BenchRow[
       `select j.code from jobs j join lots l on l.id = j.lot_id where l.number like 'LB-%' and j.current_step = 'blank' and j.step_started_at is null and j.completed_at is null order by j.seq`,
     );
     let taken = 0;
-    const codes = () => {
-      if (taken >= waiting.length) throw new Error("the bench ran out of jobs waiting at the blank");
-      return waiting[taken++].code;
+    const codes = (n: number) => {
+      if (taken + n > waiting.length) throw new Error(`the bench ran out of jobs waiting at the blank (${waiting.length})`);
+      taken += n;
+      return waiting.slice(taken - n, taken).map((w) => w.code);
     };
     // warm-up, as for quotes (ordering.ts): the figure is that of a server in service, after V8 has
     // optimised the scan's path in every worker (some thousands of scans each), not of processes just
     // started (after 5 s, shared by two workers, the first round still ran a tenth slower)
-    await scanRate(app.url, sessions, codes, 10);
+    await scanRate(app.url, sessions, codes, 10, client);
     pgbenchTps(url, 1);
     const ratios: number[] = [];
     const scanRuns: number[] = [];
@@ -267,7 +262,7 @@ export async function benchShopFloor(seconds = 3, rounds = 3): Promise<BenchRow[
       pgRuns.push(pgbenchTps(url, seconds));
       await settle();
       const cpu0 = cpuMs(app.child.pid!);
-      scanRuns.push(await scanRate(app.url, sessions, codes, seconds));
+      scanRuns.push(await scanRate(app.url, sessions, codes, seconds, client));
       cpuPerScan.push((cpuMs(app.child.pid!) - cpu0) / (scanRuns[i] * seconds));
       await settle();
       ratios.push(scanRuns[i] / pgRuns[i]);

@@ -97,6 +97,14 @@ ensure_poppler() {
   fi
 }
 
+# wrk: the scan benchmark's load generator (scripts/bench/scans.lua), a C client as pgbench's is.
+ensure_wrk() {
+  if ! command -v wrk >/dev/null; then
+    log "installing wrk from Debian (the scan benchmark's load generator)"
+    apt_install wrk
+  fi
+}
+
 # The cluster lives in .data/ of the checkout when the postgres user can reach it, else in a
 # folder of its own under the temporary folder, named after a hash of the checkout path.
 pg_root_for() { # $1 = name (start|test)
