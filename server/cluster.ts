@@ -2,9 +2,9 @@ import cluster, { type Worker } from "node:cluster";
 import { ClusterMemoryStorePrimary } from "@express-rate-limit/cluster-memory-store";
 import type { Logger } from "pino";
 
-// The server as worker processes (how many: defaultWorkers in config.ts): Node runs JavaScript on
-// one thread, so on a machine of many cores a single process would leave the others idle. The
-// primary only supervises: it shares the listening socket with its workers (node:cluster hands
+// The server as one process per core: Node runs JavaScript on one thread, so a single process
+// leaves the other cores to PostgreSQL alone and, while it is busy, every request waits for it.
+// The primary only supervises: it shares the listening socket with its workers (node:cluster hands
 // each new connection to the next worker), keeps the rate limits' counts for all of them (so a
 // limit means the same with one worker or eight), starts a worker again when one dies, and stops
 // them all on SIGINT or SIGTERM. Each worker is the whole app (server/index.ts).

@@ -1,5 +1,4 @@
 import { availableParallelism } from "node:os";
-import { parse as parseConnectionString } from "pg-connection-string";
 import path from "node:path";
 import { z } from "zod";
 import { projectRoot } from "./project-root";
@@ -14,7 +13,7 @@ const envSchema = z.object({
   HOST: z.string().default("127.0.0.1"),
   APP_URL: z.string().url().optional(),
   DATABASE_URL: z.string().default("postgres://postgres@127.0.0.1:54329/fluxwright"),
-  /** server worker processes (server/cluster.ts); default in defaultWorkers below; 1 serves from a single process */
+  /** server processes (server/cluster.ts); default one per core, 1 serves from a single process */
   WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
   /** each server process's database connections; default its share of twice the cores and one (server/db/sequelize.ts) */
   DB_POOL_MAX: z.coerce.number().int().min(2).max(200).optional(),
@@ -42,30 +41,7 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
 });
 
-export type Config = z.infer<typeof envSchema> & {
-  appUrl: string;
-  paymentsUrl: string;
-  production: boolean;
-  schedules: boolean;
-  /** worker processes serving requests */
-  workers: number;
-  /** a primary supervises the workers (restarts one that dies); only WEB_CONCURRENCY=1 serves from a single process */
-  supervised: boolean;
-};
-
-/** PostgreSQL runs on this machine: the database URL names a loopback address or a socket folder (read as node-postgres reads it). */
-export function databaseIsLocal(databaseUrl: string): boolean {
-  const host = parseConnectionString(databaseUrl).host ?? "";
-  return host === "" || host.startsWith("/") || host === "localhost" || host === "::1" || host.startsWith("127.");
-}
-
-/**
- * One worker per core, less one when PostgreSQL shares the machine: its backends need a core of
- * their own under write traffic. On two cores with the database beside the server, one worker
- * answered the scan, quote and payment-event benchmarks as fast as two or faster (quote p99 24 and
- * 37 ms against 45 and 53), because two workers left PostgreSQL waiting for the cores.
- */
-export const defaultWorkers = (databaseUrl: string, cores = availableParallelism()) => (databaseIsLocal(databaseUrl) ? Math.max(1, cores - 1) : cores);
+export type Config = z.infer<typeof envSchema> & { appUrl: string; paymentsUrl: string; production: boolean; schedules: boolean; workers: number };
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.parse(env);
@@ -75,7 +51,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     paymentsUrl: parsed.PAYMENTS_URL ?? `http://127.0.0.1:${parsed.PAYMENTS_PORT}`,
     schedules: parsed.JOB_SCHEDULES ?? parsed.NODE_ENV !== "test",
     production: parsed.NODE_ENV === "production",
-    workers: parsed.WEB_CONCURRENCY ?? defaultWorkers(parsed.DATABASE_URL),
-    supervised: parsed.WEB_CONCURRENCY !== 1,
+    workers: parsed.WEB_CONCURRENCY ?? availableParallelism(),
   };
 }

@@ -6,7 +6,7 @@ import { defaultPoolMax } from "./db/sequelize";
 
 const config = loadConfig();
 
-if (cluster.isPrimary && config.supervised) {
+if (cluster.isPrimary && config.workers > 1) {
   // Each worker's share of the database connections unless DB_POOL_MAX says, and the scheduled jobs
   // in the first worker only (pg-boss hands each queued job to one worker of any process anyway).
   superviseWorkers({

@@ -1,15 +1,15 @@
 // A server for the HTTP benchmarks, in its own process so the load generator does not share its CPU.
-// `serve.ts app PORT` serves Fluxwright through its production entry (server/index.ts: its worker
-// processes, as many as config.ts's default or WEB_CONCURRENCY says, under a primary);
-// `serve.ts bare PORT` a bare Express JSON route for comparison, in as many worker processes under
-// a primary of its own, so a ratio compares like with like. Tells its parent "ready" once every
-// worker listens.
+// `serve.ts app PORT` serves Fluxwright through its production entry (server/index.ts: one worker
+// process per core, or WEB_CONCURRENCY); `serve.ts bare PORT` a bare Express JSON route for
+// comparison, in as many worker processes, so a ratio compares like with like. Tells its parent
+// "ready" once every worker listens.
 import cluster from "node:cluster";
 import express from "express";
 import { loadConfig } from "../../server/config";
 
 const [kind, port] = process.argv.slice(2);
-const { workers, supervised: clustered } = loadConfig();
+const { workers } = loadConfig();
+const clustered = workers > 1;
 
 if (cluster.isPrimary) {
   let listening = 0;
