@@ -26,10 +26,11 @@ if (cluster.isPrimary && config.workers > 1) {
 async function serve(config: Config) {
   const { createApp } = await import("./app");
   const { closeSequelize } = await import("./db/sequelize");
+  const { createHttpServer } = await import("./http-server");
   const app = createApp({ config });
   const { logger } = app.locals.deps;
 
-  const server = app.listen(config.PORT, config.HOST, () => {
+  const server = createHttpServer(app).listen(config.PORT, config.HOST, () => {
     if (cluster.isPrimary) logger.info(`Fluxwright listening on http://${config.HOST}:${config.PORT}`);
   });
   server.on("error", (err) => {

@@ -10,6 +10,7 @@ import { createApp, type FluxwrightApp } from "../../server/app";
 import { seedDemo } from "../../server/db/seed";
 import { closeSequelize } from "../../server/db/sequelize";
 import { testConfig } from "./app";
+import { createHttpServer } from "../../server/http-server";
 
 export const SCREENSHOTS = path.resolve(".test-results/screenshots");
 export const DEMO_PASSWORD = "fluxwright-demo";
@@ -56,7 +57,8 @@ export function useBrowser(): BrowserHarness {
     const config = testConfig({ RATE_LIMIT_PUBLIC: "0" });
     h.app = createApp({ config, serveClient: true });
     await seedDemo(h.app.locals.deps.sequelize, { password: DEMO_PASSWORD, store: h.app.locals.deps.files });
-    server = h.app.listen(0, "127.0.0.1");
+    // served as server/index.ts serves it
+    server = createHttpServer(h.app).listen(0, "127.0.0.1");
     await new Promise((r) => server.once("listening", r));
     h.baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
     profile = mkdtempSync(path.join(tmpdir(), "fw-chromium-"));

@@ -17,6 +17,7 @@ import { paymentEventRecorder } from "../../server/services/paymentEventRecorder
 import { quoteBuilder } from "../../server/services/quoteBuilder";
 import { quoteConfigurationExample } from "../../shared/schemas/contract-examples";
 import type { QuoteConfiguration } from "../../shared/schemas/quote";
+import { createHttpServer } from "../../server/http-server";
 
 export const WEBHOOK_SECRET = "whsec_fluxwright_local";
 export const paymentsUrl = () => `http://127.0.0.1:${inject("paymentsPort")}`;
@@ -74,7 +75,7 @@ export function receivePaymentEvents(app: FluxwrightApp): { baseUrl: () => strin
   let endpointId: string | undefined;
   let baseUrl = "";
   beforeAll(async () => {
-    server = app.listen(0, "127.0.0.1");
+    server = createHttpServer(app).listen(0, "127.0.0.1");
     await new Promise((r) => server.once("listening", r));
     baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
     const endpoint = await app.locals.deps.stripe.webhookEndpoints.create({ url: `${baseUrl}/api/webhooks/stripe`, enabled_events: ["*"] });
