@@ -26,8 +26,8 @@ const ROUTING = JSON.stringify([
 const STEPS = ["material", "blank", "form", "clean", "anneal", "verify", "pack"];
 
 /**
- * The floor of a shop some years in: 90 % of the jobs finished and shipped, 2 000 in verify and pack
- * after their furnace run, 2 000 spread over the steps before the anneal, and 6 000 just issued
+ * The floor of a shop some years in: 84 % of the jobs finished and shipped, 2 000 in verify and pack
+ * after their furnace run, 2 000 spread over the steps before the anneal, and 12 000 just issued
  * (material done, waiting for the blank) for the scan benchmark to move on. 1 000 000 scans for the
  * finished ones. Loaded with the foreign-key triggers off (session_replication_role), as a restore would.
  */
@@ -44,17 +44,17 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
   );
   const { rows: [shipment] } = await client.query(`insert into shipments (order_id, carrier, tracking_number, parts) values ($1, 'Bench Freight', 'BENCH', '[]') returning id`, [order.id]);
   const lots = JOBS / JOBS_PER_LOT;
-  // lots 1–18 000 shipped, 18 001–18 400 annealed, the rest before the furnace
+  // lots 1–16 800 shipped, 16 801–17 200 annealed, the rest before the furnace
   await client.query(
     `insert into lots (seq, number, order_id, material_id, pieces, mass_kg, due_date, furnace_run_id, shipment_id, created_at)
      select nextval('lot_number_seq'), 'LB-' || g, $1, 'ni80', 5, 1.5, current_date + (g % 40) - 20,
-       case when g <= 18400 then $2::uuid end, case when g <= 18000 then $3::uuid end, now() - ((${lots} - g) / 20) * interval '1 day'
+       case when g <= 17200 then $2::uuid end, case when g <= 16800 then $3::uuid end, now() - ((${lots} - g) / 20) * interval '1 day'
      from generate_series(1, ${lots}) g`,
     [order.id, run.id, shipment.id],
   );
   const { rows: [first] } = await client.query(`select min(seq) as seq from lots where number like 'LB-%'`);
   const lot0 = Number(first.seq) - 1;
-  // job n of lot g: finished (g ≤ 18 000), at verify or pack (≤ 18 400), spread before the anneal (≤ 18 800), else waiting at blank
+  // job n of lot g: finished (g ≤ 16 800), at verify or pack (≤ 17 200), spread before the anneal (≤ 17 600), else waiting at blank
   await client.query(
     `insert into jobs (order_id, lot_id, layer, role, method, material_id, thickness_mm, quantity, finished_piece, blank, flat_pattern, area_mm2, mass_kg,
        draw_stages, process_anneals, routing, step_index, step_started_at, current_step, anneal_index, due_date, completed_at, created_at)
@@ -64,17 +64,17 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
      from generate_series(1, ${JOBS}) n
      join lots l on l.seq = ${lot0} + (n - 1) / ${JOBS_PER_LOT} + 1
      cross join lateral (select
-       case when (n - 1) / ${JOBS_PER_LOT} + 1 <= 18000 then 7
-            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 18400 then 5 + n % 2
-            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 18800 then n % 5
+       case when (n - 1) / ${JOBS_PER_LOT} + 1 <= 16800 then 7
+            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 17200 then 5 + n % 2
+            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 17600 then n % 5
             else 1 end as idx,
-       (n % 3 = 0 and (n - 1) / ${JOBS_PER_LOT} + 1 between 18001 and 18800) as started) s
+       (n % 3 = 0 and (n - 1) / ${JOBS_PER_LOT} + 1 between 16801 and 17600) as started) s
      order by n`,
     [order.id, ROUTING],
   );
   const { rows: [jobs] } = await client.query(`select min(seq) as seq from jobs where lot_id in (select id from lots where number like 'LB-%')`);
   const firstSeq = Number(jobs.seq);
-  // ten scans (steps 0–4, start and complete) for each of the 90 000 finished jobs, and the verify step of 50 000 of them
+  // ten scans (steps 0–4, start and complete) for each of the 84 000 finished jobs, and the verify step of 80 000 of them
   await client.query(
     `with finished as (
        select j.id, j.created_at, row_number() over (order by j.seq) as r
@@ -84,7 +84,7 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
      from finished f
      cross join generate_series(0, 5) st(i)
      cross join (values ('start'), ('complete')) a(action)
-     where st.i < 5 or f.r <= ${(SCANS - 0.9 * JOBS * 10) / 2}`,
+     where st.i < 5 or f.r <= ${(SCANS - 0.84 * JOBS * 10) / 2}`,
     [operator.id],
   );
   await client.query("commit");
@@ -169,8 +169,8 @@ async function scanRate(base: string, sessions: Array<{ cookie: string; csrf: st
   const dir = mkdtempSync(path.join(tmpdir(), "fluxwright-scans-"));
   try {
     const input = path.join(dir, "input.txt");
-    // more jobs than ten stations move in the time here (6 scans a job, 1 500 scans/s; 6 000 wait)
-    writeFileSync(input, [...sessions.map((s) => `${s.cookie}\t${s.csrf}`), ...codes(Math.ceil((1500 * seconds) / 6))].join("\n") + "\n");
+    // more jobs than ten stations move in the time here (6 scans a job, 2 500 scans/s; 12 000 wait)
+    writeFileSync(input, [...sessions.map((s) => `${s.cookie}\t${s.csrf}`), ...codes(Math.ceil((2500 * seconds) / 6))].join("\n") + "\n");
     const recorded = async () => (await db.query<{ n: number }>(`select count(*)::int as n from scans where station = 'bench station'`)).rows[0].n;
     const before = await recorded();
     const out = execFileSync("wrk", ["-t2", "-c10", `-d${seconds}s`, "-s", path.join(here, "scans.lua"), `${base}/api/scans`, "--", input, "2"], { encoding: "utf8", stdio: ["ignore", "pipe", "pipe"] });
