@@ -27,6 +27,9 @@ export async function serve(kind: "app" | "bare" | "bare-like-app"): Promise<{ u
   return { url: `http://127.0.0.1:${port}`, child };
 }
 
+/** The middle run of an odd number of runs (the benches' rounds). */
+export const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
 export interface HttpCase {
   name: string;
   method?: "GET" | "POST";
@@ -56,7 +59,6 @@ export async function rps(url: string, c: { method?: string; body?: unknown }, s
  * information: the ratio to it is the app's own work, apart from how its server builds requests.
  */
 export async function versusBare(run: { app: () => Promise<number>; bare: () => Promise<number>; bareLikeApp: () => Promise<number> }, rounds: number) {
-  const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
   const app: number[] = [], bare: number[] = [], bareLikeApp: number[] = [];
   for (let i = 0; i < rounds; i++) {
     bare.push(await run.bare());

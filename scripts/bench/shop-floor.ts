@@ -11,14 +11,20 @@ import { fileURLToPath } from "node:url";
 import pg from "pg";
 import { Sequelize } from "sequelize";
 import { floorBoard } from "../../server/services/floorBoard";
-import { serve } from "./http";
+import { median, serve } from "./http";
 import type { BenchRow } from "./types";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const JOBS = 100_000;
 const SCANS = 1_000_000;
 const JOBS_PER_LOT = 5;
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+// the floor's lots by their order of release: finished and shipped up to FINISHED, annealed (at
+// verify or pack) up to ANNEALED, spread over the steps before the anneal up to STARTED, and the
+// rest just issued, waiting at the blank for the scan benchmark
+const FINISHED = 16_800;
+const ANNEALED = 17_200;
+const STARTED = 17_600;
+const FINISHED_JOBS = FINISHED * JOBS_PER_LOT;
 
 const ROUTING = JSON.stringify([
   { key: "material" }, { key: "blank" }, { key: "form", drawStages: 2, processAnneals: 1 }, { key: "clean" }, { key: "anneal" }, { key: "verify" }, { key: "pack" },
@@ -44,17 +50,16 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
   );
   const { rows: [shipment] } = await client.query(`insert into shipments (order_id, carrier, tracking_number, parts) values ($1, 'Bench Freight', 'BENCH', '[]') returning id`, [order.id]);
   const lots = JOBS / JOBS_PER_LOT;
-  // lots 1–16 800 shipped, 16 801–17 200 annealed, the rest before the furnace
   await client.query(
     `insert into lots (seq, number, order_id, material_id, pieces, mass_kg, due_date, furnace_run_id, shipment_id, created_at)
      select nextval('lot_number_seq'), 'LB-' || g, $1, 'ni80', 5, 1.5, current_date + (g % 40) - 20,
-       case when g <= 17200 then $2::uuid end, case when g <= 16800 then $3::uuid end, now() - ((${lots} - g) / 20) * interval '1 day'
+       case when g <= ${ANNEALED} then $2::uuid end, case when g <= ${FINISHED} then $3::uuid end, now() - ((${lots} - g) / 20) * interval '1 day'
      from generate_series(1, ${lots}) g`,
     [order.id, run.id, shipment.id],
   );
   const { rows: [first] } = await client.query(`select min(seq) as seq from lots where number like 'LB-%'`);
   const lot0 = Number(first.seq) - 1;
-  // job n of lot g: finished (g ≤ 16 800), at verify or pack (≤ 17 200), spread before the anneal (≤ 17 600), else waiting at blank
+  // job n of lot g: finished, at verify or pack, spread before the anneal, or waiting at the blank (the lots above)
   await client.query(
     `insert into jobs (order_id, lot_id, layer, role, method, material_id, thickness_mm, quantity, finished_piece, blank, flat_pattern, area_mm2, mass_kg,
        draw_stages, process_anneals, routing, step_index, step_started_at, current_step, anneal_index, due_date, completed_at, created_at)
@@ -64,17 +69,17 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
      from generate_series(1, ${JOBS}) n
      join lots l on l.seq = ${lot0} + (n - 1) / ${JOBS_PER_LOT} + 1
      cross join lateral (select
-       case when (n - 1) / ${JOBS_PER_LOT} + 1 <= 16800 then 7
-            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 17200 then 5 + n % 2
-            when (n - 1) / ${JOBS_PER_LOT} + 1 <= 17600 then n % 5
+       case when (n - 1) / ${JOBS_PER_LOT} + 1 <= ${FINISHED} then 7
+            when (n - 1) / ${JOBS_PER_LOT} + 1 <= ${ANNEALED} then 5 + n % 2
+            when (n - 1) / ${JOBS_PER_LOT} + 1 <= ${STARTED} then n % 5
             else 1 end as idx,
-       (n % 3 = 0 and (n - 1) / ${JOBS_PER_LOT} + 1 between 16801 and 17600) as started) s
+       (n % 3 = 0 and (n - 1) / ${JOBS_PER_LOT} + 1 between ${FINISHED + 1} and ${STARTED}) as started) s
      order by n`,
     [order.id, ROUTING],
   );
   const { rows: [jobs] } = await client.query(`select min(seq) as seq from jobs where lot_id in (select id from lots where number like 'LB-%')`);
   const firstSeq = Number(jobs.seq);
-  // ten scans (steps 0–4, start and complete) for each of the 84 000 finished jobs, and the verify step of 80 000 of them
+  // ten scans (steps 0–4, start and complete) for each finished job, and the verify step of as many as make SCANS
   await client.query(
     `with finished as (
        select j.id, j.created_at, row_number() over (order by j.seq) as r
@@ -84,7 +89,7 @@ async function loadFloor(client: pg.Client): Promise<{ firstSeq: number }> {
      from finished f
      cross join generate_series(0, 5) st(i)
      cross join (values ('start'), ('complete')) a(action)
-     where st.i < 5 or f.r <= ${(SCANS - 0.84 * JOBS * 10) / 2}`,
+     where st.i < 5 or f.r <= ${(SCANS - FINISHED_JOBS * 10) / 2}`,
     [operator.id],
   );
   await client.query("commit");
