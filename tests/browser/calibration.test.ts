@@ -91,7 +91,11 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     expect(await page.locator('[data-group="ni50|bent"]').count()).toBe(1);
     await h.shot(page, "control-charts-qa-laptop");
 
-    // the refit the certificate queued: kept with who asked and why
+    // the refit the certificate queued: kept with who asked and why. The job queue runs it when the
+    // suite's other files leave it room, so wait for its run to be recorded before opening the page
+    // (in one full run of the suite it came after the page had stopped polling)
+    const recorded = async () => (await h.app.locals.deps.sequelize.query("select 1 from calibration_runs where reason = $1", { bind: [`certificate of lot ${number}`], type: QueryTypes.SELECT })).length > 0;
+    for (let waited = 0; !(await recorded()) && waited < 60_000; waited += 500) await new Promise((r) => setTimeout(r, 500));
     await page.goto(`${h.baseUrl}/quality/calibration`);
     await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor({ timeout: 30_000 });
 
@@ -130,7 +134,7 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     await h.shot(page, "design-check-calibrated");
     expect(consoleErrors).toEqual([]);
     await page.close();
-  });
+  }, 120_000);
 
   it("the phone: no sideways scroll on either page", async () => {
     const { page } = await h.newPage();
