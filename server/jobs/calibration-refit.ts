@@ -1,5 +1,5 @@
 import type { Logger } from "pino";
-import type { Sequelize, Transaction } from "sequelize";
+import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import type { Config } from "../config";
 import { calibrationRefitter } from "../services/calibrationRefitter";
 import type { MeasuredLotsReader } from "../services/measuredLotsReader";
@@ -20,21 +20,75 @@ export interface RefitRequest {
 }
 
 /**
- * Queue a refit inside the caller's transaction: it exists exactly when the change that asked for
- * it (a certificate issued, a lot decided) commits. THE hook for the certificate's issuer.
+ * Keep the ask and queue a refit, both inside the caller's transaction: they exist exactly when the
+ * change that asked (a certificate issued, a lot decided) commits. THE hook for the certificate's
+ * issuer. When a refit is already waiting, the queue adds none and the waiting one answers this ask.
  */
-export function queueCalibrationRefit(jobs: JobQueue, request: RefitRequest, transaction?: Transaction): Promise<string | null> {
-  return transaction ? jobs.sendInTransaction(CALIBRATION_REFIT_QUEUE, request, transaction) : jobs.send(CALIBRATION_REFIT_QUEUE, request);
+export async function queueCalibrationRefit(deps: { jobs: JobQueue; sequelize: Sequelize }, request: RefitRequest, transaction: Transaction): Promise<void> {
+  await deps.sequelize.query("insert into calibration_refit_requests (requested_by_id, reason, force) values ($1, $2, $3)", {
+    bind: [request.actorId ?? null, request.reason.slice(0, 200), request.force ?? false],
+    transaction,
+  });
+  await deps.jobs.sendInTransaction(CALIBRATION_REFIT_QUEUE, {}, transaction);
+}
+
+export interface OpenRefitRequest {
+  id: string;
+  requested_by_id: string | null;
+  reason: string;
+  force: boolean;
+}
+
+const REASONS_MAX = 1000;
+
+/** Asks answered by one refit: every reason once, in the order asked; forced if any was; asked by the first who asked. */
+export function combineRefitRequests(open: OpenRefitRequest[]): RefitRequest & { answers: string[] } {
+  const reasons = [...new Set(open.map((r) => r.reason))];
+  let reason = "";
+  let named = 0;
+  for (const r of reasons) {
+    const next = named ? `${reason}; ${r}` : r;
+    if (next.length > REASONS_MAX - 20) break;
+    reason = next;
+    named++;
+  }
+  if (named < reasons.length) reason += `; and ${reasons.length - named} more`;
+  return {
+    actorId: open.find((r) => r.requested_by_id)?.requested_by_id ?? null,
+    reason,
+    force: open.some((r) => r.force),
+    answers: open.map((r) => r.id),
+  };
+}
+
+/** Asks not yet answered, oldest first. */
+export async function openRefitRequests(sequelize: Sequelize, limit = 200): Promise<OpenRefitRequest[]> {
+  return sequelize.query<OpenRefitRequest>(
+    "select id, requested_by_id, reason, force from calibration_refit_requests where answered_at is null order by requested_at, id limit $1",
+    { bind: [limit], type: QueryTypes.SELECT },
+  );
 }
 
 /** The worker, and a check every ten minutes that refits when the measured lots changed by any other way. */
 export async function startCalibrationRefits(props: { queue: JobQueue; sequelize: Sequelize; readLots: MeasuredLotsReader; config: Config; logger: Logger }): Promise<void> {
   const { queue, sequelize, readLots, config, logger } = props;
-  await queue.work<RefitRequest>(CALIBRATION_REFIT_QUEUE, { pollingIntervalSeconds: 5 }, async ([job]) => {
-    const data = job?.data ?? { reason: "scheduled check" };
-    const actor = data.actorId ? { id: data.actorId } : null;
-    const done = await calibrationRefitter({ sequelize, readLots, actor, reason: data.reason, force: data.force });
-    if (done) logger.info({ run: done.runId, classes: done.calibration.fits.length, reason: data.reason }, "calibration refitted");
+  const refit = async (ask: RefitRequest & { answers?: string[] }) => {
+    const actor = ask.actorId ? { id: ask.actorId } : null;
+    const done = await calibrationRefitter({ sequelize, readLots, actor, reason: ask.reason, force: ask.force, answers: ask.answers });
+    if (done) logger.info({ run: done.runId, classes: done.calibration.fits.length, reason: ask.reason }, "calibration refitted");
+  };
+  await queue.work<Partial<RefitRequest>>(CALIBRATION_REFIT_QUEUE, { pollingIntervalSeconds: 5 }, async ([job]) => {
+    // every open ask; then again for asks that committed while this one ran, whose own job may have
+    // been folded into this one (a few rounds at most: a later job answers the rest)
+    for (let round = 0; round < 3; round++) {
+      const open = await openRefitRequests(sequelize);
+      if (open.length) await refit(combineRefitRequests(open));
+      else {
+        // the scheduled check, the start (and a job queued before asks were kept) carry their own reason
+        if (round === 0 && job?.data?.reason) await refit({ actorId: job.data.actorId, reason: job.data.reason, force: job.data.force });
+        break;
+      }
+    }
   });
   if (config.schedules) {
     await queue.boss.schedule(queue.name(CALIBRATION_REFIT_QUEUE), "*/10 * * * *", { reason: "scheduled check" }, { tz: "UTC" });

@@ -47,11 +47,12 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
 
   router.get("/calibration/overview", requireUser, async (req, res) => {
     requireRole(req.user!, "qa", "admin");
-    const [fits, runs, minLots, pending] = await Promise.all([
+    const [fits, runs, minLots, pending, [asks]] = await Promise.all([
       sequelize.query<FitRecord>(FITS_OF_LATEST, { type: QueryTypes.SELECT }),
       sequelize.query<RunRecord & Pick<Calibration, "waiting" | "unclassified">>(RUNS, { type: QueryTypes.SELECT }),
       calibrationMinLots(sequelize),
       jobs.pending([CALIBRATION_REFIT_QUEUE]).catch(() => 0),
+      sequelize.query<{ open: number }>("select count(*)::int as open from calibration_refit_requests where answered_at is null", { type: QueryTypes.SELECT }),
     ]);
     const latest = runs[0];
     const answer: CalibrationOverviewJson = {
@@ -60,7 +61,7 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
       waiting: latest?.waiting ?? [],
       unclassified: latest?.unclassified ?? [],
       settings: { minLots },
-      refitPending: pending > 0,
+      refitPending: pending > 0 || asks.open > 0,
       history: runs.map(presentRun),
     };
     res.json(answer);
@@ -84,7 +85,7 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
     requireRole(req.user!, "qa", "admin");
     await sequelize.transaction(async (transaction) => {
       await recordEvent({ actor: req.user!, action: "calibration.refit-requested", subject: { type: "calibration" }, ip: req.ip ?? null }, transaction);
-      await queueCalibrationRefit(jobs, { actorId: req.user!.id, reason: "asked for by hand", force: true }, transaction);
+      await queueCalibrationRefit({ jobs, sequelize }, { actorId: req.user!.id, reason: "asked for by hand", force: true }, transaction);
     });
     res.status(202).json({ queued: true });
   });
@@ -96,7 +97,7 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
     await sequelize.transaction(async (transaction) => {
       await sequelize.query("update calibration_settings set min_lots = $1, updated_by_id = $2, updated_at = now() where id = 1", { bind: [input.minLots, req.user!.id], transaction });
       await recordEvent({ actor: req.user!, action: "calibration.settings-changed", subject: { type: "calibration" }, data: { minLots: input.minLots }, ip: req.ip ?? null }, transaction);
-      await queueCalibrationRefit(jobs, { actorId: req.user!.id, reason: `lots a class needs set to ${input.minLots}`, force: true }, transaction);
+      await queueCalibrationRefit({ jobs, sequelize }, { actorId: req.user!.id, reason: `lots a class needs set to ${input.minLots}`, force: true }, transaction);
     });
     res.json({ minLots: input.minLots });
   });

@@ -214,7 +214,7 @@ export function qualityRouter(deps: AppDeps): Router {
     const certificate = await sequelize.transaction(async (transaction) => {
       const issued = await certificateIssuer({ actor: req.user!, lotId: lot.id, sequelize, appUrl: config.appUrl, mailer, ip: ip(req), transaction });
       // every certified lot is a measurement of how this shop's shields really perform: refit after commit
-      await queueCalibrationRefit(jobs, { actorId: req.user!.id, reason: `certificate ${issued.number} issued for lot ${lot.number}` }, transaction);
+      await queueCalibrationRefit({ jobs, sequelize }, { actorId: req.user!.id, reason: `certificate ${issued.number} issued for lot ${lot.number}` }, transaction);
       return issued;
     });
     res.status(201).json({ id: certificate.id, digest: certificate.digest, number: certificate.number, revision: certificate.revision, pdfUrl: `/api/certificates/${certificate.id}.pdf`, verifyUrl: `/verify/${certificate.digest}` });

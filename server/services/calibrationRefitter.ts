@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from "sequelize";
+import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import { calibrateSteps, type Calibration } from "../../shared/calibration";
 import { buildModelFrom } from "../../shared/physics/build-model";
 import { constructionSettingsOf } from "../../shared/schemas/pricing";
@@ -37,8 +37,15 @@ export async function calibrationRefitter(props: {
   actor: { id: string } | null;
   reason: string;
   force?: boolean;
+  /** the asks for a refit this one answers (calibration_refit_requests), marked in the same transaction */
+  answers?: string[];
 }): Promise<{ runId: string; calibration: Calibration } | null> {
   const { sequelize, readLots } = props;
+  const answers = props.answers ?? [];
+  const markAnswered = (runId: string | null, transaction?: Transaction) =>
+    answers.length
+      ? sequelize.query("update calibration_refit_requests set answered_at = now(), run_id = $1 where id = any($2::uuid[]) and answered_at is null", { bind: [runId, answers], transaction })
+      : Promise.resolve();
   const fingerprint = await measuredLotsFingerprint(sequelize);
   const minLots = await calibrationMinLots(sequelize);
   if (!props.force) {
@@ -46,7 +53,10 @@ export async function calibrationRefitter(props: {
       "select fingerprint, min_lots from calibration_runs order by fitted_at desc limit 1",
       { type: QueryTypes.SELECT },
     );
-    if (last && last.fingerprint === fingerprint && last.min_lots === minLots) return null;
+    if (last && last.fingerprint === fingerprint && last.min_lots === minLots) {
+      await markAnswered(null);
+      return null;
+    }
   }
   const [lots, catalog, priceList] = await Promise.all([readLots(), materialCatalog(), PriceListVersion.current()]);
   // the shop's construction settings without any fit: the library values a fit is judged against
@@ -59,7 +69,7 @@ export async function calibrationRefitter(props: {
        values ($1, $2, $3, $4, $5, $6, $7) returning id, fitted_at`,
       {
         type: QueryTypes.SELECT, transaction,
-        bind: [props.actor?.id ?? null, props.reason.slice(0, 200), minLots, lots.length, fingerprint, JSON.stringify(calibration.waiting), JSON.stringify(calibration.unclassified)],
+        bind: [props.actor?.id ?? null, props.reason.slice(0, 1000), minLots, lots.length, fingerprint, JSON.stringify(calibration.waiting), JSON.stringify(calibration.unclassified)],
       },
     );
     for (const fit of calibration.fits)
@@ -79,6 +89,7 @@ export async function calibrationRefitter(props: {
       },
       transaction,
     );
+    await markAnswered(run.id, transaction);
     return run.id;
   });
   await referenceDataChanged(sequelize, "build-model");

@@ -38,25 +38,24 @@ async function certifiedContent(props: {
 }): Promise<CertificateContent> {
   const { sequelize, lot, disposition, transaction } = props;
   const bind = { bind: [lot.id, lot.inspection_round] as unknown[], type: QueryTypes.SELECT as QueryTypes.SELECT, transaction };
-  const [shop, catalog, parts, heats, measurements, instruments, run] = await Promise.all([
-    ShopSettings.current(),
-    materialCatalog(),
-    sequelize.query<{ layer: number; role: keyof typeof roleLabels; method: string; quantity: number; routing: Array<{ key: StepKey }> }>(
-      `select layer, role, method, quantity, routing from jobs where lot_id = $1 and finished_piece order by layer, seq`, { ...bind, bind: [lot.id] }),
-    sequelize.query<{ heat_number: string; supplier: string; file: string | null }>(
+  // one after another: they share the transaction's connection (pg queues concurrent queries on one client, deprecated)
+  const fromRecords = async () => {
+    const parts = await sequelize.query<{ layer: number; role: keyof typeof roleLabels; method: string; quantity: number; routing: Array<{ key: StepKey }> }>(
+      `select layer, role, method, quantity, routing from jobs where lot_id = $1 and finished_piece order by layer, seq`, { ...bind, bind: [lot.id] });
+    const heats = await sequelize.query<{ heat_number: string; supplier: string; file: string | null }>(
       `select distinct h.heat_number, h.supplier, coalesce(f.filename, 'not on file') as file from jobs j join material_heats h on h.id = j.heat_id left join stored_files f on f.id = h.mill_certificate_file_id where j.lot_id = $1 order by h.heat_number`,
-      { ...bind, bind: [lot.id] }),
-    sequelize.query<{ serial: string; applied_field_ut: number; inside_field_ut: number; frequency_hz: number; orientation: string; probe_position: string; shielding_factor: number; attenuation_db: number; pass: boolean }>(
-      `select serial, applied_field_ut, inside_field_ut, frequency_hz, orientation, probe_position, shielding_factor, attenuation_db, pass from measurements where lot_id = $1 and round = $2 order by created_at, serial`, bind),
-    sequelize.query<{ name: string; kind: string; serial_number: string | null; calibration_due: string; last_calibrated_on: string | null }>(
+      { ...bind, bind: [lot.id] });
+    const measurements = await sequelize.query<{ serial: string; applied_field_ut: number; inside_field_ut: number; frequency_hz: number; orientation: string; probe_position: string; shielding_factor: number; attenuation_db: number; pass: boolean }>(
+      `select serial, applied_field_ut, inside_field_ut, frequency_hz, orientation, probe_position, shielding_factor, attenuation_db, pass from measurements where lot_id = $1 and round = $2 order by created_at, serial`, bind);
+    const instruments = await sequelize.query<{ name: string; kind: string; serial_number: string | null; calibration_due: string; last_calibrated_on: string | null }>(
       `select distinct i.name, i.kind, i.serial_number, to_char(m.instrument_calibration_due, 'YYYY-MM-DD') as calibration_due, to_char(i.last_calibrated_on, 'YYYY-MM-DD') as last_calibrated_on
        from measurements m join instruments i on i.id = m.instrument_id or i.id::text = m.derivation -> 'applied' ->> 'helmholtzId'
-       where m.lot_id = $1 and m.round = $2 order by i.name`, bind),
-    (async () => {
-      const l = await Lot.findByPk(lot.id, { transaction, attributes: ["furnaceRunId"] });
-      return l?.furnaceRunId ? FurnaceRun.findByPk(l.furnaceRunId, { transaction }) : null;
-    })(),
-  ]);
+       where m.lot_id = $1 and m.round = $2 order by i.name`, bind);
+    const furnace = await Lot.findByPk(lot.id, { transaction, attributes: ["furnaceRunId"] });
+    const run = furnace?.furnaceRunId ? await FurnaceRun.findByPk(furnace.furnaceRunId, { transaction }) : null;
+    return { parts, heats, measurements, instruments, run };
+  };
+  const [shop, catalog, { parts, heats, measurements, instruments, run }] = await Promise.all([ShopSettings.current(), materialCatalog(), fromRecords()]);
   const alloy = catalog.byId.get(lot.material_id)?.name ?? lot.material_id;
   const route = parts[0]?.routing.map((s) => stepLabels[s.key]) ?? [];
   const plan = disposition.plan;

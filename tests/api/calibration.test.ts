@@ -1,9 +1,11 @@
 import { randomUUID } from "node:crypto";
+import { QueryTypes } from "sequelize";
 import request from "supertest";
 import { describe, expect, it } from "vitest";
 import { libraryMuOf, type MeasuredLot } from "../../shared/calibration";
 import { syntheticLots } from "../../shared/calibration/synthetic";
 import { materialLibrary } from "../../shared/physics/materials";
+import { queueCalibrationRefit } from "../../server/jobs/calibration-refit";
 import { calibrationRefitter } from "../../server/services/calibrationRefitter";
 import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
@@ -17,7 +19,7 @@ const STEEL_CANS: MeasuredDesign[] = [
 ];
 
 const app = buildTestApp();
-const { sequelize } = app.locals.deps;
+const { sequelize, jobs } = app.locals.deps;
 
 async function staff(role: "admin" | "qa" | "operator") {
   const shop = await buildOrganization({ kind: "shop" });
@@ -88,18 +90,50 @@ describe("GET /api/calibration", () => {
 });
 
 describe("refits and the shop setting", () => {
+  /** The run that answered this person's ask (null: answered without one, the lots unchanged), once answered. */
+  async function answerTo(userId: string, reason: string) {
+    const ask = async () => {
+      const [row] = await sequelize.query<{ run_id: string | null; answered_at: Date | null }>(
+        "select run_id, answered_at from calibration_refit_requests where requested_by_id = $1 and reason = $2",
+        { bind: [userId, reason], type: QueryTypes.SELECT },
+      );
+      return row;
+    };
+    await expect.poll(async () => (await ask())?.answered_at, { timeout: 30_000, interval: 250 }).toBeTruthy();
+    return (await ask()).run_id;
+  }
+
   it("POST /api/calibration/refits queues a refit that the worker runs and keeps with who asked", async () => {
     const { agent, csrf, user } = await staff("qa");
     expect((await agent.post("/api/calibration/refits")).status).toBe(403); // no CSRF token
     const res = await agent.post("/api/calibration/refits").set("X-CSRF-Token", csrf);
     expect(res.status).toBe(202);
-    let run: { fittedBy: { id: string } | null; reason: string } | undefined;
-    for (let i = 0; i < 60 && !run; i++) {
-      const history = (await agent.get("/api/calibration/overview")).body.history as { fittedBy: { id: string } | null; reason: string }[];
-      run = history.find((h) => h.fittedBy?.id === user.id);
-      if (!run) await new Promise((r) => setTimeout(r, 500));
-    }
-    expect(run?.reason).toBe("asked for by hand");
+    const runId = await answerTo(user.id, "asked for by hand");
+    expect(runId, "a refit by hand always fits").toBeTruthy();
+    const run = ((await agent.get("/api/calibration/overview")).body.history as { id: string; fittedBy: { id: string } | null; reason: string }[]).find((h) => h.id === runId);
+    // a refit waiting already (another file's) answers this ask too and names both
+    expect(run?.reason).toContain("asked for by hand");
+    expect(run?.fittedBy).not.toBeNull();
+  });
+
+  it("asks made while a refit waits are answered by that one refit, which names each; a forced ask among unforced ones still fits", async () => {
+    const [a, b] = [await staff("qa"), await staff("qa")];
+    const tag = randomUUID().slice(0, 8);
+    await sequelize.transaction(async (transaction) => {
+      // the second ask finds the first one's refit waiting: the queue adds no job for it
+      await queueCalibrationRefit({ jobs, sequelize }, { actorId: a.user.id, reason: `certificate for ${tag}` }, transaction);
+      await queueCalibrationRefit({ jobs, sequelize }, { actorId: b.user.id, reason: `by hand ${tag}`, force: true }, transaction);
+    });
+    const [first, second] = [await answerTo(a.user.id, `certificate for ${tag}`), await answerTo(b.user.id, `by hand ${tag}`)];
+    expect(first, "forced by the second ask, so a run even when the lots did not change").toBeTruthy();
+    expect(second).toBe(first);
+    const [run] = await sequelize.query<{ reason: string; fitted_by_id: string }>("select reason, fitted_by_id from calibration_runs where id = $1", { bind: [first], type: QueryTypes.SELECT });
+    // in the order asked (other files' asks may be answered by the same run)
+    expect(run.reason.indexOf(`certificate for ${tag}`)).toBeGreaterThanOrEqual(0);
+    expect(run.reason.indexOf(`by hand ${tag}`)).toBeGreaterThan(run.reason.indexOf(`certificate for ${tag}`));
+    // kept as asked by the first who asked among the asks it answered
+    const [earliest] = await sequelize.query<{ requested_by_id: string }>("select requested_by_id from calibration_refit_requests where run_id = $1 and requested_by_id is not null order by requested_at, id limit 1", { bind: [first], type: QueryTypes.SELECT });
+    expect(run.fitted_by_id).toBe(earliest.requested_by_id);
   });
 
   it("PUT /api/calibration/settings: the planner only; 400 naming minLots", async () => {

@@ -149,8 +149,8 @@ describe("dispositions, certificates and verification", () => {
     expect(issued.body.digest).toMatch(/^[0-9a-f]{64}$/);
     expect((await post(qa, `/api/lots/${lot.id}/certificate`)).status).toBe(409);
 
-    // the calibration reads the lot's measured parts, each with its design and no test field, and a
-    // refit was queued with the certificate (or one already waits: the queue keeps one in waiting)
+    // the calibration reads the lot's measured parts, each with its design and no test field, and the
+    // certificate asked for a refit, kept with who asked (a refit waiting already answers it too)
     const db = Certificate.sequelize!;
     const parts = await db.query<{ design: Record<string, unknown>; disposition: string }>("select design, disposition from calibration_measured_parts where lot_id = $1", { bind: [lot.id], type: QueryTypes.SELECT });
     expect(parts.length).toBe(plan.sampleSize);
@@ -158,8 +158,8 @@ describe("dispositions, certificates and verification", () => {
     expect(parts[0].design).toHaveProperty("method");
     expect(parts[0].design).toHaveProperty("layers");
     expect(parts[0].design).not.toHaveProperty("field");
-    const refits = await db.query("select 1 from pgboss.job where name = 'calibration-refit' and (data->>'reason' like $1 or state in ('created', 'retry'))", { bind: [`%${issued.body.number}%`], type: QueryTypes.SELECT });
-    expect(refits.length).toBeGreaterThan(0);
+    const asks = await db.query<{ requested_by_id: string }>("select requested_by_id from calibration_refit_requests where reason = $1", { bind: [`certificate ${issued.body.number} issued for lot ${lot.number}`], type: QueryTypes.SELECT });
+    expect(asks.map((a) => a.requested_by_id)).toEqual([qa.user.id]);
 
     // the owner downloads it; another organisation gets 404
     const owner = await customer(app, buyer.organizationId);

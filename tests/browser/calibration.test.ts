@@ -41,10 +41,9 @@ async function certifyLot(number: string) {
     for (const [i, a] of [48.2, 48.9, 47.6, 48.4, 48.8].entries())
       await sequelize.query("insert into measured_part_records (lot_id, serial, frequency_hz, applied_field_ut, attenuation_db) values ($1, $2, 60, 50, $3)", { transaction, bind: [row.lot_id, `${number}-0${i + 1}`, a] });
     const [qa] = await sequelize.query<{ id: string }>("select id from users where email = 'qa@demo.test'", { type: QueryTypes.SELECT, transaction });
-    // forced: other test files certify lots into the same database and queue refits of their own, and
-    // one of those may fit this lot first; an unforced refit would then find nothing new and record no
-    // run under this certificate's reason (in the full suite the wait below then ran out)
-    await queueCalibrationRefit(jobs, { actorId: qa.id, reason: `certificate of lot ${number}`, force: true }, transaction);
+    // forced: other test files certify lots into the same database and ask for refits of their own, and
+    // one of those may fit this lot first; an unforced ask would then be answered with no new run
+    await queueCalibrationRefit({ jobs, sequelize }, { actorId: qa.id, reason: `certificate of lot ${number}`, force: true }, transaction);
   });
 }
 
@@ -91,20 +90,24 @@ describe("calibration from measured lots, as the quality inspector uses it", () 
     expect(await page.locator('[data-group="ni50|bent"]').count()).toBe(1);
     await h.shot(page, "control-charts-qa-laptop");
 
-    // the refit the certificate queued: kept with who asked and why. The job queue runs it when the
-    // suite's other files leave it room, so wait for its run to be recorded before opening the page
-    // (in one full run of the suite it came after the page had stopped polling)
-    const recorded = async () => (await h.app.locals.deps.sequelize.query("select 1 from calibration_runs where reason = $1", { bind: [`certificate of lot ${number}`], type: QueryTypes.SELECT })).length > 0;
-    for (let waited = 0; !(await recorded()) && waited < 60_000; waited += 500) await new Promise((r) => setTimeout(r, 500));
+    // the refit the certificate asked for: kept with who asked and why. A refit already waiting in
+    // the queue (another test file's) answers the ask too, naming it beside its own; wait for the ask
+    // to be answered before opening the page, which stops polling once nothing is pending
+    const { sequelize } = h.app.locals.deps;
+    const answeredBy = async () => {
+      const [ask] = await sequelize.query<{ run_id: string | null }>("select run_id from calibration_refit_requests where reason = $1 and answered_at is not null", { bind: [`certificate of lot ${number}`], type: QueryTypes.SELECT });
+      return ask?.run_id;
+    };
+    await expect.poll(answeredBy, { timeout: 60_000, interval: 500 }).toBeTruthy();
+    const [ours] = await sequelize.query<{ fitted_at: Date; reason: string }>("select fitted_at, reason from calibration_runs where id = $1", { bind: [await answeredBy()], type: QueryTypes.SELECT });
+    expect(ours.reason).toContain(`certificate of lot ${number}`);
     await page.goto(`${h.baseUrl}/quality/calibration`);
-    await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor({ timeout: 30_000 });
+    await page.getByTestId("calibration-history").getByText(`certificate of lot ${number}`).first().waitFor();
 
     // the design check's default 80 % nickel-iron can, made rolled and seam-welded: that class is calibrated.
     // Other test files certify lots of invented readings into the same database, each queueing a refit,
     // so newer refits may land at any moment: the page must use a fit at least as new as the refit this
     // certificate queued (never an older, cached one), and say what that fit says (in use, or the library).
-    const { sequelize } = h.app.locals.deps;
-    const [ours] = await sequelize.query<{ fitted_at: Date }>("select fitted_at from calibration_runs where reason = $1 order by fitted_at desc limit 1", { bind: [`certificate of lot ${number}`], type: QueryTypes.SELECT });
     type UsedFit = { in_use: boolean; lots: number; fitted_at: Date; material: string; method: string; construction: string };
     let shown: { source: string | null; text: string | null; fit: UsedFit | undefined } | undefined;
     for (let attempt = 0; attempt < 5; attempt++) {
