@@ -3,13 +3,15 @@ import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import type { Config } from "../config";
 import { calibrationRefitter } from "../services/calibrationRefitter";
 import type { MeasuredLotsReader } from "../services/measuredLotsReader";
-import type { JobQueue, QueueDefinition } from "./queue";
+import { oneProcessAtATime, type JobQueue, type QueueDefinition } from "./queue";
 
 export const CALIBRATION_REFIT_QUEUE = "calibration-refit";
-// "stately": at most one refit waiting and one running; a burst of certificates makes one refit
+// "short": at most one refit waiting, so a burst of certificates makes one refit. One runs at a time
+// by an advisory lock, not by the queue's "stately" policy: a process that died during a refit left
+// its job active, and a stately queue then ran nothing until the job expired (15 minutes)
 export const calibrationRefitQueueDefinition: QueueDefinition = {
   name: CALIBRATION_REFIT_QUEUE,
-  options: { policy: "stately", retryLimit: 2, retryDelay: 30, expireInSeconds: 900 },
+  options: { policy: "short", retryLimit: 2, retryDelay: 30, expireInSeconds: 900 },
 };
 
 export interface RefitRequest {
@@ -78,17 +80,20 @@ export async function startCalibrationRefits(props: { queue: JobQueue; sequelize
     if (done) logger.info({ run: done.runId, classes: done.calibration.fits.length, reason: ask.reason }, "calibration refitted");
   };
   await queue.work<Partial<RefitRequest>>(CALIBRATION_REFIT_QUEUE, { pollingIntervalSeconds: 5 }, async ([job]) => {
-    // every open ask; then again for asks that committed while this one ran, whose own job may have
-    // been folded into this one (a few rounds at most: a later job answers the rest)
-    for (let round = 0; round < 3; round++) {
-      const open = await openRefitRequests(sequelize);
-      if (open.length) await refit(combineRefitRequests(open));
-      else {
-        // the scheduled check, the start (and a job queued before asks were kept) carry their own reason
-        if (round === 0 && job?.data?.reason) await refit({ actorId: job.data.actorId, reason: job.data.reason, force: job.data.force });
-        break;
+    // one refit at a time in every process; the lock's connection ends with its process
+    await oneProcessAtATime(config.DATABASE_URL, "fluxwright.calibration-refit", async () => {
+      // every open ask; then again for asks that committed while this one ran, whose own job may
+      // have been folded into this one (a few rounds at most: a later job answers the rest)
+      for (let round = 0; round < 3; round++) {
+        const open = await openRefitRequests(sequelize);
+        if (open.length) await refit(combineRefitRequests(open));
+        else {
+          // the scheduled check, the start (and a job queued before asks were kept) carry their own reason
+          if (round === 0 && job?.data?.reason) await refit({ actorId: job.data.actorId, reason: job.data.reason, force: job.data.force });
+          break;
+        }
       }
-    }
+    });
   });
   if (config.schedules) {
     await queue.boss.schedule(queue.name(CALIBRATION_REFIT_QUEUE), "*/10 * * * *", { reason: "scheduled check" }, { tz: "UTC" });

@@ -60,8 +60,12 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
       if (stopped) throw new Error("the job queue was stopped before it started");
       try {
         await boss.start();
-        await oneProcessAtATime(config.DATABASE_URL, async () => {
-          for (const q of props.queues) await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+        await oneProcessAtATime(config.DATABASE_URL, "fluxwright.job-queue-setup", async () => {
+          for (const q of props.queues) {
+            // created once; updated so that a changed definition (its policy, retries) takes effect
+            await boss.createQueue(name(q.name), { name: name(q.name), ...q.options });
+            if (q.options) await boss.updateQueue(name(q.name), { name: name(q.name), ...q.options });
+          }
         });
         return;
       } catch (err) {
@@ -123,16 +127,17 @@ export function createJobQueue(props: { config: Config; logger: Logger; queues: 
 }
 
 /**
- * Runs `work` while holding a PostgreSQL advisory lock that every app process asks for: pg-boss's
- * createQueue deadlocks when two processes create the same queues at once, as the server's workers
- * do when they start together. The lock lives on a connection of its own and ends with it.
+ * Runs `work` while holding a PostgreSQL advisory lock of that name that every app process asks for
+ * (waiting for it): pg-boss's createQueue deadlocks when two processes create the same queues at
+ * once, as the server's workers do when they start together. The lock lives on a connection of its
+ * own and ends with it, so a process that dies holding it lets go at once.
  */
-async function oneProcessAtATime(databaseUrl: string, work: () => Promise<void>): Promise<void> {
-  const client = new pg.Client({ connectionString: databaseUrl, application_name: "fluxwright-jobs-setup" });
+export async function oneProcessAtATime<T>(databaseUrl: string, lock: string, work: () => Promise<T>): Promise<T> {
+  const client = new pg.Client({ connectionString: databaseUrl, application_name: `fluxwright-lock ${lock}`.slice(0, 63) });
   await client.connect();
   try {
-    await client.query("select pg_advisory_lock(hashtext('fluxwright.job-queue-setup'))");
-    await work();
+    await client.query("select pg_advisory_lock(hashtext($1))", [lock]);
+    return await work();
   } finally {
     await client.end().catch(() => {});
   }

@@ -46,7 +46,7 @@ export interface CalibrationOverviewJson {
   waiting: Calibration["waiting"];
   unclassified: Calibration["unclassified"];
   settings: { minLots: number };
-  /** a refit is queued or running */
+  /** an ask for a refit is waiting for the refit that answers it (queued or running) */
   refitPending: boolean;
   history: CalibrationRunJson[];
 }

@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { libraryMuOf, type MeasuredLot } from "../../shared/calibration";
 import { syntheticLots } from "../../shared/calibration/synthetic";
 import { materialLibrary } from "../../shared/physics/materials";
-import { queueCalibrationRefit } from "../../server/jobs/calibration-refit";
+import { CALIBRATION_REFIT_QUEUE, queueCalibrationRefit } from "../../server/jobs/calibration-refit";
 import { calibrationRefitter } from "../../server/services/calibrationRefitter";
 import { createMeasuredLotsReader } from "../../server/services/measuredLotsReader";
 import { buildOrganization, buildTestApp, buildUser, signIn } from "../support/app";
@@ -134,6 +134,22 @@ describe("refits and the shop setting", () => {
     // kept as asked by the first who asked among the asks it answered
     const [earliest] = await sequelize.query<{ requested_by_id: string }>("select requested_by_id from calibration_refit_requests where run_id = $1 and requested_by_id is not null order by requested_at, id limit 1", { bind: [first], type: QueryTypes.SELECT });
     expect(run.fitted_by_id).toBe(earliest.requested_by_id);
+  });
+
+  it("a refit left running by a process that died does not hold up the next: the ask is answered", async () => {
+    const { user } = await staff("qa");
+    const queue = jobs.name(CALIBRATION_REFIT_QUEUE);
+    // the job row a killed process leaves: active, never completed, until it expires (15 minutes)
+    const [[stale]] = (await sequelize.query(
+      "insert into pgboss.job (name, data, state, started_on, policy) values ($1, '{}', 'active', now(), (select policy from pgboss.queue where name = $1)) returning id",
+      { bind: [queue] },
+    )) as [{ id: string }[], unknown];
+    try {
+      await sequelize.transaction((transaction) => queueCalibrationRefit({ jobs, sequelize }, { actorId: user.id, reason: "after a stale refit", force: true }, transaction));
+      expect(await answerTo(user.id, "after a stale refit")).toBeTruthy();
+    } finally {
+      await sequelize.query("delete from pgboss.job where name = $1 and id = $2", { bind: [queue, stale.id] });
+    }
   });
 
   it("PUT /api/calibration/settings: the planner only; 400 naming minLots", async () => {
