@@ -1,7 +1,7 @@
 import type { Logger } from "pino";
 import { QueryTypes, type Sequelize, type Transaction } from "sequelize";
 import type { Config } from "../config";
-import { calibrationRefitter } from "../services/calibrationRefitter";
+import { calibrationRefitter, RUN_REASON_MAX } from "../services/calibrationRefitter";
 import type { MeasuredLotsReader } from "../services/measuredLotsReader";
 import { oneProcessAtATime, type JobQueue, type QueueDefinition } from "./queue";
 
@@ -41,8 +41,6 @@ export interface OpenRefitRequest {
   force: boolean;
 }
 
-const REASONS_MAX = 1000;
-
 /** Asks answered by one refit: every reason once, in the order asked; forced if any was; asked by the first who asked. */
 export function combineRefitRequests(open: OpenRefitRequest[]): RefitRequest & { answers: string[] } {
   const reasons = [...new Set(open.map((r) => r.reason))];
@@ -50,7 +48,7 @@ export function combineRefitRequests(open: OpenRefitRequest[]): RefitRequest & {
   let named = 0;
   for (const r of reasons) {
     const next = named ? `${reason}; ${r}` : r;
-    if (next.length > REASONS_MAX - 20) break;
+    if (next.length > RUN_REASON_MAX - 20) break; // room for "; and N more"
     reason = next;
     named++;
   }
@@ -63,12 +61,17 @@ export function combineRefitRequests(open: OpenRefitRequest[]): RefitRequest & {
   };
 }
 
+const OPEN = "from calibration_refit_requests where answered_at is null";
+
 /** Asks not yet answered, oldest first. */
 export async function openRefitRequests(sequelize: Sequelize, limit = 200): Promise<OpenRefitRequest[]> {
-  return sequelize.query<OpenRefitRequest>(
-    "select id, requested_by_id, reason, force from calibration_refit_requests where answered_at is null order by requested_at, id limit $1",
-    { bind: [limit], type: QueryTypes.SELECT },
-  );
+  return sequelize.query<OpenRefitRequest>(`select id, requested_by_id, reason, force ${OPEN} order by requested_at, id limit $1`, { bind: [limit], type: QueryTypes.SELECT });
+}
+
+/** How many asks wait for the refit that answers them (queued or running). */
+export async function openRefitRequestCount(sequelize: Sequelize): Promise<number> {
+  const [row] = await sequelize.query<{ open: number }>(`select count(*)::int as open ${OPEN}`, { type: QueryTypes.SELECT });
+  return row.open;
 }
 
 /** The worker, and a check every ten minutes that refits when the measured lots changed by any other way. */

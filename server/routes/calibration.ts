@@ -4,7 +4,7 @@ import { chartLotsOf, individualsChart, type Calibration, type MeasuredLot } fro
 import { classOf } from "../../shared/physics/build-model";
 import { calibrationSettingsSchema, type CalibrationOverviewJson, type ControlChartJson } from "../../shared/schemas/calibration";
 import type { AppDeps } from "../deps";
-import { queueCalibrationRefit } from "../jobs/calibration-refit";
+import { openRefitRequestCount, queueCalibrationRefit } from "../jobs/calibration-refit";
 import { NotFoundError } from "../errors";
 import { parseInput } from "../middleware/validate";
 import { requireUser } from "../middleware/security";
@@ -47,11 +47,11 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
 
   router.get("/calibration/overview", requireUser, async (req, res) => {
     requireRole(req.user!, "qa", "admin");
-    const [fits, runs, minLots, [asks]] = await Promise.all([
+    const [fits, runs, minLots, openAsks] = await Promise.all([
       sequelize.query<FitRecord>(FITS_OF_LATEST, { type: QueryTypes.SELECT }),
       sequelize.query<RunRecord & Pick<Calibration, "waiting" | "unclassified">>(RUNS, { type: QueryTypes.SELECT }),
       calibrationMinLots(sequelize),
-      sequelize.query<{ open: number }>("select count(*)::int as open from calibration_refit_requests where answered_at is null", { type: QueryTypes.SELECT }),
+      openRefitRequestCount(sequelize),
     ]);
     const latest = runs[0];
     const answer: CalibrationOverviewJson = {
@@ -62,7 +62,7 @@ export function calibrationRouter({ sequelize, jobs }: AppDeps, { readLots }: { 
       settings: { minLots },
       // an ask stays open until the refit that answers it commits (not the queue's state: a job left
       // active by a process that died would say "running" for its 15 minutes)
-      refitPending: asks.open > 0,
+      refitPending: openAsks > 0,
       history: runs.map(presentRun),
     };
     res.json(answer);

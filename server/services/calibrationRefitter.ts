@@ -7,6 +7,9 @@ import { materialCatalog } from "./materialCatalog";
 import { measuredLotsFingerprint, type MeasuredLotsReader } from "./measuredLotsReader";
 import { referenceDataChanged } from "./referenceData";
 
+/** The longest reason a refit keeps (calibration_runs.reason, migration 0042): a refit answering several asks names each. */
+export const RUN_REASON_MAX = 1000;
+
 /** Lots a class needs before its fit is used (the shop setting). */
 export async function calibrationMinLots(sequelize: Sequelize): Promise<number> {
   const [row] = await sequelize.query<{ min_lots: number }>("select min_lots from calibration_settings where id = 1", { type: QueryTypes.SELECT });
@@ -69,7 +72,7 @@ export async function calibrationRefitter(props: {
        values ($1, $2, $3, $4, $5, $6, $7) returning id, fitted_at`,
       {
         type: QueryTypes.SELECT, transaction,
-        bind: [props.actor?.id ?? null, props.reason.slice(0, 1000), minLots, lots.length, fingerprint, JSON.stringify(calibration.waiting), JSON.stringify(calibration.unclassified)],
+        bind: [props.actor?.id ?? null, props.reason.slice(0, RUN_REASON_MAX), minLots, lots.length, fingerprint, JSON.stringify(calibration.waiting), JSON.stringify(calibration.unclassified)],
       },
     );
     for (const fit of calibration.fits)

@@ -1,4 +1,5 @@
 import { randomUUID } from "node:crypto";
+import pg from "pg";
 import { QueryTypes } from "sequelize";
 import request from "supertest";
 import { describe, expect, it } from "vitest";
@@ -134,6 +135,24 @@ describe("refits and the shop setting", () => {
     // kept as asked by the first who asked among the asks it answered
     const [earliest] = await sequelize.query<{ requested_by_id: string }>("select requested_by_id from calibration_refit_requests where run_id = $1 and requested_by_id is not null order by requested_at, id limit 1", { bind: [first], type: QueryTypes.SELECT });
     expect(run.fitted_by_id).toBe(earliest.requested_by_id);
+  });
+
+  it("the overview says a refit is pending while an ask waits; one refit runs at a time (the lock), and the ask is answered once it is free", async () => {
+    const { agent, user } = await staff("qa");
+    // hold the refit lock as a running refit in another process would
+    const holder = new pg.Client({ connectionString: app.locals.deps.config.DATABASE_URL });
+    await holder.connect();
+    try {
+      await holder.query("select pg_advisory_lock(hashtext('fluxwright.calibration-refit'))");
+      await sequelize.transaction((transaction) => queueCalibrationRefit({ jobs, sequelize }, { actorId: user.id, reason: "while another refit runs", force: true }, transaction));
+      await new Promise((r) => setTimeout(r, 1000)); // the worker has picked the job up and waits for the lock
+      expect((await agent.get("/api/calibration/overview")).body.refitPending).toBe(true);
+      const [ask] = await sequelize.query<{ answered_at: Date | null }>("select answered_at from calibration_refit_requests where requested_by_id = $1", { bind: [user.id], type: QueryTypes.SELECT });
+      expect(ask.answered_at, "no refit while the lock is held").toBeNull();
+    } finally {
+      await holder.end();
+    }
+    expect(await answerTo(user.id, "while another refit runs")).toBeTruthy();
   });
 
   it("a refit left running by a process that died does not hold up the next: the ask is answered", async () => {
